@@ -1,0 +1,136 @@
+/**
+ * Quantity strings ("1.2 m", "48 in", "0.5 in/d", "0.2 %", "40 ac") parsed into the numbers
+ * tileflux computes with. Units are converted once, here at the edge; the core sees plain
+ * numbers in its own units (m, mm, days, m/d, mm/d, ha, mg/L, m3/s).
+ *
+ * Parsing and conversion are done by js-quantities; this module adds the trade's short
+ * spellings (ha, ac, cfs, gpm) and the rule that a bare number means the documented unit.
+ */
+import Qty from 'js-quantities';
+import { TilefluxError } from '../errors.js';
+
+/** What a quantity measures, and therefore which unit the core receives it in. */
+export type QuantityKind =
+  | 'length'
+  | 'depthMm'
+  | 'rate'
+  | 'conductivity'
+  | 'area'
+  | 'fraction'
+  | 'slope'
+  | 'concentration'
+  | 'flow'
+  | 'duration'
+  | 'latitude'
+  | 'diameter';
+
+interface KindSpec {
+  /** js-quantities unit the result is expressed in. */
+  target: string;
+  /** The unit a bare number is taken to be in (same as the result). */
+  unit: string;
+  /** Examples shown in error messages. */
+  examples: string;
+  /** Word used in messages ("a length", "a rate"). */
+  noun: string;
+}
+
+/** One source of truth for each kind's unit, bare-number meaning and examples. */
+export const KINDS: Readonly<Record<QuantityKind, KindSpec>> = {
+  length: { target: 'm', unit: 'm', examples: '1.2 m, 48 in or 4 ft', noun: 'a length' },
+  depthMm: {
+    target: 'mm',
+    unit: 'mm',
+    examples: '10 mm, 1 cm or 0.5 in',
+    noun: 'a depth of water',
+  },
+  diameter: { target: 'mm', unit: 'mm', examples: '100 mm, 4 in or 0.1 m', noun: 'a diameter' },
+  rate: { target: 'mm/d', unit: 'mm/d', examples: '12 mm/d or 0.5 in/d', noun: 'a rate' },
+  conductivity: {
+    target: 'm/d',
+    unit: 'm/d',
+    examples: '1.2 m/d, 2 in/h or 5 cm/h',
+    noun: 'a hydraulic conductivity',
+  },
+  area: { target: 'hectare', unit: 'ha', examples: '16 ha or 40 ac', noun: 'an area' },
+  fraction: { target: '', unit: '(fraction)', examples: '0.05 or 5 %', noun: 'a fraction' },
+  slope: { target: '', unit: 'm/m', examples: '0.002, 0.2 % or 0.2 ft/100ft', noun: 'a slope' },
+  concentration: {
+    target: 'mg/L',
+    unit: 'mg/L',
+    examples: '10 mg/L or 10 ppm',
+    noun: 'a concentration',
+  },
+  flow: { target: 'm^3/s', unit: 'm3/s', examples: '0.05 m3/s, 1.5 cfs or 50 L/s', noun: 'a flow' },
+  duration: { target: 'day', unit: 'd', examples: '5 d, 48 h or 2 days', noun: 'a duration' },
+  latitude: { target: 'deg', unit: 'degrees', examples: '42.1 or 42.1 deg', noun: 'a latitude' },
+};
+
+/** Trade spellings js-quantities does not know, rewritten before parsing. */
+const ALIASES: ReadonlyArray<[RegExp, string]> = [
+  [/\bha\b/g, 'hectare'],
+  [/\bac\b/g, 'acre'],
+  [/\bcfs\b/g, 'ft^3/s'],
+  [/\bgpm\b/g, 'gal/min'],
+  [/\bm3\b/g, 'm^3'],
+  [/\bft3\b/g, 'ft^3'],
+  [/\bppm\b/g, 'mg/L'],
+  [/(\d)\s*%/g, '$1 percent'],
+  [/ft\/100\s*ft/g, 'percent'],
+];
+
+function normalise(text: string): string {
+  let s = text.trim();
+  for (const [re, to] of ALIASES) s = s.replace(re, to);
+  return s;
+}
+
+/**
+ * Parse a quantity string (or a bare number) into the core unit of `kind`.
+ *
+ * @param value  "1.2 m", "0.5 in/d", "5 %", or a number already in the core unit
+ * @param kind   what the quantity measures
+ * @param name   the option or key it came from, used in error messages
+ * @example parseQuantity('48 in', 'length', '--drain-depth') // 1.2192
+ * @example parseQuantity('0.5 in/d', 'rate', '--rate') // 12.7
+ */
+export function parseQuantity(value: string | number, kind: QuantityKind, name: string): number {
+  const spec = KINDS[kind];
+  const expects = `${name} expects ${spec.noun} such as ${spec.examples}`;
+  if (typeof value === 'number') {
+    if (!Number.isFinite(value)) throw new TilefluxError(`${expects}; got ${value}`);
+    return value;
+  }
+  const text = String(value).trim();
+  if (text === '') throw new TilefluxError(`${expects}; got an empty value`);
+  // A bare number is in the documented unit.
+  if (/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)) return Number(text);
+  let q: Qty;
+  try {
+    q = Qty(normalise(text));
+  } catch {
+    throw new TilefluxError(`${expects}; got "${text}", which is not a number with a known unit`);
+  }
+  if (kind === 'latitude' && q.kind() === 'unitless') return q.scalar;
+  if (spec.target === '') {
+    if (q.kind() !== 'unitless') throw new TilefluxError(`${expects}; got ${text}`);
+    return q.toBase().scalar;
+  }
+  if (!q.isCompatible(spec.target)) throw new TilefluxError(`${expects}; got ${text}`);
+  const out = q.to(spec.target).scalar;
+  if (!Number.isFinite(out)) throw new TilefluxError(`${expects}; got ${text}`);
+  return out;
+}
+
+/** Unit systems for printed and written figures (`--units`). */
+export type UnitSystem = 'si' | 'us';
+
+/** Conversion factors from core units to US customary units (exact definitions). */
+export const US = {
+  mmPerIn: 25.4,
+  mPerFt: 0.3048,
+  haPerAc: 0.40468564224,
+  /** kg/ha -> lb/ac: 1 kg/ha = 0.892179 lb/ac (0.45359237 kg per lb, 0.40468564224 ha per ac). */
+  lbAcPerKgHa: 0.40468564224 / 0.45359237,
+  cfsPerM3s: 1 / 0.028316846592,
+} as const;
