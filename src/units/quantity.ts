@@ -86,6 +86,44 @@ function normalise(text: string): string {
 }
 
 /**
+ * Parse a quantity string (or a bare number) into the core unit of `kind`, or say why not.
+ * The reason reads after a key or option name: "expects a rate such as 12 mm/d ...; got 12 m".
+ */
+export function tryParseQuantity(
+  value: unknown,
+  kind: QuantityKind,
+): { ok: true; value: number } | { ok: false; reason: string } {
+  const spec = KINDS[kind];
+  const expects = `expects ${spec.noun} such as ${spec.examples}`;
+  const fail = (got: string) => ({ ok: false as const, reason: `${expects}; got ${got}` });
+  if (typeof value === 'number')
+    return Number.isFinite(value) ? { ok: true, value } : fail(String(value));
+  if (typeof value !== 'string')
+    return fail(value === null ? 'nothing' : `${typeof value} ${JSON.stringify(value)}`);
+  const text = value.trim();
+  if (text === '') return fail('an empty value');
+  // A bare number is in the documented unit.
+  if (/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text))
+    return { ok: true, value: Number(text) };
+  let q: Qty;
+  try {
+    q = Qty(normalise(text));
+  } catch {
+    return fail(`"${text}", which is not a number with a known unit`);
+  }
+  let out: number;
+  if (kind === 'latitude' && q.kind() === 'unitless') out = q.scalar;
+  else if (spec.target === '') {
+    if (q.kind() !== 'unitless') return fail(text);
+    out = q.toBase().scalar;
+  } else {
+    if (!q.isCompatible(spec.target)) return fail(text);
+    out = q.to(spec.target).scalar;
+  }
+  return Number.isFinite(out) ? { ok: true, value: out } : fail(text);
+}
+
+/**
  * Parse a quantity string (or a bare number) into the core unit of `kind`.
  *
  * @param value  "1.2 m", "0.5 in/d", "5 %", or a number already in the core unit
@@ -95,31 +133,9 @@ function normalise(text: string): string {
  * @example parseQuantity('0.5 in/d', 'rate', '--rate') // 12.7
  */
 export function parseQuantity(value: string | number, kind: QuantityKind, name: string): number {
-  const spec = KINDS[kind];
-  const expects = `${name} expects ${spec.noun} such as ${spec.examples}`;
-  if (typeof value === 'number') {
-    if (!Number.isFinite(value)) throw new TilefluxError(`${expects}; got ${value}`);
-    return value;
-  }
-  const text = String(value).trim();
-  if (text === '') throw new TilefluxError(`${expects}; got an empty value`);
-  // A bare number is in the documented unit.
-  if (/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)) return Number(text);
-  let q: Qty;
-  try {
-    q = Qty(normalise(text));
-  } catch {
-    throw new TilefluxError(`${expects}; got "${text}", which is not a number with a known unit`);
-  }
-  if (kind === 'latitude' && q.kind() === 'unitless') return q.scalar;
-  if (spec.target === '') {
-    if (q.kind() !== 'unitless') throw new TilefluxError(`${expects}; got ${text}`);
-    return q.toBase().scalar;
-  }
-  if (!q.isCompatible(spec.target)) throw new TilefluxError(`${expects}; got ${text}`);
-  const out = q.to(spec.target).scalar;
-  if (!Number.isFinite(out)) throw new TilefluxError(`${expects}; got ${text}`);
-  return out;
+  const r = tryParseQuantity(value, kind);
+  if (!r.ok) throw new TilefluxError(`${name} ${r.reason}`);
+  return r.value;
 }
 
 /** Unit systems for printed and written figures (`--units`). */
