@@ -92,7 +92,7 @@ export interface EngineResult {
   ks: Float64Array;
   /** Soil water relative to a profile saturated to the surface at field capacity, mm (<= 0). */
   soilStorageMm: Float64Array;
-  /** Fraction of the profile between surface and barrier that is saturated (below the water table). */
+  /** Saturated fraction of the drained profile: (drain depth - water-table depth) / drain depth, in [0, 1]. */
   saturatedFraction: Float64Array;
   /** Daily water-balance residual, mm. */
   balanceErrorMm: Float64Array;

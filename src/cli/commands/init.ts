@@ -1,0 +1,34 @@
+/** `tileflux init [FILE]`: write a fully commented starter field file. */
+import type { Command } from 'commander';
+import { starterFieldFile } from '../../scenarios/starter.js';
+import { action, writeFileAtomic } from '../common.js';
+
+export function registerInit(program: Command): void {
+  program
+    .command('init')
+    .summary('write a commented starter field file')
+    .description(
+      'Write a starter field file in which every key is explained (meaning, unit, default) by a\n' +
+        'comment generated from the schema that validates field files. Without FILE it prints to\n' +
+        'stdout.',
+    )
+    .argument('[file]', 'where to write it, e.g. field.yaml')
+    .option('-f, --force', 'overwrite FILE if it exists')
+    .addHelpText(
+      'after',
+      '\nExample:\n  tileflux init my-field.yaml && tileflux run my-field.yaml --weather weather.csv',
+    )
+    .action(
+      action((file: string | undefined, o: { force?: boolean }) => {
+        const text = starterFieldFile();
+        if (!file) {
+          process.stdout.write(text);
+          return;
+        }
+        writeFileAtomic(file, text, Boolean(o.force));
+        process.stderr.write(
+          `Wrote ${file}; edit it, then: tileflux run ${file} --weather WEATHER.csv\n`,
+        );
+      }),
+    );
+}

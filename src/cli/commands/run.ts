@@ -1,0 +1,163 @@
+/**
+ * `tileflux run FIELD --weather CSV`: simulate every scenario of a field over a weather record
+ * and write daily.csv, annual.csv, summary.json (and the comparison, charts and report) into an
+ * output folder, atomically.
+ */
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { basename } from 'node:path';
+import type { Command } from 'commander';
+import { TilefluxError } from '../../errors.js';
+import { readFieldFile } from '../../io/field.js';
+import { buildSummary, writeRunFiles, annualMean, type RunMeta } from '../../io/runFolder.js';
+import { readWeatherFile } from '../../io/weather.js';
+import { runField, type RunOutput } from '../../scenarios/run.js';
+import type { UnitSystem } from '../../units/quantity.js';
+import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
+import { progress } from '../progress.js';
+
+export interface RunCommandOptions {
+  weather: string;
+  out?: string;
+  scenario?: string[];
+  from?: string;
+  to?: string;
+  warmupYears?: string;
+  force?: boolean;
+  json?: boolean;
+  units?: string;
+  fill?: boolean;
+}
+
+const ISO = /^\d{4}-\d{2}-\d{2}$/;
+
+function sha256(path: string): string {
+  return createHash('sha256').update(readFileSync(path)).digest('hex');
+}
+
+export function parseUnits(u: string | undefined): UnitSystem {
+  if (u === undefined || u === 'si') return 'si';
+  if (u === 'us') return 'us';
+  throw new TilefluxError(`--units expects si or us; got ${u}`);
+}
+
+/** Validate the options shared by run and demo and run the field. */
+export function runFromFiles(
+  fieldPath: string,
+  o: RunCommandOptions,
+): { run: RunOutput; meta: RunMeta } {
+  for (const [opt, v] of [
+    ['--from', o.from],
+    ['--to', o.to],
+  ] as const) {
+    if (v !== undefined && !ISO.test(v))
+      throw new TilefluxError(`${opt} expects a date such as 2015-01-01; got ${v}`);
+  }
+  let warmupYears: number | undefined;
+  if (o.warmupYears !== undefined) {
+    warmupYears = Number(o.warmupYears);
+    if (!Number.isInteger(warmupYears) || warmupYears < 0 || warmupYears > 50) {
+      throw new TilefluxError(
+        `--warmup-years expects a whole number from 0 to 50; got ${o.warmupYears}`,
+      );
+    }
+  }
+  const field = readFieldFile(fieldPath);
+  const weather = readWeatherFile(o.weather, { fill: o.fill });
+  const bar = progress(field.scenarios.length || 3, 'simulating');
+  const run = runField(field, weather.series, {
+    from: o.from,
+    to: o.to,
+    warmupYears,
+    only: o.scenario,
+    onScenario: (_k, _n, name) => bar.tick(name),
+  });
+  bar.stop();
+  return {
+    run,
+    meta: {
+      fieldFile: basename(fieldPath),
+      fieldSha256: sha256(fieldPath),
+      weatherFile: basename(o.weather),
+      weatherSha256: sha256(o.weather),
+      fieldName: field.base.name,
+    },
+  };
+}
+
+/** Human summary table: one line per scenario with flow, load and wetness against the baseline. */
+export function headline(run: RunOutput, units: UnitSystem): string {
+  const us = units === 'us';
+  const base = run.scenarios.find((s) => s.spec.name === run.baseline);
+  const bm = base ? annualMean(base.annual) : undefined;
+  const flowU = us ? 'in/yr' : 'mm/yr';
+  const loadU = us ? 'lb N/ac/yr' : 'kg N/ha/yr';
+  const lines = [
+    `${'scenario'.padEnd(16)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'wet days/yr'.padStart(12)}`,
+  ];
+  for (const s of run.scenarios) {
+    const m = annualMean(s.annual);
+    const flow = us ? m.drainflow_mm / 25.4 : m.drainflow_mm;
+    const load = us ? m.no3_load_kg_ha * 0.892179 : m.no3_load_kg_ha;
+    const pct = (a: number | undefined, b: number) =>
+      a === undefined || a === 0 ? '' : `${b >= a ? '+' : ''}${fmt((100 * (b - a)) / a, 0)}%`;
+    lines.push(
+      `${s.spec.name.slice(0, 16).padEnd(16)} ${fmt(flow, us ? 2 : 0).padStart(18)} ${pct(bm?.drainflow_mm, m.drainflow_mm).padStart(8)} ${fmt(load, 1).padStart(22)} ${pct(bm?.no3_load_kg_ha, m.no3_load_kg_ha).padStart(8)} ${fmt(m.wet_days, 1).padStart(12)}`,
+    );
+  }
+  return lines.join('\n');
+}
+
+export function registerRun(program: Command): void {
+  program
+    .command('run')
+    .summary('simulate a field’s drainage scenarios over a weather record')
+    .description(
+      'Simulate the daily water table midway between drains, drain outflow, runoff, ET, seepage\n' +
+        'and nitrate-N load for every scenario of a field file over a weather record, and write\n' +
+        'daily.csv, annual.csv and summary.json into an output folder.\n\n' +
+        'Without `scenarios:` in the field file, three alternatives are derived: conventional (as\n' +
+        'given), shallow (0.75 m drains at the spacing with the same drainage intensity) and\n' +
+        'controlled (outlet held 0.30 m below the surface from 1 November to 1 April).',
+    )
+    .argument('<field>', 'field file (YAML; `tileflux init` writes a starter)')
+    .requiredOption('-w, --weather <csv>', 'daily weather CSV (see `tileflux weather check`)')
+    .option('-o, --out <dir>', 'output folder (default: <field name>-run)')
+    .option('-s, --scenario <name...>', 'run only these scenarios')
+    .option(
+      '--from <date>',
+      'first reported day, YYYY-MM-DD (default: first whole year after warm-up)',
+    )
+    .option('--to <date>', 'last reported day, YYYY-MM-DD (default: last whole year)')
+    .option('--warmup-years <n>', 'years simulated before --from and not reported (default 1)')
+    .option('--fill', 'fill weather gaps of up to 7 days (see `tileflux weather check --help`)')
+    .option('--units <system>', 'units of written and printed figures: si or us', 'si')
+    .option('-f, --force', 'replace the output folder if it exists')
+    .option('--json', 'print summary.json on stdout instead of the table')
+    .addHelpText(
+      'after',
+      '\nExample:\n  tileflux run data-demo/field.yaml --weather data-demo/weather.csv --out demo-run\n\n' +
+        CAUTION,
+    )
+    .action(
+      action(async (fieldPath: string, o: RunCommandOptions) => {
+        const units = parseUnits(o.units);
+        const { run, meta } = runFromFiles(fieldPath, o);
+        const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-run`;
+        const summary = buildSummary(run, meta, units);
+        await writeDirAtomic(out, Boolean(o.force), (dir) =>
+          writeRunFiles(dir, run, summary, units),
+        );
+        emit(o.json, summary, () =>
+          [
+            `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
+            '',
+            headline(run, units),
+            '',
+            `Wrote ${out}/ (daily.csv, annual.csv, summary.json).`,
+            CAUTION,
+          ].join('\n'),
+        );
+      }),
+    );
+}

@@ -1,0 +1,81 @@
+/**
+ * Daily crop coefficients for a rotation: the FAO-56 single crop coefficient curve (Allen et al.
+ * 1998, FAO-56 chapter 6, Fig. 25 and Eq. 66): Kc ini during the initial stage, a straight line
+ * to Kc mid over the development stage, Kc mid in mid-season, a straight line to Kc end over the
+ * late season, Kc end from maturity to harvest, and bare soil between harvest and planting.
+ */
+import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, type CropParams } from './crops.js';
+import type { CropCalendar } from './types.js';
+
+/** Day of year (1-based) of "MM-DD" in `year`. */
+export function dayOfYear(year: number, mmdd: string): number {
+  const [m, d] = mmdd.split('-').map(Number);
+  return (Date.UTC(year, m - 1, d) - Date.UTC(year, 0, 1)) / 86400000 + 1;
+}
+
+/**
+ * FAO-56 Kc on day `t` after planting (0-based) for a crop.
+ * @example kcOnDay(CROPS.corn, 90) // 1.2 (mid-season)
+ */
+export function kcOnDay(c: CropParams, t: number): number {
+  const [ini, dev, mid, late] = c.stagesDays;
+  if (t < ini) return c.kcIni;
+  if (t < ini + dev) return c.kcIni + ((t - ini) / dev) * (c.kcMid - c.kcIni);
+  if (t < ini + dev + mid) return c.kcMid;
+  if (t < ini + dev + mid + late)
+    return c.kcMid + ((t - ini - dev - mid) / late) * (c.kcEnd - c.kcMid);
+  return c.kcEnd;
+}
+
+/**
+ * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
+ * The rotation advances each calendar year, starting with its first crop in the first year.
+ *
+ * @param dates    ISO dates of the run
+ * @param rotation crop names in order, e.g. ['corn', 'soybean']
+ * @param crops    parameters of every crop named in the rotation
+ */
+export function cropCalendar(
+  dates: string[],
+  rotation: string[],
+  crops: Record<string, CropParams>,
+): CropCalendar {
+  const n = dates.length;
+  const kc = new Float64Array(n);
+  const depletionFraction = new Float64Array(n);
+  const crop = new Uint8Array(n);
+  const seasonFraction = new Float64Array(n);
+  const names = [...new Set(rotation)];
+  if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names };
+  const firstYear = Number(dates[0].slice(0, 4));
+  let cachedYear = NaN;
+  let plant = 0;
+  let harvest = 0;
+  let params: CropParams = crops[rotation[0]];
+  let code = 0;
+  for (let i = 0; i < n; i++) {
+    const year = Number(dates[i].slice(0, 4));
+    if (year !== cachedYear) {
+      cachedYear = year;
+      const name =
+        rotation[(((year - firstYear) % rotation.length) + rotation.length) % rotation.length];
+      params = crops[name];
+      code = names.indexOf(name) + 1;
+      plant = dayOfYear(year, params.planting);
+      harvest = dayOfYear(year, params.harvest);
+    }
+    const doy = dayOfYear(year, dates[i].slice(5));
+    if (doy >= plant && doy < harvest) {
+      kc[i] = kcOnDay(params, doy - plant);
+      depletionFraction[i] = params.depletionFraction;
+      crop[i] = code;
+      seasonFraction[i] = (doy - plant) / (harvest - plant);
+    } else {
+      kc[i] = BARE_SOIL_KC;
+      depletionFraction[i] = BARE_SOIL_DEPLETION;
+      crop[i] = 0;
+      seasonFraction[i] = -1;
+    }
+  }
+  return { kc, depletionFraction, crop, seasonFraction, crops: names };
+}

@@ -1,0 +1,258 @@
+/**
+ * The daily water-balance engine: water table midway between drains, drain outflow, surface
+ * runoff, crop ET and deep seepage for one field, layout and outlet schedule.
+ *
+ * Method (a field-scale "drainage volume" model in the line of Skaggs 1980):
+ * - The profile above the restrictive layer holds (i) a root-zone depletion below field capacity,
+ *   made by ET and refilled first by infiltration, and (ii) a drained air volume above the water
+ *   table, tied to the water-table depth by the drainable porosity (see porosityProfile.ts).
+ *   The water table is taken as flat for storage, so stored water gives the midpoint depth.
+ * - Drain outflow is Hooghoudt's steady-state equation applied quasi-steadily each sub-step,
+ *   q = (8 K2 d h + 4 K1 h^2) / L^2, with h the midpoint head above the effective outlet level
+ *   (the drain, or the control-structure level when that is shallower) and d the equivalent depth
+ *   of the layer below that level (van der Molen & Wesseling 1991). When the surface is ponded
+ *   and the profile saturated, Kirkham's (1957) ponded-surface rate applies if it is larger.
+ *   Outflow never exceeds the pipe capacity.
+ * - Crop ET is Kc x ET0 (FAO-56 single crop coefficient), taken first from ponded water, then
+ *   from the water table in proportion to exp(-(depth below the root zone) / decay length), the
+ *   rest from the root zone reduced by the FAO-56 water-stress coefficient Ks (Eq. 84). No ET
+ *   is drawn while snow covers the ground.
+ * - Surface water beyond the depression storage runs off. Infiltration is limited by what the
+ *   profile can take (depletion + air) and by the saturated conductivity.
+ * - Deep seepage leaves the saturated zone at a constant rate plus a conductance times the
+ *   head above the restrictive layer.
+ * Every day the water balance P = ET + runoff + drain flow + seepage + change in storage (soil,
+ * surface, snow) is computed from the states and its residual returned; a residual above
+ * 1e-6 mm in any year is a defect and throws.
+ */
+import { equivalentDepth } from '../drainage/equivalentDepth.js';
+import { kirkhamFlux, kirkhamGeometryFactor } from '../drainage/kirkham.js';
+import { airAbove, depthForAir, porosityTable } from './porosityProfile.js';
+import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from './types.js';
+
+/** Largest change of the drain head, as a fraction of itself, allowed in one sub-step. */
+const MAX_RELATIVE_STEP = 0.2;
+/** Largest annual water-balance residual tolerated (DESIGN.md section 6), mm. */
+export const BALANCE_TOLERANCE_MM = 1e-6;
+
+interface OutletLevel {
+  depthM: number;
+  /** Hooghoudt coefficients: q (m/d) = a h + b h^2. */
+  a: number;
+  b: number;
+  kirkhamG: number;
+}
+
+/**
+ * Run the engine over the whole forcing period.
+ *
+ * @param forcing   daily weather terms shared by all scenarios
+ * @param calendar  daily Kc and depletion fraction for this scenario's rotation
+ * @param outletDepthM  daily control-structure level, m below the surface; NaN = free outlet
+ * @param p         field and layout parameters (SI)
+ * @example
+ * const r = simulate(forcing, calendar, new Float64Array(forcing.dates.length).fill(NaN), params);
+ * r.drainflowMm; // daily drain outflow, mm
+ */
+export function simulate(
+  forcing: EngineForcing,
+  calendar: CropCalendar,
+  outletDepthM: Float64Array,
+  p: EngineParams,
+): EngineResult {
+  const n = forcing.dates.length;
+  const table = porosityTable(p.porosity, p.barrierDepthM);
+  const L2 = p.spacingM * p.spacingM;
+
+  const levels = new Map<number, OutletLevel>();
+  const levelFor = (depth: number): OutletLevel => {
+    let lv = levels.get(depth);
+    if (!lv) {
+      const below = p.barrierDepthM - depth;
+      const d =
+        below > p.drainRadiusM
+          ? equivalentDepth(p.spacingM, below, p.drainRadiusM, p.equivalentDepthMethod)
+          : 0;
+      lv = {
+        depthM: depth,
+        a: (8 * p.kBelowMPerDay * d) / L2,
+        b: (4 * p.kAboveMPerDay) / L2,
+        kirkhamG: kirkhamGeometryFactor({
+          drainDepthM: p.drainDepthM,
+          layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
+          drainRadiusM: p.drainRadiusM,
+          spacingM: p.spacingM,
+        }),
+      };
+      levels.set(depth, lv);
+    }
+    return lv;
+  };
+  const free = levelFor(p.drainDepthM);
+
+  // Sub-steps: enough that the drains change the head by at most MAX_RELATIVE_STEP per step
+  // (the linearised rate dq/dh / mu at the largest head), and at least what the caller asks.
+  const kMax = (free.a + 2 * free.b * p.drainDepthM) / table.minValue;
+  const steps = Math.max(p.substepsPerDay, Math.ceil(kMax / MAX_RELATIVE_STEP));
+  const dt = 1 / steps;
+
+  const taw = Math.max(0, (p.fieldCapacity - p.wiltingPoint) * p.rootZoneDepthM * 1000);
+  const infiltrationCapMm = p.kAboveMPerDay * 1000 * dt;
+  const capacityMm = p.capacityMmPerDay * dt;
+
+  const out = {
+    etMm: new Float64Array(n),
+    potentialEtMm: new Float64Array(n),
+    runoffMm: new Float64Array(n),
+    infiltrationMm: new Float64Array(n),
+    drainflowMm: new Float64Array(n),
+    seepageMm: new Float64Array(n),
+    waterTableDepthM: new Float64Array(n),
+    outletDepthM: new Float64Array(n),
+    pondedMm: new Float64Array(n),
+    rootZoneDepletionMm: new Float64Array(n),
+    ks: new Float64Array(n),
+    soilStorageMm: new Float64Array(n),
+    saturatedFraction: new Float64Array(n),
+    balanceErrorMm: new Float64Array(n),
+  };
+
+  let air = airAbove(table, Math.min(Math.max(p.initialWaterTableDepthM, 0), p.barrierDepthM));
+  let depletion = 0;
+  let surface = 0;
+  let swePrev = forcing.sweMm[0] - forcing.snowfallMm[0] + forcing.snowmeltMm[0];
+
+  let yearError = 0;
+  let year = forcing.dates[0]?.slice(0, 4);
+
+  for (let i = 0; i < n; i++) {
+    const waterIn = forcing.rainMm[i] + forcing.snowmeltMm[i];
+    const snowCovered = forcing.sweMm[i] > 0;
+    const potEt = snowCovered ? 0 : calendar.kc[i] * forcing.refEtMm[i];
+    const pDepl = calendar.depletionFraction[i];
+    const ctrl = outletDepthM[i];
+    const lv = Number.isNaN(ctrl) || ctrl >= p.drainDepthM ? free : levelFor(Math.max(0, ctrl));
+    const outletAir = airAbove(table, lv.depthM);
+
+    const storeStart = -(air + depletion) + surface;
+    let et = 0;
+    let runoff = 0;
+    let infil = 0;
+    let drain = 0;
+    let seep = 0;
+    let ksSum = 0;
+
+    for (let s = 0; s < steps; s++) {
+      // Rain and melt reach the surface; the profile takes what it has room for.
+      surface += waterIn * dt;
+      let inf = Math.min(surface, depletion + air, infiltrationCapMm);
+      if (inf < 0) inf = 0;
+      surface -= inf;
+      infil += inf;
+      const refill = Math.min(inf, depletion);
+      depletion -= refill;
+      air -= inf - refill;
+      if (air < 0) air = 0;
+
+      // ET: ponded water first, then the water table, then the root zone under stress.
+      let demand = potEt * dt;
+      const evap = Math.min(surface, demand);
+      surface -= evap;
+      demand -= evap;
+      let wtd = depthForAir(table, air);
+      const below = wtd - p.rootZoneDepthM;
+      const share = below <= 0 ? 1 : Math.exp(-below / p.capillaryDecayM);
+      const fromTable = Math.min(demand * share, table.maxAirMm - air);
+      air += fromTable;
+      demand -= fromTable;
+      let ks = 1;
+      if (taw > 0) {
+        const raw = pDepl * taw;
+        ks = depletion <= raw ? 1 : Math.max(0, (taw - depletion) / ((1 - pDepl) * taw));
+      } else ks = 0;
+      const fromRoots = Math.min(demand * ks, taw - depletion);
+      depletion += fromRoots;
+      et += evap + fromTable + fromRoots;
+      ksSum += ks;
+
+      // Drain outflow from the head above the effective outlet level.
+      wtd = depthForAir(table, air);
+      const h = lv.depthM - wtd;
+      if (h > 0) {
+        let q = lv.a * h + lv.b * h * h;
+        if (air === 0 && surface > 0) {
+          const qk = kirkhamFlux({
+            kMPerDay: p.kAboveMPerDay,
+            pondedDepthM: surface / 1000,
+            drainDepthM: lv.depthM,
+            drainRadiusM: p.drainRadiusM,
+            spacingM: p.spacingM,
+            geometryFactor: lv.kirkhamG,
+          });
+          if (qk > q) q = qk;
+        }
+        let dq = Math.min(q * 1000 * dt, capacityMm, outletAir - air);
+        if (dq < 0) dq = 0;
+        air += dq;
+        drain += dq;
+      }
+
+      // Deep seepage through the restrictive layer while there is saturated soil above it.
+      if (air < table.maxAirMm && (p.seepageMmPerDay > 0 || p.seepageConductanceMmPerDayPerM > 0)) {
+        const headAboveBarrier = p.barrierDepthM - depthForAir(table, air);
+        const rate = p.seepageMmPerDay + p.seepageConductanceMmPerDayPerM * headAboveBarrier;
+        const ds = Math.min(rate * dt, table.maxAirMm - air);
+        air += ds;
+        seep += ds;
+      }
+
+      // Surface water above the depression storage runs off.
+      if (surface > p.surfaceStorageMm) {
+        runoff += surface - p.surfaceStorageMm;
+        surface = p.surfaceStorageMm;
+      }
+    }
+
+    const wtd = depthForAir(table, air);
+    const storeEnd = -(air + depletion) + surface;
+    const swe = forcing.sweMm[i];
+    const err =
+      forcing.precipMm[i] - et - runoff - drain - seep - (storeEnd - storeStart) - (swe - swePrev);
+    swePrev = swe;
+
+    out.etMm[i] = et;
+    out.potentialEtMm[i] = potEt;
+    out.runoffMm[i] = runoff;
+    out.infiltrationMm[i] = infil;
+    out.drainflowMm[i] = drain;
+    out.seepageMm[i] = seep;
+    out.waterTableDepthM[i] = wtd;
+    out.outletDepthM[i] = lv.depthM;
+    out.pondedMm[i] = surface;
+    out.rootZoneDepletionMm[i] = depletion;
+    out.ks[i] = ksSum / steps;
+    out.soilStorageMm[i] = -(air + depletion);
+    const sat = (p.drainDepthM - wtd) / p.drainDepthM;
+    out.saturatedFraction[i] = sat < 0 ? 0 : sat > 1 ? 1 : sat;
+    out.balanceErrorMm[i] = err;
+
+    const y = forcing.dates[i].slice(0, 4);
+    if (y !== year) {
+      yearError = 0;
+      year = y;
+    }
+    yearError += err;
+    if (Math.abs(yearError) > BALANCE_TOLERANCE_MM) {
+      throw new Error(
+        `water balance not closed in ${y}: residual ${yearError} mm (engine defect, please report)`,
+      );
+    }
+  }
+
+  return {
+    dates: forcing.dates,
+    ...out,
+    substepsPerDay: steps,
+    equivalentDepthM: free.a > 0 ? (free.a * L2) / (8 * p.kBelowMPerDay) : 0,
+  };
+}

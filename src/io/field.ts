@@ -1,0 +1,288 @@
+/**
+ * Field files: YAML in, validated `Field` objects out, with every problem located by file, line
+ * and column, and unknown keys answered with a "did you mean" suggestion.
+ *
+ * Scenarios are named overrides of the base field. They are merged into the base as plain data
+ * (objects merge key by key, lists and values replace) and each merged field is validated with
+ * the same schema, so a scenario cannot slip past a check the base must pass.
+ */
+import { readFileSync } from 'node:fs';
+import { LineCounter, parseDocument, isMap, isScalar, type Document } from 'yaml';
+import type { z } from 'zod';
+import { TilefluxError } from '../errors.js';
+import { fieldSchema, OVERRIDABLE, type Field } from '../scenarios/fieldSchema.js';
+
+/** A validated field with its scenarios merged and validated. */
+export interface LoadedField {
+  base: Field;
+  /** Each explicit scenario as a full field (base + overrides), with its name and description. */
+  scenarios: Array<{ name: string; description?: string; field: Field }>;
+  /** The file's text, for hashing into the summary. */
+  text: string;
+}
+
+type Path = Array<string | number>;
+
+/** Levenshtein distance, for "did you mean". */
+function distance(a: string, b: string): number {
+  const m = a.length;
+  const n = b.length;
+  const row = Array.from({ length: n + 1 }, (_, j) => j);
+  for (let i = 1; i <= m; i++) {
+    let prev = row[0];
+    row[0] = i;
+    for (let j = 1; j <= n; j++) {
+      const tmp = row[j];
+      row[j] = Math.min(row[j] + 1, row[j - 1] + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
+      prev = tmp;
+    }
+  }
+  return row[n];
+}
+
+/** The closest accepted name, if it is close enough to be a likely typo. */
+export function suggest(word: string, accepted: readonly string[]): string | undefined {
+  let best: string | undefined;
+  let bestD = Infinity;
+  for (const a of accepted) {
+    const d = distance(word.toLowerCase(), a.toLowerCase());
+    if (d < bestD) {
+      bestD = d;
+      best = a;
+    }
+  }
+  return best !== undefined && bestD <= Math.max(2, Math.floor(best.length / 3)) ? best : undefined;
+}
+
+/** Keys accepted by the (object) schema found at `path`, for suggestions. */
+function acceptedKeys(schema: z.ZodType, path: Path): string[] {
+  let s: unknown = schema;
+  const unwrap = (x: unknown): unknown => {
+    for (let k = 0; k < 10; k++) {
+      const def = (x as { _zod?: { def?: Record<string, unknown> } })?._zod?.def;
+      if (!def) return x;
+      if (def.innerType) x = def.innerType;
+      else if (def.type === 'pipe') x = def.in;
+      else return x;
+    }
+    return x;
+  };
+  const keysOf = (x: unknown): string[] => {
+    const def = (unwrap(x) as { _zod?: { def?: Record<string, unknown> } })?._zod?.def;
+    if (!def) return [];
+    if (def.type === 'object') return Object.keys(def.shape as object);
+    if (def.type === 'union') return (def.options as unknown[]).flatMap(keysOf);
+    return [];
+  };
+  for (const key of path) {
+    const def = (unwrap(s) as { _zod?: { def?: Record<string, unknown> } })?._zod?.def;
+    if (!def) return [];
+    if (def.type === 'object') s = (def.shape as Record<string, unknown>)[String(key)];
+    else if (def.type === 'array') s = def.element;
+    else if (def.type === 'union') {
+      const opts = def.options as unknown[];
+      s =
+        opts.find((o) => keysOf(o).includes(String(key))) ??
+        opts.find(
+          (o) => (unwrap(o) as { _zod: { def: { type: string } } })._zod.def.type === 'array',
+        );
+      if (
+        s &&
+        (unwrap(s) as { _zod: { def: { type: string; element?: unknown } } })._zod.def.type ===
+          'array' &&
+        typeof key === 'number'
+      ) {
+        s = (unwrap(s) as { _zod: { def: { element: unknown } } })._zod.def.element;
+      }
+    } else return [];
+  }
+  return keysOf(s);
+}
+
+/** "line L, column C" of the node at `path`, or of its nearest existing parent. */
+function locate(doc: Document, lc: LineCounter, path: Path, key?: string): string {
+  for (let k = path.length; k >= 0; k--) {
+    const node = doc.getIn(path.slice(0, k), true) as
+      { range?: [number, number, number] } | undefined;
+    if (node && node.range) {
+      let offset = node.range[0];
+      if (key !== undefined && k === path.length && isMap(node)) {
+        const pair = node.items.find((p) => isScalar(p.key) && String(p.key.value) === key);
+        const kr = (pair?.key as { range?: [number, number, number] } | undefined)?.range;
+        if (kr) offset = kr[0];
+      }
+      const pos = lc.linePos(offset);
+      return `line ${pos.line}, column ${pos.col}`;
+    }
+  }
+  return 'line 1, column 1';
+}
+
+function keyPath(path: Path): string {
+  return path.reduce<string>(
+    (acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${k}` : k),
+    '',
+  );
+}
+
+function describeIssue(
+  issue: z.core.$ZodIssue,
+  schema: z.ZodType,
+  input: unknown,
+): { path: Path; key?: string; message: string } {
+  const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p)) as Path;
+  if (issue.code === 'unrecognized_keys') {
+    const key = issue.keys[0];
+    const hint = suggest(key, acceptedKeys(schema, path));
+    const accepted = acceptedKeys(schema, path);
+    return {
+      path,
+      key,
+      message:
+        `unknown key "${keyPath([...path, key])}"` +
+        (hint
+          ? `; did you mean "${hint}"?`
+          : accepted.length
+            ? `; accepted keys here: ${accepted.join(', ')}`
+            : ''),
+    };
+  }
+  let value: unknown = input;
+  for (const k of path) value = (value as Record<string | number, unknown> | undefined)?.[k];
+  const where = keyPath(path) || 'the file';
+  if (value === undefined) return { path, message: `${where} is required` };
+  if (issue.code === 'invalid_union') {
+    // Report the most specific branch message when a quantity or schedule failed.
+    const inner = issue.errors
+      .flat()
+      .find((e) => e.code === 'custom' || e.code === 'invalid_format');
+    if (inner) return { path, message: `${where} ${inner.message}` };
+    return { path, message: `${where} has an unexpected value ${JSON.stringify(value)}` };
+  }
+  if (issue.code === 'invalid_value') {
+    return {
+      path,
+      message: `${where} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}; got ${JSON.stringify(value)}`,
+    };
+  }
+  if (issue.code === 'invalid_type') {
+    return { path, message: `${where} expects ${issue.expected}; got ${JSON.stringify(value)}` };
+  }
+  return { path, message: `${where} ${issue.message}` };
+}
+
+/** Merge `over` into `base`: objects key by key, anything else replaces. */
+export function mergeOverrides(base: unknown, over: unknown): unknown {
+  if (over === undefined) return base;
+  const isObj = (x: unknown): x is Record<string, unknown> =>
+    typeof x === 'object' && x !== null && !Array.isArray(x);
+  if (!isObj(base) || !isObj(over)) return over;
+  const out: Record<string, unknown> = { ...base };
+  for (const [k, v] of Object.entries(over)) out[k] = mergeOverrides(base[k], v);
+  return out;
+}
+
+/**
+ * Parse and validate a field file's text.
+ * @param text the YAML text
+ * @param file the name used in messages
+ */
+export function parseField(text: string, file = 'field file'): LoadedField {
+  const lc = new LineCounter();
+  const doc = parseDocument(text.replace(/^\uFEFF/, ''), { lineCounter: lc, prettyErrors: false });
+  if (doc.errors.length > 0) {
+    const e = doc.errors[0];
+    const pos = lc.linePos(e.pos[0]);
+    throw new TilefluxError(
+      `line ${pos.line}, column ${pos.col}: YAML syntax error: ${e.message.split('\n')[0]}`,
+      file,
+    );
+  }
+  const raw = doc.toJS() as unknown;
+  if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
+    throw new TilefluxError(
+      'expects a mapping of keys (name, soil, drains, ...) at the top level',
+      file,
+    );
+  }
+  const fail = (issue: z.core.$ZodIssue, input: unknown, prefix: Path): never => {
+    const d = describeIssue(issue, fieldSchema, input);
+    const at = locate(doc, lc, [...prefix, ...d.path], d.key);
+    throw new TilefluxError(
+      `${at}: ${prefix.length ? `in scenario ${prefix[1]}: ` : ''}${d.message}`,
+      file,
+    );
+  };
+
+  const baseRaw = raw as Record<string, unknown>;
+  const parsed = fieldSchema.safeParse(baseRaw);
+  if (!parsed.success) fail(parsed.error.issues[0], baseRaw, []);
+  const base = parsed.data as Field;
+
+  const scenarios: LoadedField['scenarios'] = [];
+  const list = Array.isArray(baseRaw.scenarios)
+    ? (baseRaw.scenarios as Array<Record<string, unknown>>)
+    : [];
+  const names = new Set<string>();
+  list.forEach((sc, i) => {
+    const allowed = ['name', 'description', ...OVERRIDABLE];
+    for (const key of Object.keys(sc)) {
+      if (!allowed.includes(key)) {
+        const hint = suggest(key, allowed);
+        const at = locate(doc, lc, ['scenarios', i], key);
+        throw new TilefluxError(
+          `${at}: unknown key "scenarios[${i}].${key}"` +
+            (hint ? `; did you mean "${hint}"?` : `; a scenario may set ${allowed.join(', ')}`),
+          file,
+        );
+      }
+    }
+    const name = String(sc.name);
+    if (names.has(name)) {
+      throw new TilefluxError(
+        `${locate(doc, lc, ['scenarios', i, 'name'])}: scenario name "${name}" is used twice`,
+        file,
+      );
+    }
+    names.add(name);
+    const merged = { ...baseRaw } as Record<string, unknown>;
+    delete merged.scenarios;
+    for (const key of OVERRIDABLE) {
+      if (key in sc)
+        merged[key] = key === 'outlet' ? sc[key] : mergeOverrides(baseRaw[key], sc[key]);
+    }
+    const r = fieldSchema.safeParse(merged);
+    if (!r.success) {
+      const issue = r.error.issues[0];
+      const top = String(issue.path[0]);
+      // Locate in the scenario when it set that key, else in the base.
+      const inScenario =
+        top in sc &&
+        doc.getIn(['scenarios', i, ...issue.path.map((p) => p as string | number)], true);
+      if (inScenario || (top in sc && issue.code === 'unrecognized_keys'))
+        fail(issue, merged, ['scenarios', i]);
+      fail(issue, merged, []);
+    }
+    scenarios.push({
+      name,
+      description: sc.description as string | undefined,
+      field: r.data as Field,
+    });
+  });
+  return { base, scenarios, text };
+}
+
+/** Read and validate a field file from disk. */
+export function readFieldFile(path: string): LoadedField {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code;
+    throw new TilefluxError(
+      code === 'ENOENT' ? 'file not found' : `cannot read the file (${code ?? String(err)})`,
+      path,
+    );
+  }
+  return parseField(text, path);
+}

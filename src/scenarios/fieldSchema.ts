@@ -1,0 +1,305 @@
+/**
+ * The field file's schema: one source of truth for every key's meaning, unit, default and range.
+ * Validation messages, `tileflux init` comments and the resolved parameters all come from here.
+ * Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the unit
+ * shown in brackets in each description.
+ */
+import { z } from 'zod';
+import { zQuantity } from '../units/zodQuantity.js';
+import { nitrateSchema } from '../nitrate/schema.js';
+
+const mmdd = z
+  .string()
+  .regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'expects a month-day such as "10-25"');
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'expects a date such as "2024-10-25"');
+
+const fraction = (description: string) => zQuantity('fraction', description, { min: 0, max: 1 });
+
+export const siteSchema = z
+  .strictObject({
+    latitude: zQuantity(
+      'latitude',
+      'Latitude, degrees north (south negative); sets day length for reference ET',
+      {
+        min: -66,
+        max: 66,
+      },
+    ).default(42),
+    elevation: zQuantity('length', 'Elevation above sea level (Penman-Monteith air pressure)', {
+      min: -400,
+      max: 5000,
+    }).default(250),
+  })
+  .describe('Where the field is');
+
+const porosityLayer = z.strictObject({
+  depth: zQuantity('length', 'Bottom of this layer below the surface', {
+    min: 0,
+    exclusiveMin: true,
+  }),
+  value: fraction('Drainable porosity of the layer'),
+});
+
+export const soilSchema = z
+  .strictObject({
+    conductivity: zQuantity(
+      'conductivity',
+      'Lateral saturated hydraulic conductivity above drain level',
+      {
+        min: 0,
+        exclusiveMin: true,
+        max: 100,
+      },
+    ),
+    conductivityBelowDrains: zQuantity(
+      'conductivity',
+      'Lateral saturated conductivity below drain level (defaults to conductivity)',
+      { min: 0, exclusiveMin: true, max: 100 },
+    ).optional(),
+    restrictiveLayerDepth: zQuantity(
+      'length',
+      'Depth of the restrictive (impermeable) layer below the surface',
+      {
+        min: 0,
+        exclusiveMin: true,
+        max: 50,
+      },
+    ),
+    drainablePorosity: z
+      .union([
+        fraction('Drainable porosity (specific yield), one value for the whole profile'),
+        z.array(porosityLayer).min(1),
+      ])
+      .default(0.05)
+      .describe(
+        'Drainable porosity (specific yield): one value, or a list of {depth, value} layers from the surface down',
+      ),
+    rootZoneDepth: zQuantity('length', 'Effective root-zone depth', { min: 0.05, max: 3 }).default(
+      0.6,
+    ),
+    fieldCapacity: fraction('Volumetric water content at field capacity').default(0.3),
+    wiltingPoint: fraction('Volumetric water content at the permanent wilting point').default(0.14),
+    surfaceStorage: zQuantity('depthMm', 'Depression storage held on the surface before runoff', {
+      min: 0,
+      max: 500,
+    }).default(10),
+    seepage: zQuantity(
+      'rate',
+      'Deep seepage through the restrictive layer while the water table is above it',
+      {
+        min: 0,
+        max: 50,
+      },
+    ).default(0),
+    seepageConductance: z
+      .number()
+      .min(0)
+      .default(0)
+      .describe(
+        'Extra deep seepage per metre of water-table head above the restrictive layer [mm/d per m]',
+      ),
+    capillaryDecay: zQuantity(
+      'length',
+      'Decay length of upward supply from the water table below the root zone (model assumption)',
+      { min: 0.01, max: 5 },
+    ).default(0.3),
+  })
+  .describe('Soil and profile');
+
+const pipeSchema = z.strictObject({
+  diameter: zQuantity('diameter', 'Inside diameter of the lateral at its outlet end', {
+    min: 10,
+    max: 2000,
+  }),
+  grade: zQuantity('slope', 'Grade of the lateral', { min: 0, exclusiveMin: true, max: 0.5 }),
+  length: zQuantity('length', 'Length of the lateral (area served = length x spacing)', {
+    min: 1,
+    max: 10000,
+  }),
+  roughness: z.number().min(0.005).max(0.05).default(0.015).describe("Manning's n of the pipe [-]"),
+});
+
+export const drainsSchema = z
+  .strictObject({
+    depth: zQuantity('length', 'Drain depth below the surface', { min: 0.2, max: 5 }),
+    spacing: zQuantity('length', 'Distance between parallel laterals', { min: 1, max: 500 }),
+    radius: zQuantity('length', 'Effective drain radius (pipe plus envelope)', {
+      min: 0.001,
+      max: 0.5,
+    }).default(0.05),
+    capacity: zQuantity(
+      'rate',
+      'Drainage coefficient: the most the pipes carry, depth per day over the area',
+      {
+        min: 0,
+        exclusiveMin: true,
+        max: 1000,
+      },
+    ).optional(),
+    pipe: pipeSchema
+      .optional()
+      .describe('Lateral pipe, to compute the capacity by Manning (instead of capacity)'),
+    equivalentDepth: z
+      .enum(['vdmw', 'moody'])
+      .default('vdmw')
+      .describe(
+        'Equivalent-depth method: vdmw (van der Molen & Wesseling 1991) or moody (Moody 1966)',
+      ),
+  })
+  .describe('Drain layout');
+
+const outletStep = (from: z.ZodString) =>
+  z.strictObject({
+    from,
+    depth: z
+      .union([
+        z.literal('free'),
+        zQuantity('length', 'Outlet level below the surface', { min: 0, max: 5 }),
+      ])
+      .describe('Outlet level below the surface, or "free"'),
+  });
+
+export const outletSchema = z
+  .union([
+    z.literal('free'),
+    z.strictObject({ schedule: z.array(outletStep(mmdd)).min(1) }),
+    z.strictObject({ dates: z.array(outletStep(isoDate)).min(1) }),
+  ])
+  .default('free')
+  .describe(
+    'Outlet: "free", a yearly schedule {schedule: [{from: "MM-DD", depth}]}, or a one-off dated list {dates: [{from: "YYYY-MM-DD", depth}]}',
+  );
+
+const cropOverride = z.strictObject({
+  planting: mmdd.optional().describe('Planting date "MM-DD"'),
+  harvest: mmdd.optional().describe('Harvest date "MM-DD"'),
+  kcIni: z.number().min(0).max(2).optional(),
+  kcMid: z.number().min(0).max(2).optional(),
+  kcEnd: z.number().min(0).max(2).optional(),
+  stagesDays: z
+    .tuple([
+      z.number().int().min(1),
+      z.number().int().min(1),
+      z.number().int().min(1),
+      z.number().int().min(1),
+    ])
+    .optional(),
+  depletionFraction: z.number().min(0.05).max(0.95).optional(),
+});
+
+export const CROP_NAMES = ['corn', 'soybean', 'small grains'] as const;
+
+export const cropsSchema = z
+  .strictObject({
+    rotation: z
+      .array(z.enum(CROP_NAMES))
+      .min(1)
+      .default(['corn', 'soybean'])
+      .describe('Crops in order, one per year, repeating: corn, soybean, small grains'),
+    corn: cropOverride.optional().describe('Overrides of the FAO-56 corn defaults'),
+    soybean: cropOverride.optional().describe('Overrides of the FAO-56 soybean defaults'),
+    'small grains': cropOverride
+      .optional()
+      .describe('Overrides of the FAO-56 small-grain defaults'),
+  })
+  .default({ rotation: ['corn', 'soybean'] })
+  .describe('Crop rotation and calendar');
+
+export const initialSchema = z
+  .strictObject({
+    waterTableDepth: zQuantity('length', 'Water-table depth on the first day', {
+      min: 0,
+      max: 50,
+    }).default(0.8),
+  })
+  .default({ waterTableDepth: 0.8 })
+  .describe('Starting state');
+
+const window = (from: string, to: string, what: string) =>
+  z.strictObject({ from: mmdd, to: mmdd }).default({ from, to }).describe(what);
+
+export const wetnessSchema = z
+  .strictObject({
+    threshold: zQuantity(
+      'length',
+      'A day is wet when the midpoint water table is shallower than this',
+      {
+        min: 0.01,
+        max: 3,
+      },
+    ).default(0.3),
+    growingSeason: window('05-01', '09-30', 'Window counted for wet days and stress days'),
+    plantingWindow: window('04-15', '05-31', 'Window counted for planting-ready days'),
+    harvestWindow: window('09-20', '11-15', 'Window counted for harvest-ready days'),
+    readyDepth: zQuantity(
+      'length',
+      'A day is field-ready when the water table is at least this deep',
+      {
+        min: 0,
+        max: 3,
+      },
+    ).default(0.5),
+    readyRain: zQuantity('depthMm', 'and the day had less rain than this', {
+      min: 0,
+      max: 200,
+    }).default(12),
+  })
+  .default({
+    threshold: 0.3,
+    growingSeason: { from: '05-01', to: '09-30' },
+    plantingWindow: { from: '04-15', to: '05-31' },
+    harvestWindow: { from: '09-20', to: '11-15' },
+    readyDepth: 0.5,
+    readyRain: 12,
+  })
+  .describe('How wetness is measured (our own definitions; adjust to local practice)');
+
+export const simulationSchema = z
+  .strictObject({
+    substepsPerDay: z
+      .number()
+      .int()
+      .min(1)
+      .max(1000)
+      .default(8)
+      .describe(
+        'Least number of internal time steps per day (more are taken when drains react fast)',
+      ),
+  })
+  .default({ substepsPerDay: 8 })
+  .describe('Numerical settings');
+
+/** The keys a scenario may override (everything that describes the field, layout and management). */
+export const OVERRIDABLE = ['soil', 'drains', 'outlet', 'crops', 'initial', 'nitrate'] as const;
+
+export const scenarioSchema = z.looseObject({
+  name: z.string().min(1).max(80).describe('Scenario name (unique)'),
+  description: z.string().max(500).optional().describe('One line saying what the scenario is'),
+});
+
+export const fieldSchema = z
+  .strictObject({
+    name: z.string().min(1).max(200).describe('Field name shown in reports'),
+    description: z.string().max(2000).optional().describe('Free text about the field'),
+    site: siteSchema.default({ latitude: 42, elevation: 250 }),
+    soil: soilSchema,
+    drains: drainsSchema,
+    outlet: outletSchema,
+    crops: cropsSchema,
+    initial: initialSchema,
+    nitrate: nitrateSchema,
+    wetness: wetnessSchema,
+    simulation: simulationSchema,
+    scenarios: z
+      .array(scenarioSchema)
+      .optional()
+      .describe(
+        'Named overrides of the base field (soil, drains, outlet, crops, initial, nitrate); the first is the baseline. Without it: conventional, shallow and controlled are derived',
+      ),
+  })
+  .describe('A drained field');
+
+export type FieldInput = z.input<typeof fieldSchema>;
+export type Field = z.output<typeof fieldSchema>;

@@ -1,0 +1,179 @@
+/**
+ * From a validated field to the scenarios the engine runs: SI engine parameters, the crop
+ * calendar inputs, the outlet schedule and the nitrate model of each scenario. When the field
+ * file names no scenarios, the three standard alternatives are derived from the base field.
+ */
+import { equivalentDepth } from '../drainage/equivalentDepth.js';
+import { hooghoudtSpacing } from '../drainage/hooghoudt.js';
+import { manningFullCapacity } from '../drainage/manning.js';
+import { CROPS, type CropParams } from '../engine/crops.js';
+import type { OutletSchedule } from '../engine/outletSchedule.js';
+import type { EngineParams } from '../engine/types.js';
+import type { NitrateConfig } from '../nitrate/types.js';
+import type { Field } from './fieldSchema.js';
+
+/** Everything needed to run one scenario. */
+export interface ScenarioSpec {
+  name: string;
+  description: string;
+  field: Field;
+  params: EngineParams;
+  rotation: string[];
+  crops: Record<string, CropParams>;
+  outlet: OutletSchedule;
+  /** Human description of the outlet management, e.g. "free" or "held at 0.30 m 11-01 to 04-01". */
+  outletLabel: string;
+  nitrate: NitrateConfig;
+}
+
+/** Depth of the shallow alternative's drains, m (common practice: 0.6 to 0.9 m). */
+export const SHALLOW_DEPTH_M = 0.75;
+/** Standard controlled-drainage schedule: raise after harvest, lower before planting. */
+export const STANDARD_CONTROL = { raise: '11-01', depthM: 0.3, lower: '04-01' } as const;
+
+/**
+ * Hooghoudt drainage intensity (m/d): the rate with the midpoint water table at the surface.
+ * @example drainageIntensityOf(field) // e.g. 0.025 for 1.2 m drains 20 m apart in 1 m/d soil
+ */
+export function drainageIntensityOf(f: Field): number {
+  const below = f.soil.restrictiveLayerDepth - f.drains.depth;
+  const kBelow = f.soil.conductivityBelowDrains ?? f.soil.conductivity;
+  const d = equivalentDepth(f.drains.spacing, below, f.drains.radius, f.drains.equivalentDepth);
+  const h = f.drains.depth;
+  return (
+    (8 * kBelow * d * h + 4 * f.soil.conductivity * h * h) / (f.drains.spacing * f.drains.spacing)
+  );
+}
+
+/** The outlet schedule of a field, in engine form, and its label. */
+function outletOf(f: Field): { outlet: OutletSchedule; label: string } {
+  const o = f.outlet;
+  if (o === 'free') return { outlet: 'free', label: 'free outlet' };
+  const list = 'schedule' in o ? o.schedule : o.dates;
+  const steps = list.map((s) => ({ from: s.from, depthM: s.depth === 'free' ? null : s.depth }));
+  const label = steps
+    .map((s) => `${s.depthM === null ? 'free' : `${s.depthM.toFixed(2)} m`} from ${s.from}`)
+    .join(', ');
+  return { outlet: { steps }, label: `controlled: ${label}` };
+}
+
+/** Drain capacity in mm/d from a drainage coefficient or a lateral pipe (Manning, full flow). */
+export function capacityOf(f: Field): number {
+  if (f.drains.capacity !== undefined) return f.drains.capacity;
+  const pipe = f.drains.pipe;
+  if (!pipe) return Infinity;
+  const q = manningFullCapacity(pipe.diameter / 1000, pipe.grade, pipe.roughness);
+  const areaM2 = pipe.length * f.drains.spacing;
+  return ((q * 86400) / areaM2) * 1000;
+}
+
+/** Engine parameters of a field (all SI). */
+export function engineParamsOf(f: Field): EngineParams {
+  const por = f.soil.drainablePorosity;
+  const porosity =
+    typeof por === 'number'
+      ? { depthsM: [f.soil.restrictiveLayerDepth], values: [por] }
+      : { depthsM: por.map((l) => l.depth), values: por.map((l) => l.value) };
+  return {
+    drainDepthM: f.drains.depth,
+    spacingM: f.drains.spacing,
+    drainRadiusM: f.drains.radius,
+    barrierDepthM: f.soil.restrictiveLayerDepth,
+    kAboveMPerDay: f.soil.conductivity,
+    kBelowMPerDay: f.soil.conductivityBelowDrains ?? f.soil.conductivity,
+    porosity,
+    rootZoneDepthM: f.soil.rootZoneDepth,
+    fieldCapacity: f.soil.fieldCapacity,
+    wiltingPoint: f.soil.wiltingPoint,
+    surfaceStorageMm: f.soil.surfaceStorage,
+    seepageMmPerDay: f.soil.seepage,
+    seepageConductanceMmPerDayPerM: f.soil.seepageConductance,
+    capacityMmPerDay: capacityOf(f),
+    capillaryDecayM: f.soil.capillaryDecay,
+    initialWaterTableDepthM: f.initial.waterTableDepth,
+    substepsPerDay: f.simulation.substepsPerDay,
+    equivalentDepthMethod: f.drains.equivalentDepth,
+  };
+}
+
+/** Crop parameters with the field's overrides applied. */
+function cropsOf(f: Field): Record<string, CropParams> {
+  const out: Record<string, CropParams> = {};
+  for (const name of Object.keys(CROPS)) {
+    const over = (f.crops as Record<string, Partial<CropParams> | undefined>)[name] ?? {};
+    const merged = { ...CROPS[name] };
+    for (const [k, v] of Object.entries(over))
+      if (v !== undefined) (merged as Record<string, unknown>)[k] = v;
+    out[name] = merged;
+  }
+  return out;
+}
+
+/** Resolve one full field into a runnable scenario. */
+export function scenarioOf(name: string, description: string, f: Field): ScenarioSpec {
+  const { outlet, label } = outletOf(f);
+  return {
+    name,
+    description,
+    field: f,
+    params: engineParamsOf(f),
+    rotation: [...f.crops.rotation],
+    crops: cropsOf(f),
+    outlet,
+    outletLabel: label,
+    nitrate: f.nitrate as NitrateConfig,
+  };
+}
+
+/**
+ * The three standard alternatives derived from a base field:
+ * - conventional: the base as given;
+ * - shallow: drains at 0.75 m (or three quarters of the base depth if that is shallower) with the
+ *   spacing that keeps the base's Hooghoudt drainage intensity (water table at the surface);
+ * - controlled: the base layout with the outlet held 0.30 m below the surface from 1 November to
+ *   1 April (after harvest to before planting; common practice for winter water management).
+ */
+export function standardScenarios(base: Field): ScenarioSpec[] {
+  const intensity = drainageIntensityOf(base);
+  const depth = Math.min(SHALLOW_DEPTH_M, 0.75 * base.drains.depth);
+  const kBelow = base.soil.conductivityBelowDrains ?? base.soil.conductivity;
+  const sol = hooghoudtSpacing({
+    kAboveMPerDay: base.soil.conductivity,
+    kBelowMPerDay: kBelow,
+    layerBelowDrainsM: base.soil.restrictiveLayerDepth - depth,
+    drainRadiusM: base.drains.radius,
+    headM: depth,
+    rateMPerDay: intensity,
+    method: base.drains.equivalentDepth,
+  });
+  const spacing = Math.round(sol.spacingM * 10) / 10;
+  const shallow: Field = { ...base, drains: { ...base.drains, depth, spacing } };
+  const { raise, depthM, lower } = STANDARD_CONTROL;
+  const controlled: Field = {
+    ...base,
+    outlet: {
+      schedule: [
+        { from: raise, depth: depthM },
+        { from: lower, depth: 'free' },
+      ],
+    },
+  };
+  const mm = (x: number) => `${(x * 1000).toFixed(1)} mm/d`;
+  return [
+    scenarioOf(
+      'conventional',
+      `drains as given: ${base.drains.depth} m deep, ${base.drains.spacing} m apart, free outlet`,
+      base,
+    ),
+    scenarioOf(
+      'shallow',
+      `drains ${depth.toFixed(2)} m deep, ${spacing} m apart: same drainage intensity (${mm(intensity)}) as conventional`,
+      shallow,
+    ),
+    scenarioOf(
+      'controlled',
+      `conventional layout, outlet held ${depthM} m below the surface ${raise} to ${lower}`,
+      controlled,
+    ),
+  ];
+}

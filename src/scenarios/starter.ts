@@ -1,0 +1,115 @@
+/**
+ * The starter field file written by `tileflux init`: an example field whose every key carries
+ * the description, unit and default from the schema as a comment, with the optional keys it does
+ * not set shown commented out. Generated from the schema, so it cannot drift from validation.
+ */
+import { z } from 'zod';
+import { stringify } from 'yaml';
+import { fieldSchema } from './fieldSchema.js';
+
+interface JsonSchema {
+  description?: string;
+  default?: unknown;
+  properties?: Record<string, JsonSchema>;
+  required?: string[];
+  type?: string | string[];
+  anyOf?: JsonSchema[];
+}
+
+/** The example every starter file begins from (an invented field). */
+export const STARTER_EXAMPLE = {
+  name: 'Example north field',
+  site: { latitude: 42.1, elevation: '250 m' },
+  soil: {
+    conductivity: '1.0 m/d',
+    restrictiveLayerDepth: '2.5 m',
+    drainablePorosity: 0.05,
+    rootZoneDepth: '0.6 m',
+    fieldCapacity: 0.3,
+    wiltingPoint: 0.14,
+    surfaceStorage: '10 mm',
+    seepage: '0 mm/d',
+  },
+  drains: { depth: '1.2 m', spacing: '20 m', radius: '0.05 m', capacity: '12 mm/d' },
+  outlet: 'free',
+  crops: { rotation: ['corn', 'soybean'] },
+  initial: { waterTableDepth: '0.8 m' },
+};
+
+function objectSchema(s: JsonSchema | undefined): JsonSchema | undefined {
+  if (!s) return undefined;
+  if (s.properties) return s;
+  for (const alt of s.anyOf ?? []) {
+    const o = objectSchema(alt);
+    if (o) return o;
+  }
+  return undefined;
+}
+
+function scalarText(v: unknown): string {
+  return stringify(v, { flowLevel: 0 }).trim();
+}
+
+function emit(
+  schema: JsonSchema,
+  value: Record<string, unknown> | undefined,
+  indent: string,
+  out: string[],
+): void {
+  for (const [key, prop] of Object.entries(schema.properties ?? {})) {
+    const desc = prop.description ?? '';
+    const required = schema.required?.includes(key) && prop.default === undefined;
+    const v = value?.[key];
+    const child = objectSchema(prop);
+    if (desc) out.push(`${indent}# ${desc}${required ? ' (required)' : ''}`);
+    if (v !== undefined) {
+      if (child && typeof v === 'object' && v !== null && !Array.isArray(v)) {
+        out.push(`${indent}${key}:`);
+        emit(child, v as Record<string, unknown>, indent + '  ', out);
+      } else {
+        const text = stringify({ [key]: v }, { flowLevel: 1 }).trimEnd();
+        out.push(...text.split('\n').map((l) => indent + l));
+      }
+    } else if (key === 'scenarios') {
+      out.push(`${indent}# scenarios:`);
+      out.push(`${indent}#   - { name: conventional }`);
+      out.push(`${indent}#   - { name: shallow, drains: { depth: 0.75 m, spacing: 12 m } }`);
+      out.push(`${indent}#   - name: controlled`);
+      out.push(
+        `${indent}#     outlet: { schedule: [ { from: "11-01", depth: 0.3 m }, { from: "04-01", depth: free } ] }`,
+      );
+    } else if (child && prop.default !== undefined && typeof prop.default === 'object') {
+      out.push(`${indent}# ${key}:`);
+      const lines: string[] = [];
+      emit(child, prop.default as Record<string, unknown>, indent + '  ', lines);
+      out.push(
+        ...lines.map((l) =>
+          l.trimStart().startsWith('#') ? l : `${indent}# ${l.slice(indent.length)}`,
+        ),
+      );
+    } else if (prop.default !== undefined) {
+      out.push(`${indent}# ${key}: ${scalarText(prop.default)}`);
+    } else {
+      out.push(`${indent}# ${key}:`);
+    }
+  }
+}
+
+/**
+ * The text of a fully commented starter field file.
+ * @example starterFieldFile().startsWith('# tileflux field file') // true
+ */
+export function starterFieldFile(): string {
+  const schema = z.toJSONSchema(fieldSchema, { io: 'input', unrepresentable: 'any' }) as JsonSchema;
+  const out: string[] = [
+    '# tileflux field file: one drained field, its drain layout and its management.',
+    '# Quantities take unit strings ("1.2 m", "48 in", "0.5 in/d", "2 in/h"); a bare number is in the',
+    '# unit shown in brackets. Commented keys show their defaults; uncomment to change them.',
+    '# Check it with: tileflux run FIELD --weather WEATHER.csv',
+    '# Planning estimates only: local drainage guides, practice standards, permits and a licensed',
+    '# professional decide the design.',
+    '',
+  ];
+  emit(schema, STARTER_EXAMPLE as Record<string, unknown>, '', out);
+  return out.join('\n') + '\n';
+}
