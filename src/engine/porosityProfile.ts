@@ -82,3 +82,13 @@ export function depthForAir(t: PorosityTable, airMm: number): number {
   while (i < t.tops.length - 1 && airMm > t.airAtTop[i + 1]) i++;
   return t.tops[i] + (airMm - t.airAtTop[i]) / (t.values[i] * 1000);
 }
+
+/**
+ * Drainable porosity of the layer containing `depthM`.
+ * @example porosityAt(porosityTable({ depthsM: [1, 2], values: [0.08, 0.04] }, 2), 1.5) // 0.04
+ */
+export function porosityAt(t: PorosityTable, depthM: number): number {
+  let i = 0;
+  while (i < t.tops.length - 1 && depthM >= t.bottoms[i]) i++;
+  return t.values[i];
+}

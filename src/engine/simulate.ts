@@ -27,11 +27,17 @@
  */
 import { equivalentDepth } from '../drainage/equivalentDepth.js';
 import { kirkhamFlux, kirkhamGeometryFactor } from '../drainage/kirkham.js';
-import { airAbove, depthForAir, porosityTable } from './porosityProfile.js';
+import {
+  airAbove,
+  depthForAir,
+  porosityAt,
+  porosityTable,
+  type PorosityTable,
+} from './porosityProfile.js';
 import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from './types.js';
 
 /** Largest change of the drain head, as a fraction of itself, allowed in one sub-step. */
-const MAX_RELATIVE_STEP = 0.2;
+const MAX_RELATIVE_STEP = 0.5;
 /** Largest annual water-balance residual tolerated (DESIGN.md section 6), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
@@ -41,6 +47,53 @@ interface OutletLevel {
   a: number;
   b: number;
   kirkhamG: number;
+}
+
+/**
+ * Drain outflow (mm) over one sub-step of length `dt` days, from a water table with air volume
+ * `air` above it, receiving `recharge` mm spread evenly over the step.
+ *
+ * Hooghoudt's flux q(h) = a h + b h^2 with a constant recharge r makes the midpoint head obey the
+ * Riccati equation mu dh/dt = r - a h - b h^2, which is solved exactly over the step:
+ * with roots h1 >= 0 > h2 of b h^2 + a h - r = 0,
+ *   (h - h1) / (h - h2) = C exp(-b (h1 - h2) t / mu).
+ * Steady states (h = h1) and the exponential recession of the linear term are therefore reproduced
+ * whatever the step, and outflow follows from the change in stored water. The drainable porosity
+ * is taken at the starting depth for the step (layers are thick compared with one step's change).
+ */
+function drainStep(
+  table: PorosityTable,
+  lv: OutletLevel,
+  air: number,
+  outletAir: number,
+  recharge: number,
+  dt: number,
+): number {
+  const depth = depthForAir(table, air);
+  const h0 = Math.max(0, lv.depthM - depth);
+  const mu = porosityAt(table, depth) * 1000; // mm of water per m of head
+  const A = lv.a * 1000; // mm/d per m
+  const B = lv.b * 1000; // mm/d per m^2
+  const r = recharge / dt; // mm/d
+  let hEnd: number;
+  if (B <= 0) {
+    // Linear case: mu dh/dt = r - A h.
+    const hEq = A > 0 ? r / A : Infinity;
+    hEnd = A > 0 ? hEq + (h0 - hEq) * Math.exp((-A * dt) / mu) : h0 + (r * dt) / mu;
+  } else {
+    const root = Math.sqrt(A * A + 4 * B * r);
+    const h1 = (-A + root) / (2 * B);
+    const h2 = (-A - root) / (2 * B);
+    const e = Math.exp((-B * (h1 - h2) * dt) / mu);
+    const c = (h0 - h1) / (h0 - h2);
+    hEnd = (h1 - c * h2 * e) / (1 - c * e);
+  }
+  if (hEnd > lv.depthM) hEnd = lv.depthM;
+  if (hEnd < 0) hEnd = 0;
+  const airEnd = airAbove(table, lv.depthM - hEnd);
+  // Outflow = what left the saturated zone: the air gained plus the recharge received.
+  const dq = airEnd - air + recharge;
+  return Math.min(dq, outletAir - air + recharge);
 }
 
 /**
@@ -143,7 +196,8 @@ export function simulate(
     let ksSum = 0;
 
     for (let s = 0; s < steps; s++) {
-      // Rain and melt reach the surface; the profile takes what it has room for.
+      // Rain and melt reach the surface; the profile takes what it has room for, refilling the
+      // root zone first; the rest recharges the saturated zone over this sub-step.
       surface += waterIn * dt;
       let inf = Math.min(surface, depletion + air, infiltrationCapMm);
       if (inf < 0) inf = 0;
@@ -151,8 +205,7 @@ export function simulate(
       infil += inf;
       const refill = Math.min(inf, depletion);
       depletion -= refill;
-      air -= inf - refill;
-      if (air < 0) air = 0;
+      let recharge = inf - refill;
 
       // ET: ponded water first, then the water table, then the root zone under stress.
       let demand = potEt * dt;
@@ -175,12 +228,18 @@ export function simulate(
       et += evap + fromTable + fromRoots;
       ksSum += ks;
 
-      // Drain outflow from the head above the effective outlet level.
-      wtd = depthForAir(table, air);
-      const h = lv.depthM - wtd;
-      if (h > 0) {
-        let q = lv.a * h + lv.b * h * h;
-        if (air === 0 && surface > 0) {
+      // Recharge below the outlet level raises the water table without drainage.
+      if (air > outletAir) {
+        const fill = Math.min(recharge, air - outletAir);
+        air -= fill;
+        recharge -= fill;
+      }
+      if (recharge > 0 || air < outletAir) {
+        let dq: number;
+        if (air - recharge <= 0 && surface > 0) {
+          // Saturated to the surface and ponded: Hooghoudt at full head or Kirkham, if larger.
+          const h = lv.depthM;
+          let q = lv.a * h + lv.b * h * h;
           const qk = kirkhamFlux({
             kMPerDay: p.kAboveMPerDay,
             pondedDepthM: surface / 1000,
@@ -190,10 +249,16 @@ export function simulate(
             geometryFactor: lv.kirkhamG,
           });
           if (qk > q) q = qk;
+          air -= recharge;
+          dq = Math.min(q * 1000 * dt, capacityMm, outletAir - air);
+        } else {
+          dq = drainStep(table, lv, air, outletAir, recharge, dt);
+          if (dq > capacityMm) dq = capacityMm;
+          air -= recharge;
         }
-        let dq = Math.min(q * 1000 * dt, capacityMm, outletAir - air);
         if (dq < 0) dq = 0;
         air += dq;
+        if (air < 0) air = 0;
         drain += dq;
       }
 

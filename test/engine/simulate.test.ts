@@ -1,0 +1,159 @@
+import { describe, expect, it } from 'vitest';
+import { simulate } from '../../src/engine/simulate.js';
+import { equivalentDepth } from '../../src/drainage/equivalentDepth.js';
+import { constantForcing, flatCalendar, free, params } from './fixtures.js';
+
+/**
+ * Glover-Dumm midpoint head ratio for an initially flat water table (linearised Boussinesq,
+ * Dumm 1954; e.g. Ritzema 1994, ILRI Publ. 16, eq. 8.x):
+ *   h(t)/h0 = (4/pi) sum_{n=1,3,5..} (1/n) exp(-n^2 pi^2 K D t / (mu L^2)),  D = d + h0/2.
+ * Evaluated here independently of the project's own glover.ts.
+ */
+function gloverRatio(t: number, K: number, D: number, mu: number, L: number): number {
+  let s = 0;
+  for (let n = 1; n < 2001; n += 2)
+    s += Math.exp((-n * n * Math.PI * Math.PI * K * D * t) / (mu * L * L)) / n;
+  return (4 / Math.PI) * s;
+}
+
+function timeToHalve(ratioAt: (t: number) => number): number {
+  let lo = 0;
+  let hi = 1000;
+  for (let i = 0; i < 100; i++) {
+    const mid = (lo + hi) / 2;
+    if (ratioAt(mid) > 0.5) lo = mid;
+    else hi = mid;
+  }
+  return (lo + hi) / 2;
+}
+
+describe('engine: falling water table against Glover-Dumm', () => {
+  // No rain, no ET, water table flat at the surface on day 0; 1.2 m drains in uniform soil.
+  for (const [L, K, mu] of [
+    [20, 1, 0.05],
+    [30, 0.5, 0.04],
+    [15, 0.4, 0.08],
+  ]) {
+    it(`L=${L} m, K=${K} m/d, mu=${mu}: time for the head to halve within 10 %`, () => {
+      const n = 400;
+      const f = constantForcing(n, 0, 0);
+      const p = params({
+        spacingM: L,
+        kAboveMPerDay: K,
+        kBelowMPerDay: K,
+        porosity: { depthsM: [2.5], values: [mu] },
+        initialWaterTableDepthM: 0,
+        substepsPerDay: 96,
+      });
+      const r = simulate(f, flatCalendar(n, 0), free(n), p);
+      const h0 = p.drainDepthM;
+      // Engine heads are end-of-day values: interpolate the crossing of h0/2 in log space (the
+      // recession is close to exponential between two days).
+      let k = 0;
+      while (p.drainDepthM - r.waterTableDepthM[k] > h0 / 2) k++;
+      const hPrev = k === 0 ? h0 : p.drainDepthM - r.waterTableDepthM[k - 1];
+      const hNow = p.drainDepthM - r.waterTableDepthM[k];
+      const tEngine = k + Math.log(hPrev / (h0 / 2)) / Math.log(hPrev / hNow);
+      const d = equivalentDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+      const tGlover = timeToHalve((t) => gloverRatio(t, K, d + h0 / 2, mu, L));
+      expect(Math.abs(tEngine - tGlover) / tGlover).toBeLessThan(0.1);
+    });
+  }
+});
+
+describe('engine: steady recharge against Hooghoudt', () => {
+  // Hooghoudt (1940): R = (8 K2 d h + 4 K1 h^2) / L^2 solved for h (quadratic), independent of
+  // the engine's code path; recharge 5 mm/d for 200 days with no ET.
+  for (const [R, L, K] of [
+    [5, 20, 1],
+    [3, 30, 0.6],
+    [8, 15, 1.5],
+  ]) {
+    it(`R=${R} mm/d, L=${L} m, K=${K} m/d: head within 5 % of Hooghoudt`, () => {
+      const n = 300;
+      const p = params({ spacingM: L, kAboveMPerDay: K, kBelowMPerDay: K, surfaceStorageMm: 1000 });
+      const r = simulate(constantForcing(n, R, 0), flatCalendar(n, 0), free(n), p);
+      const d = equivalentDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+      const q = R / 1000;
+      const a = 4 * K;
+      const b = 8 * K * d;
+      const h = (-b + Math.sqrt(b * b + 4 * a * q * L * L)) / (2 * a);
+      const hEngine = p.drainDepthM - r.waterTableDepthM[n - 1];
+      expect(Math.abs(hEngine - h) / h).toBeLessThan(0.05);
+      // and at steady state outflow equals recharge (mass balance)
+      expect(r.drainflowMm[n - 1]).toBeCloseTo(R, 3);
+    });
+  }
+});
+
+describe('engine: outlet, capacity, balance, time step', () => {
+  it('a raised outlet stops drainage at the outlet level (no rain, no ET)', () => {
+    const n = 200;
+    const outlet = new Float64Array(n).fill(0.3);
+    const r = simulate(
+      constantForcing(n, 0, 0),
+      flatCalendar(n, 0),
+      outlet,
+      params({ initialWaterTableDepthM: 0.05 }),
+    );
+    for (let i = 0; i < n; i++) expect(r.waterTableDepthM[i]).toBeLessThanOrEqual(0.3 + 1e-12);
+    expect(r.waterTableDepthM[n - 1]).toBeGreaterThan(0.29);
+    expect(r.drainflowMm[n - 1]).toBeLessThan(1e-3);
+  });
+
+  it('outflow never exceeds the pipe capacity', () => {
+    const n = 120;
+    const cap = 6;
+    const r = simulate(
+      constantForcing(n, 25, 0),
+      flatCalendar(n, 0),
+      free(n),
+      params({ capacityMmPerDay: cap, initialWaterTableDepthM: 0 }),
+    );
+    let max = 0;
+    for (let i = 0; i < n; i++) max = Math.max(max, r.drainflowMm[i]);
+    expect(max).toBeLessThanOrEqual(cap + 1e-9);
+    expect(max).toBeGreaterThan(cap - 1e-6); // the limit is reached in this wet spell
+  });
+
+  it('closes the daily water balance with ET, runoff and seepage active', () => {
+    const n = 730;
+    const f = constantForcing(n, 0, 4);
+    for (let i = 0; i < n; i += 9) {
+      f.rainMm[i] = i % 27 === 0 ? 140 : 45;
+      f.precipMm[i] = f.rainMm[i];
+    }
+    const p = params({
+      seepageMmPerDay: 0.3,
+      seepageConductanceMmPerDayPerM: 0.5,
+      kAboveMPerDay: 0.08,
+    });
+    const r = simulate(f, flatCalendar(n, 1.1), free(n), p);
+    let total = 0;
+    for (let i = 0; i < n; i++) total += Math.abs(r.balanceErrorMm[i]);
+    expect(total).toBeLessThan(1e-6);
+    const sum = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
+    expect(sum(r.runoffMm)).toBeGreaterThan(0);
+    expect(sum(r.seepageMm)).toBeGreaterThan(0);
+    expect(sum(r.etMm)).toBeGreaterThan(0);
+  });
+
+  it('halving the internal step changes drain flow by less than 1 %', () => {
+    const n = 3 * 365;
+    const f = constantForcing(n, 0, 2.5);
+    // a wet-dry pattern with storms of various sizes
+    for (let i = 0; i < n; i++) {
+      const v = ((i * 7919) % 97) / 97;
+      const rain = v > 0.7 ? 60 * (v - 0.7) : 0;
+      f.rainMm[i] = rain;
+      f.precipMm[i] = rain;
+    }
+    const coarse = simulate(f, flatCalendar(n), free(n), params({ substepsPerDay: 8 }));
+    const fine = simulate(f, flatCalendar(n), free(n), params({ substepsPerDay: 16 }));
+    expect(fine.substepsPerDay).toBe(2 * coarse.substepsPerDay);
+    const total = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
+    const rel =
+      Math.abs(total(fine.drainflowMm) - total(coarse.drainflowMm)) / total(fine.drainflowMm);
+    expect(rel).toBeLessThan(0.01);
+  });
+});
