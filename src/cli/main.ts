@@ -4,6 +4,9 @@
  */
 import { Command } from 'commander';
 import { VERSION } from '../version.js';
+import { registerWeather } from './commands/weather.js';
+import { registerInit } from './commands/init.js';
+import { registerRun } from './commands/run.js';
 
 const program = new Command();
 program
@@ -23,6 +26,9 @@ program
 
 const registrations: Array<(p: Command) => void> = [
   // Each command module adds its registration here.
+  registerWeather,
+  registerRun,
+  registerInit,
 ];
 for (const register of registrations) register(program);
 

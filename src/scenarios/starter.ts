@@ -47,7 +47,7 @@ function objectSchema(s: JsonSchema | undefined): JsonSchema | undefined {
 }
 
 function scalarText(v: unknown): string {
-  return stringify(v, { flowLevel: 0 }).trim();
+  return stringify(v, { collectionStyle: 'flow' }).trim();
 }
 
 function emit(
@@ -67,7 +67,9 @@ function emit(
         out.push(`${indent}${key}:`);
         emit(child, v as Record<string, unknown>, indent + '  ', out);
       } else {
-        const text = stringify({ [key]: v }, { flowLevel: 1 }).trimEnd();
+        const text = stringify({ [key]: v }, { collectionStyle: 'block' })
+          .replace(/\n$/, '')
+          .trimEnd();
         out.push(...text.split('\n').map((l) => indent + l));
       }
     } else if (key === 'scenarios') {
