@@ -14,6 +14,8 @@ interface JsonSchema {
   required?: string[];
   type?: string | string[];
   anyOf?: JsonSchema[];
+  oneOf?: JsonSchema[];
+  const?: unknown;
 }
 
 /** The example every starter file begins from (an invented field). */
@@ -53,6 +55,7 @@ function scalarText(v: unknown): string {
 function emit(
   schema: JsonSchema,
   value: Record<string, unknown> | undefined,
+  resolved: Record<string, unknown> | undefined,
   indent: string,
   out: string[],
 ): void {
@@ -61,11 +64,35 @@ function emit(
     const required = schema.required?.includes(key) && prop.default === undefined;
     const v = value?.[key];
     const child = objectSchema(prop);
+    // Defaults of quantity keys are not in the JSON schema (they sit behind a transform), so the
+    // value the schema resolves for the example stands in for them.
+    const dflt = prop.default ?? resolved?.[key];
     if (desc) out.push(`${indent}# ${desc}${required ? ' (required)' : ''}`);
+    const alternatives = (prop.oneOf ?? []).filter((a) => a.properties?.model?.const !== undefined);
+    if (v === undefined && alternatives.length > 1) {
+      // A choice of models: list each with its keys, all commented out.
+      for (const alt of alternatives) {
+        out.push(`${indent}# ${key}:`);
+        for (const [k, sub] of Object.entries(alt.properties ?? {})) {
+          const val = k === 'model' ? String(alt.properties?.model?.const) : '';
+          out.push(
+            `${indent}#   ${k}: ${val}`.trimEnd() +
+              (sub.description && k !== 'model' ? `   # ${sub.description}` : ''),
+          );
+        }
+      }
+      continue;
+    }
     if (v !== undefined) {
       if (child && typeof v === 'object' && v !== null && !Array.isArray(v)) {
         out.push(`${indent}${key}:`);
-        emit(child, v as Record<string, unknown>, indent + '  ', out);
+        emit(
+          child,
+          v as Record<string, unknown>,
+          resolved?.[key] as Record<string, unknown>,
+          indent + '  ',
+          out,
+        );
       } else {
         const text = stringify({ [key]: v }, { collectionStyle: 'block' })
           .replace(/\n$/, '')
@@ -80,17 +107,19 @@ function emit(
       out.push(
         `${indent}#     outlet: { schedule: [ { from: "11-01", depth: 0.3 m }, { from: "04-01", depth: free } ] }`,
       );
-    } else if (child && prop.default !== undefined && typeof prop.default === 'object') {
+    } else if (child && dflt !== undefined && typeof dflt === 'object') {
       out.push(`${indent}# ${key}:`);
       const lines: string[] = [];
-      emit(child, prop.default as Record<string, unknown>, indent + '  ', lines);
-      out.push(
-        ...lines.map((l) =>
-          l.trimStart().startsWith('#') ? l : `${indent}# ${l.slice(indent.length)}`,
-        ),
+      emit(
+        child,
+        dflt as Record<string, unknown>,
+        dflt as Record<string, unknown>,
+        indent + '  ',
+        lines,
       );
-    } else if (prop.default !== undefined) {
-      out.push(`${indent}# ${key}: ${scalarText(prop.default)}`);
+      out.push(...lines.map((l) => `${indent}# ${l.slice(indent.length)}`));
+    } else if (dflt !== undefined) {
+      out.push(...`${key}: ${scalarText(dflt)}`.split('\n').map((l) => `${indent}# ${l}`));
     } else {
       out.push(`${indent}# ${key}:`);
     }
@@ -112,6 +141,7 @@ export function starterFieldFile(): string {
     '# professional decide the design.',
     '',
   ];
-  emit(schema, STARTER_EXAMPLE as Record<string, unknown>, '', out);
+  const resolved = fieldSchema.parse(STARTER_EXAMPLE) as Record<string, unknown>;
+  emit(schema, STARTER_EXAMPLE as Record<string, unknown>, resolved, '', out);
   return out.join('\n') + '\n';
 }
