@@ -7,10 +7,13 @@
  * the same schema, so a scenario cannot slip past a check the base must pass.
  */
 import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument, isMap, isScalar, type Document } from 'yaml';
 import type { z } from 'zod';
 import { TilefluxError } from '../errors.js';
 import { fieldSchema, OVERRIDABLE, type Field } from '../scenarios/fieldSchema.js';
+import { ratingFromObservations, type RatingObservationsSection } from '../nitrate/schema.js';
+import type { RatingFit } from '../nitrate/types.js';
 
 /** A validated field with its scenarios merged and validated. */
 export interface LoadedField {
@@ -19,6 +22,8 @@ export interface LoadedField {
   scenarios: Array<{ name: string; description?: string; field: Field }>;
   /** The file's text, for hashing into the summary. */
   text: string;
+  /** Rating fits made from observation files named in the field file, by file name. */
+  ratingFits: Record<string, RatingFit>;
 }
 
 type Path = Array<string | number>;
@@ -99,21 +104,42 @@ function acceptedKeys(schema: z.ZodType, path: Path): string[] {
   return keysOf(s);
 }
 
-/** "line L, column C" of the node at `path`, or of its nearest existing parent. */
+/** Source range start of a YAML node, if it has one. */
+function startOf(node: unknown): number | undefined {
+  return (node as { range?: [number, number, number] } | undefined)?.range?.[0];
+}
+
+/**
+ * "line L, column C" of the key or value at `path` (or of its nearest existing parent): a
+ * scalar points at its value, a mapping or list at the key that holds it, and `key` (an unknown
+ * key inside the mapping at `path`) at that key.
+ */
 function locate(doc: Document, lc: LineCounter, path: Path, key?: string): string {
+  const at = (offset: number) => {
+    const pos = lc.linePos(offset);
+    return `line ${pos.line}, column ${pos.col}`;
+  };
   for (let k = path.length; k >= 0; k--) {
-    const node = doc.getIn(path.slice(0, k), true) as
-      { range?: [number, number, number] } | undefined;
-    if (node && node.range) {
-      let offset = node.range[0];
-      if (key !== undefined && k === path.length && isMap(node)) {
-        const pair = node.items.find((p) => isScalar(p.key) && String(p.key.value) === key);
-        const kr = (pair?.key as { range?: [number, number, number] } | undefined)?.range;
-        if (kr) offset = kr[0];
-      }
-      const pos = lc.linePos(offset);
-      return `line ${pos.line}, column ${pos.col}`;
+    const node = doc.getIn(path.slice(0, k), true);
+    if (node === undefined) continue;
+    if (key !== undefined && k === path.length && isMap(node)) {
+      const pair = node.items.find((p) => isScalar(p.key) && String(p.key.value) === key);
+      const offset = startOf(pair?.key);
+      if (offset !== undefined) return at(offset);
     }
+    if (isScalar(node) && k === path.length && startOf(node) !== undefined)
+      return at(startOf(node)!);
+    if (k > 0) {
+      const parent = doc.getIn(path.slice(0, k - 1), true);
+      if (isMap(parent)) {
+        const name = String(path[k - 1]);
+        const pair = parent.items.find((p) => isScalar(p.key) && String(p.key.value) === name);
+        const offset = startOf(pair?.key);
+        if (offset !== undefined) return at(offset);
+      }
+    }
+    const offset = startOf(node);
+    if (offset !== undefined) return at(offset);
   }
   return 'line 1, column 1';
 }
@@ -171,6 +197,11 @@ function describeIssue(
   return { path, message: `${where} ${issue.message}` };
 }
 
+/** The issue to report first: a misspelt key explains the missing key it usually causes. */
+function firstIssue(issues: z.core.$ZodIssue[]): z.core.$ZodIssue {
+  return issues.find((i) => i.code === 'unrecognized_keys') ?? issues[0];
+}
+
 /** Merge `over` into `base`: objects key by key, anything else replaces. */
 export function mergeOverrides(base: unknown, over: unknown): unknown {
   if (over === undefined) return base;
@@ -216,7 +247,7 @@ export function parseField(text: string, file = 'field file'): LoadedField {
 
   const baseRaw = raw as Record<string, unknown>;
   const parsed = fieldSchema.safeParse(baseRaw);
-  if (!parsed.success) fail(parsed.error.issues[0], baseRaw, []);
+  if (!parsed.success) fail(firstIssue(parsed.error.issues), baseRaw, []);
   const base = parsed.data as Field;
 
   const scenarios: LoadedField['scenarios'] = [];
@@ -253,7 +284,7 @@ export function parseField(text: string, file = 'field file'): LoadedField {
     }
     const r = fieldSchema.safeParse(merged);
     if (!r.success) {
-      const issue = r.error.issues[0];
+      const issue = firstIssue(r.error.issues);
       const top = String(issue.path[0]);
       // Locate in the scenario when it set that key, else in the base.
       const inScenario =
@@ -269,7 +300,7 @@ export function parseField(text: string, file = 'field file'): LoadedField {
       field: r.data as Field,
     });
   });
-  return { base, scenarios, text };
+  return { base, scenarios, text, ratingFits: {} };
 }
 
 /** Read and validate a field file from disk. */
@@ -284,5 +315,29 @@ export function readFieldFile(path: string): LoadedField {
       path,
     );
   }
-  return parseField(text, path);
+  const loaded = parseField(text, path);
+  // A rating given by observations is fitted now, from a file named relative to the field file.
+  const fields = [loaded.base, ...loaded.scenarios.map((s) => s.field)];
+  for (const f of fields) {
+    const section = f.nitrate as unknown as Partial<RatingObservationsSection>;
+    if (section.model !== 'rating' || typeof section.observations !== 'string') continue;
+    const obsPath = resolve(dirname(path), section.observations);
+    let obsText: string;
+    try {
+      obsText = readFileSync(obsPath, 'utf8');
+    } catch {
+      throw new TilefluxError(
+        `nitrate.observations: cannot read ${section.observations} (looked for ${obsPath})`,
+        path,
+      );
+    }
+    const { config, fit } = ratingFromObservations(
+      section as RatingObservationsSection,
+      obsText,
+      section.observations,
+    );
+    (f as { nitrate: unknown }).nitrate = config;
+    loaded.ratingFits[section.observations] = fit;
+  }
+  return loaded;
 }
