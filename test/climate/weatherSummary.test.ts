@@ -1,0 +1,63 @@
+import { describe, it, expect } from 'vitest';
+import { summarizeWeather } from '../../src/climate/weatherSummary.js';
+import { consecutiveDates } from '../../src/climate/calendar.js';
+import type { WeatherSeries } from '../../src/climate/weatherSeries.js';
+
+function record(
+  first: string,
+  days: number,
+  rule: (date: string) => [number, number, number],
+): WeatherSeries {
+  const dates = consecutiveDates(first, days);
+  const rows = dates.map(rule);
+  return {
+    dates,
+    precipMm: Float64Array.from(rows.map((r) => r[0])),
+    tmaxC: Float64Array.from(rows.map((r) => r[1])),
+    tminC: Float64Array.from(rows.map((r) => r[2])),
+  };
+}
+
+describe('summarizeWeather', () => {
+  // 2021-07-01 .. 2024-03-31: complete years 2022 and 2023 only.
+  // Every day 2 mm; on 1 January also 100 mm in 2022, 300 mm in 2023 (all as snow: cold day);
+  // a warm day every day otherwise.
+  const w = record('2021-07-01', 1005, (d) => {
+    const jan1 = d.endsWith('-01-01');
+    const extra = d === '2022-01-01' ? 100 : d === '2023-01-01' ? 300 : 0;
+    return jan1 ? [2 + extra, -5, -10] : [2, 20, 10];
+  });
+  const s = summarizeWeather(w, 42);
+
+  it('uses complete calendar years only for the annual figures', () => {
+    expect(s.firstDate).toBe('2021-07-01');
+    expect(s.lastDate).toBe('2024-03-31');
+    expect(s.days).toBe(1005);
+    expect(s.completeYears).toEqual([2022, 2023]);
+    // 2022: 365 * 2 + 100 = 830; 2023: 365 * 2 + 300 = 1030 (hand calculation).
+    expect(s.precipByYear).toEqual([
+      { year: 2022, mm: 830 },
+      { year: 2023, mm: 1030 },
+    ]);
+    expect(s.precipMeanMmYr).toBeCloseTo(930, 9);
+    expect(s.precipMin).toEqual({ year: 2022, mm: 830 });
+    expect(s.precipMax).toEqual({ year: 2023, mm: 1030 });
+    expect(s.annualBasis).toBe('complete years');
+    expect(s.refEtMethod).toBe('Hargreaves');
+  });
+
+  it('gives the share of precipitation that fell as snow', () => {
+    // Snow falls on the three 1 January days (mean -7.5 degC): 2022: 102, 2023: 302, 2024: 2 mm;
+    // total precipitation 1005 * 2 + 400 = 2410 mm.
+    expect(s.snowSharePercent).toBeCloseTo((100 * (102 + 302 + 2)) / 2410, 9);
+  });
+
+  it('scales the daily mean when no complete year is present', () => {
+    const short = record('2024-03-01', 10, () => [3, 15, 5]);
+    const t = summarizeWeather(short, 42);
+    expect(t.completeYears).toEqual([]);
+    expect(t.annualBasis).toBe('daily mean x 365.25');
+    expect(t.precipMeanMmYr).toBeCloseTo(3 * 365.25, 9);
+    expect(t.precipMin).toBeUndefined();
+  });
+});
