@@ -46,6 +46,11 @@ export const DEFAULT_POOL_PARAMS: PoolParams = {
   // from the soil and fixes the rest (Salvagiotti et al. 2008, Field Crops Res. 108: 1-13
   // (from memory)); small grains about 90 (assumption: 3.5 Mg/ha at about 25 kg N/Mg).
   uptakeKgHa: { corn: 180, soybean: 110, 'small grains': 90 },
+  // Uptake slows as the pool runs short: half the demand is met with 15 kg N/ha left in the
+  // profile, so crops leave a residual of the order of 10-30 kg N/ha as N-limited crops do at
+  // harvest (assumption; residual soil nitrate after harvest of a few tens of kg N/ha is
+  // common in corn-belt soil tests (from memory)). Soybean meets the rest by fixation.
+  uptakeHalfSaturationKgHa: 15,
   // Half the uptake by silking, about 40 % of the planting-to-harvest span (after Bender et al.
   // 2013 (from memory)); steepness 10 spreads most uptake over the middle half of the season
   // (assumption).

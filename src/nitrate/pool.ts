@@ -5,8 +5,11 @@
  * (from memory), for the processes). Each day:
  *
  * 1. inputs: fertilizer events and net mineralization, M = M20 / 365.25 x Q10m^((T - 20)/10);
- * 2. crop uptake: the day's step of a logistic curve over the season times the crop's seasonal
- *    uptake, never more than the pool holds;
+ * 2. crop uptake: the demand, the day's step of a logistic curve over the season times the
+ *    crop's seasonal demand, scaled by the supply P / (P + K) (Michaelis-Menten: roots take
+ *    nitrate more slowly as it runs short, and part of the profile's nitrate lies beyond them;
+ *    e.g. Barber 1995, Soil Nutrient Bioavailability, 2nd ed., Wiley (from memory)), never more
+ *    than the pool holds;
  * 3. first-order losses acting together over the day on what remains, P:
  *    denitrification kd = kmax x f(saturation) x Q10d^((T - 20)/10), and washout with the water
  *    leaving the profile, kw = (drain + seepage + r x runoff) / W, where W is the mobile water the
@@ -65,6 +68,7 @@ export function simulatePool(
   const { drainflowMm, runoffMm, seepageMm, tmeanC, saturatedFraction, calendar } = input;
   const W = p.mobileWaterMm;
   const r = p.runoffExtractionRatio;
+  const K = p.uptakeHalfSaturationKgHa;
   const uptakeOf = uptakeByCode(calendar.crops, p.uptakeKgHa);
   const fertilizerKgHa = dailyFertilizer(input.dates, p.fertilizer, calendar);
 
@@ -102,7 +106,8 @@ export function simulatePool(
           cumulativeUptakeFraction(sPrev, p.uptakeMidpoint, p.uptakeSteepness));
       if (demand < 0) demand = 0;
     }
-    const uptake = demand < pool ? demand : pool;
+    const supplied = K > 0 ? (demand * pool) / (pool + K) : demand;
+    const uptake = supplied < pool ? supplied : pool;
     pool -= uptake;
 
     // First-order losses together, exact over the day.

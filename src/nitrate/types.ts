@@ -32,8 +32,10 @@ export interface PoolParams {
   mineralizationKgHaPerYear: number;
   /** Q10 of net mineralization. */
   mineralizationQ10: number;
-  /** Crop uptake from the soil pool over a whole season, kg N/ha, keyed by crop name. */
+  /** Crop N demand on the soil pool over a whole season, kg N/ha, keyed by crop name. */
   uptakeKgHa: Record<string, number>;
+  /** Pool at which the crop takes half its daily demand (Michaelis-Menten), kg N/ha; 0: all. */
+  uptakeHalfSaturationKgHa: number;
   /** Season fraction (0 planting, 1 harvest) at which half of the season's uptake is taken. */
   uptakeMidpoint: number;
   /** Steepness of the logistic uptake curve (per unit season fraction). */
@@ -79,6 +81,8 @@ export interface NitrateInput {
   tmeanC: Float64Array;
   /** Saturated fraction of the drained profile, 0..1 (EngineResult.saturatedFraction). */
   saturatedFraction: Float64Array;
+  /** Midpoint water-table depth, m (not used by the present models; denitrification uses the
+   * saturated fraction). */
   waterTableDepthM: Float64Array;
   calendar: CropCalendar;
 }

@@ -130,6 +130,7 @@ describe('pool model: processes against closed forms', () => {
       ...QUIET,
       initialPoolKgHa: 1000,
       uptakeKgHa: DEFAULT_POOL_PARAMS.uptakeKgHa,
+      uptakeHalfSaturationKgHa: 0,
     });
     const half = 366; // 2000 is a leap year
     expect(sum(r.pool.uptakeKgHa, 0, half)).toBeCloseTo(DEFAULT_POOL_PARAMS.uptakeKgHa.corn, 9);
@@ -137,6 +138,30 @@ describe('pool model: processes against closed forms', () => {
     // Uptake only in season.
     for (let i = 0; i < input.dates.length; i++)
       if (input.calendar.crop[i] === 0) expect(r.pool.uptakeKgHa[i]).toBe(0);
+  });
+
+  it('meets the demand in proportion P / (P + K) when nitrate runs short', () => {
+    // Two days of a corn season (season fraction 0.4 then 0.5, no other process): the second
+    // day's demand is 180 x (F(0.5) - F(0.4)) with F the logistic curve rescaled to 0..1,
+    // evaluated here; Michaelis-Menten supply gives demand x 40 / (40 + 15) from a 40 kg/ha pool.
+    const input = constantInput(2);
+    input.calendar.crops = ['corn'];
+    input.calendar.crop.fill(1);
+    input.calendar.seasonFraction.set([0.4, 0.5]);
+    const L = (x: number) => 1 / (1 + Math.exp(-10 * (x - 0.4)));
+    const F = (x: number) => (L(x) - L(0)) / (L(1) - L(0));
+    const demand = 180 * (F(0.5) - F(0.4));
+    const r = simulatePool(input, {
+      ...QUIET,
+      initialPoolKgHa: 40,
+      uptakeKgHa: { corn: 180 },
+      uptakeMidpoint: 0.4,
+      uptakeSteepness: 10,
+      uptakeHalfSaturationKgHa: 15,
+    });
+    expect(r.pool.uptakeKgHa[0]).toBe(0); // the run starts mid-season
+    expect(r.pool.uptakeKgHa[1]).toBeCloseTo((demand * 40) / 55, 12);
+    expect(demand).toBeGreaterThan(10); // a real step of the curve
   });
 
   it('asks for the uptake of a crop it does not know', () => {
