@@ -1,7 +1,6 @@
 /**
  * Extraterrestrial radiation for daily periods, FAO Irrigation and Drainage Paper 56
  * (Allen, Pereira, Raes and Smith, 1998), Chapter 3, Eq. 21-25.
- * https://www.fao.org/4/x0490e/x0490e07.htm
  */
 
 /** Solar constant Gsc, MJ m-2 min-1 (FAO-56 Eq. 21). */

@@ -1,7 +1,7 @@
 /**
  * FAO Penman-Monteith reference evapotranspiration for daily time steps, FAO Irrigation and
  * Drainage Paper 56 (Allen, Pereira, Raes and Smith, 1998), Chapter 2 Eq. 6 and Chapter 3
- * Eq. 7-39. https://www.fao.org/4/x0490e/x0490e06.htm and .../x0490e07.htm
+ * Eq. 7-39.
  */
 import { MM_PER_MJ_M2 } from './extraterrestrialRadiation.js';
 

@@ -3,7 +3,8 @@
  * the day's mean air temperature is at or below a threshold, accumulates as snow water
  * equivalent (SWE), and melts at a fixed rate per degree-day above a base temperature. This is
  * the classical degree-day method (reviewed by Rango and Martinec, 1995, "Revisiting the
- * degree-day method for snowmelt computations", Water Resources Bulletin 31(4): 657-669).
+ * degree-day method for snowmelt computations", Water Resources Bulletin 31(4): 657-669;
+ * citation from memory).
  */
 import { TilefluxError } from '../errors.js';
 
