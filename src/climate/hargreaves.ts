@@ -1,7 +1,7 @@
 /**
  * Hargreaves reference evapotranspiration from air temperature alone, FAO-56 (Allen et al.,
- * 1998) Chapter 3, Eq. 52 (Hargreaves and Samani, 1985). FAO-56 gives it as an alternative when only maximum
- * and minimum temperature are available.
+ * 1998) Chapter 3, Eq. 52 (Hargreaves and Samani, 1985). FAO-56 gives it as an alternative
+ * when only maximum and minimum temperature are available.
  */
 import { MM_PER_MJ_M2 } from './extraterrestrialRadiation.js';
 
