@@ -7,10 +7,14 @@
 import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, type CropParams } from './crops.js';
 import type { CropCalendar } from './types.js';
 
-/** Day of year (1-based) of "MM-DD" in `year`. */
+const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
+
+/** Day of year (1-based) of "MM-DD" in `year` (Gregorian leap years). */
 export function dayOfYear(year: number, mmdd: string): number {
-  const [m, d] = mmdd.split('-').map(Number);
-  return (Date.UTC(year, m - 1, d) - Date.UTC(year, 0, 1)) / 86400000 + 1;
+  const m = (mmdd.charCodeAt(0) - 48) * 10 + (mmdd.charCodeAt(1) - 48);
+  const d = (mmdd.charCodeAt(3) - 48) * 10 + (mmdd.charCodeAt(4) - 48);
+  const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+  return CUMULATIVE_DAYS[m - 1] + d + (leap && m > 2 ? 1 : 0);
 }
 
 /**
@@ -64,7 +68,7 @@ export function cropCalendar(
       plant = dayOfYear(year, params.planting);
       harvest = dayOfYear(year, params.harvest);
     }
-    const doy = dayOfYear(year, dates[i].slice(5));
+    const doy = dayOfYear(year, dates[i].substring(5, 10));
     if (doy >= plant && doy < harvest) {
       kc[i] = kcOnDay(params, doy - plant);
       depletionFraction[i] = params.depletionFraction;

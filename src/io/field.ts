@@ -279,8 +279,15 @@ export function parseField(text: string, file = 'field file'): LoadedField {
     const merged = { ...baseRaw } as Record<string, unknown>;
     delete merged.scenarios;
     for (const key of OVERRIDABLE) {
-      if (key in sc)
-        merged[key] = key === 'outlet' ? sc[key] : mergeOverrides(baseRaw[key], sc[key]);
+      if (!(key in sc)) continue;
+      // An outlet, or a nitrate section naming another model, replaces the base's whole.
+      const model = (x: unknown) => (x as { model?: unknown } | null | undefined)?.model;
+      const whole =
+        key === 'outlet' ||
+        (key === 'nitrate' &&
+          model(sc.nitrate) !== undefined &&
+          model(sc.nitrate) !== model(baseRaw.nitrate));
+      merged[key] = whole ? sc[key] : mergeOverrides(baseRaw[key], sc[key]);
     }
     const r = fieldSchema.safeParse(merged);
     if (!r.success) {

@@ -9,7 +9,7 @@ import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
-import { recordIn, toCsv } from './tables.js';
+import { columnsToCsv, recordIn, toCsv, type Column } from './tables.js';
 
 /** What the summary records about the inputs. */
 export interface RunMeta {
@@ -20,51 +20,70 @@ export interface RunMeta {
   fieldName: string;
 }
 
-/** Daily rows of one scenario, SI, in the column order of daily.csv. */
-export function dailyRows(
-  run: RunOutput,
-  s: ScenarioOutput,
-): Array<Record<string, string | number>> {
+/** Daily columns of one scenario, SI, in the column order of daily.csv. */
+export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
   const f = run.forcing;
   const e = s.engine;
   const n = s.nitrate;
-  const rows: Array<Record<string, string | number>> = [];
-  for (let i = 0; i < f.dates.length; i++) {
-    const r: Record<string, string | number> = {
-      scenario: s.spec.name,
-      date: f.dates[i],
-      precip_mm: f.precipMm[i],
-      snowmelt_mm: f.snowmeltMm[i],
-      swe_mm: f.sweMm[i],
-      ref_et_mm: f.refEtMm[i],
-      potential_et_mm: e.potentialEtMm[i],
-      et_mm: e.etMm[i],
-      runoff_mm: e.runoffMm[i],
-      infiltration_mm: e.infiltrationMm[i],
-      drainflow_mm: e.drainflowMm[i],
-      seepage_mm: e.seepageMm[i],
-      water_table_depth_m: e.waterTableDepthM[i],
-      outlet_depth_m: e.outletDepthM[i],
-      ponded_mm: e.pondedMm[i],
-      root_zone_depletion_mm: e.rootZoneDepletionMm[i],
-      ks: e.ks[i],
-      kc: s.calendar.kc[i],
-      balance_error_mm: e.balanceErrorMm[i],
-      no3_conc_mg_l: n.concMgL[i],
-      no3_load_kg_ha: n.loadKgHa[i],
-      runoff_n_kg_ha: n.runoffLoadKgHa[i],
-      seepage_n_kg_ha: n.seepageLoadKgHa[i],
-    };
-    if (n.pool) {
-      r.no3_pool_kg_ha = n.pool.poolKgHa[i];
-      r.fertilizer_n_kg_ha = n.pool.fertilizerKgHa[i];
-      r.mineralization_n_kg_ha = n.pool.mineralizationKgHa[i];
-      r.uptake_n_kg_ha = n.pool.uptakeKgHa[i];
-      r.denitrification_n_kg_ha = n.pool.denitrificationKgHa[i];
-    }
-    rows.push(r);
+  const cols: Column[] = [
+    { name: 'scenario', values: new Array<string>(f.dates.length).fill(s.spec.name) },
+    { name: 'date', values: f.dates },
+    { name: 'precip_mm', values: f.precipMm },
+    { name: 'snowmelt_mm', values: f.snowmeltMm },
+    { name: 'swe_mm', values: f.sweMm },
+    { name: 'ref_et_mm', values: f.refEtMm },
+    { name: 'potential_et_mm', values: e.potentialEtMm },
+    { name: 'et_mm', values: e.etMm },
+    { name: 'runoff_mm', values: e.runoffMm },
+    { name: 'infiltration_mm', values: e.infiltrationMm },
+    { name: 'drainflow_mm', values: e.drainflowMm },
+    { name: 'seepage_mm', values: e.seepageMm },
+    { name: 'water_table_depth_m', values: e.waterTableDepthM },
+    { name: 'outlet_depth_m', values: e.outletDepthM },
+    { name: 'ponded_mm', values: e.pondedMm },
+    { name: 'root_zone_depletion_mm', values: e.rootZoneDepletionMm },
+    { name: 'ks', values: e.ks },
+    { name: 'kc', values: s.calendar.kc },
+    { name: 'balance_error_mm', values: e.balanceErrorMm },
+    { name: 'no3_conc_mg_l', values: n.concMgL },
+    { name: 'no3_load_kg_ha', values: n.loadKgHa },
+    { name: 'runoff_n_kg_ha', values: n.runoffLoadKgHa },
+    { name: 'seepage_n_kg_ha', values: n.seepageLoadKgHa },
+  ];
+  if (n.pool) {
+    cols.push(
+      { name: 'no3_pool_kg_ha', values: n.pool.poolKgHa },
+      { name: 'fertilizer_n_kg_ha', values: n.pool.fertilizerKgHa },
+      { name: 'mineralization_n_kg_ha', values: n.pool.mineralizationKgHa },
+      { name: 'uptake_n_kg_ha', values: n.pool.uptakeKgHa },
+      { name: 'denitrification_n_kg_ha', values: n.pool.denitrificationKgHa },
+    );
   }
-  return rows;
+  return cols;
+}
+
+/** All scenarios' daily columns stacked (scenarios one after another), in the order of the run. */
+export function dailyTable(run: RunOutput): Column[] {
+  const per = run.scenarios.map((s) => dailyColumns(run, s));
+  if (per.length === 0) return [];
+  // Pool columns exist only for the pool model: keep the columns every scenario has, by name.
+  const names = per[0]
+    .map((c) => c.name)
+    .filter((name) => per.every((cols) => cols.some((c) => c.name === name)));
+  return names.map((name) => {
+    const parts = per.map((cols) => cols.find((c) => c.name === name)!.values);
+    if (typeof parts[0][0] === 'number') {
+      const total = parts.reduce((k, p) => k + p.length, 0);
+      const out = new Float64Array(total);
+      let k = 0;
+      for (const p of parts) {
+        out.set(p as ArrayLike<number>, k);
+        k += p.length;
+      }
+      return { name, values: out };
+    }
+    return { name, values: parts.flatMap((p) => Array.from(p as ReadonlyArray<string>)) };
+  });
 }
 
 /** Mean of every numeric measure over the annual rows of one scenario. */
@@ -169,8 +188,7 @@ export function writeRunFiles(
   summary: unknown,
   units: UnitSystem,
 ): void {
-  const daily = run.scenarios.flatMap((s) => dailyRows(run, s));
-  writeFileSync(join(dir, 'daily.csv'), toCsv(daily, units));
+  writeFileSync(join(dir, 'daily.csv'), columnsToCsv(dailyTable(run), units));
   const annual = run.scenarios.flatMap((s) => s.annual) as unknown as Array<
     Record<string, string | number>
   >;

@@ -111,3 +111,16 @@ describe('field files', () => {
     expect(f.scenarios[1].field.drains.spacing).toBe(20);
   });
 });
+
+describe('scenario nitrate overrides', () => {
+  it('a scenario may switch nitrate model; keys of the same model merge', () => {
+    const text =
+      GOOD +
+      'nitrate: { model: fixed, concentration: 12 mg/L }\n' +
+      'scenarios:\n  - name: a\n  - name: b\n    nitrate: { model: seasonal, monthly: [10,10,10,10,10,10,10,10,10,10,10,10] }\n' +
+      '  - name: c\n    nitrate: { concentration: 8 mg/L }\n';
+    const f = parseField(text, 'f.yaml');
+    expect(f.scenarios[1].field.nitrate.model).toBe('seasonal');
+    expect(f.scenarios[2].field.nitrate).toMatchObject({ model: 'fixed', concentrationMgL: 8 });
+  });
+});
