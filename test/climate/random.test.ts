@@ -41,7 +41,8 @@ describe('seeded random numbers', () => {
     }
     const sd = Math.sqrt(1 / 12);
     expect(Math.abs(s / N - 0.5)).toBeLessThan((5 * sd) / Math.sqrt(N));
-    // Sampling variance of a variance estimate: (mu4 - sigma^4) / N = (1/80 - 1/144) / N = 1/(180 N).
+    // Sampling variance of a variance estimate: (mu4 - sigma^4) / N = (1/80 - 1/144) / N,
+    // that is 1/(180 N).
     expect(Math.abs(s2 / N - (s / N) ** 2 - 1 / 12)).toBeLessThan(
       (5 * Math.sqrt(1 / 180)) / Math.sqrt(N),
     );
