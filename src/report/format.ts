@@ -1,0 +1,25 @@
+/**
+ * Number formatting for people (report tables and summary lines): fixed decimals, no "-0",
+ * explicit sign for changes, and "n/a" where a figure does not exist (null).
+ */
+
+/**
+ * A number with a fixed number of decimals; "n/a" for null or a non-finite value.
+ *
+ * @example fixed(-0.04, 1) // '0.0'
+ */
+export function fixed(x: number | null, decimals = 1): string {
+  if (x === null || !Number.isFinite(x)) return 'n/a';
+  const s = x.toFixed(decimals);
+  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
+}
+
+/**
+ * A change with its sign: "+4.1", "-30.0", "0.0".
+ *
+ * @example signed(4.08, 1) // '+4.1'
+ */
+export function signed(x: number | null, decimals = 1): string {
+  const s = fixed(x, decimals);
+  return s === 'n/a' || s.startsWith('-') || Number(s) === 0 ? s : `+${s}`;
+}

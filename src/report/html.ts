@@ -1,0 +1,494 @@
+/**
+ * The HTML report: one self-contained file that opens offline. vega, vega-lite and vega-embed
+ * are inlined, the chart specs travel as JSON inside the page, and a Content-Security-Policy
+ * forbids every network request. Every user-supplied string is escaped, in markup and in the
+ * embedded JSON alike.
+ */
+import { createHash } from 'node:crypto';
+import type { ComparisonRow } from '../scenarios/compare.js';
+import type { AnnualRow } from '../scenarios/types.js';
+import { CHART_CAPTIONS, type ChartName } from './charts.js';
+import { fixed, signed } from './format.js';
+import { headlineLines, wetnessChangeLines } from './summary.js';
+import type { ReportData } from './types.js';
+import { displayUnits, type DisplayUnit } from './units.js';
+import { loadVegaBundles, type VegaBundles } from './vegaBundles.js';
+
+/** Largest annual balance residual reported as closed (DESIGN.md section 6: 1e-6 mm per year). */
+export const BALANCE_TOLERANCE = { waterMm: 1e-6, nitrogenKgHa: 1e-6 } as const;
+
+const HTML_ESCAPES: Readonly<Record<string, string>> = {
+  '&': '&amp;',
+  '<': '&lt;',
+  '>': '&gt;',
+  '"': '&quot;',
+  "'": '&#39;',
+};
+
+/**
+ * Escape text for HTML element content and quoted attribute values.
+ *
+ * @example escapeHtml('<img src=x>') // '&lt;img src=x&gt;'
+ */
+export function escapeHtml(text: string): string {
+  return String(text).replace(/[&<>"']/g, (c) => HTML_ESCAPES[c]);
+}
+
+/**
+ * JSON that is safe inside a <script> element: `<`, `>` and `&` become \u003c, \u003e and
+ * \u0026 (so no "</script>" or "<!--" can appear), and the JavaScript line separators U+2028
+ * and U+2029 are escaped too. JSON.parse gives back the same value.
+ *
+ * @example jsonForScript({ a: '</script>' }) // '{"a":"\\u003c/script\\u003e"}'
+ */
+export function jsonForScript(value: unknown): string {
+  return JSON.stringify(value)
+    .replace(/</g, '\\u003c')
+    .replace(/>/g, '\\u003e')
+    .replace(/&/g, '\\u0026')
+    .replace(/\u2028/g, '\\u2028')
+    .replace(/\u2029/g, '\\u2029');
+}
+
+/** A library's source inside <script>; refuses text that would end or confuse the element. */
+function inlineScript(source: string, name: string): string {
+  if (/<\/script|<!--|<script/i.test(source)) {
+    throw new Error(`${name} cannot be inlined: it contains a script tag or comment opener`);
+  }
+  return `<script>${source}</script>`;
+}
+
+/**
+ * Content-Security-Policy of the page: nothing may be fetched, and only our own inline scripts
+ * run, named by their SHA-256 hashes, so that an inline event handler slipped into the markup
+ * would not run either. vega compiles its expressions with Function(), hence 'unsafe-eval'.
+ */
+function contentSecurityPolicy(scripts: string[]): string {
+  const hashes = scripts
+    .map((s) => `'sha256-${createHash('sha256').update(s, 'utf8').digest('base64')}'`)
+    .join(' ');
+  return (
+    `default-src 'none'; script-src ${hashes} 'unsafe-eval'; style-src 'unsafe-inline'; ` +
+    "img-src data: blob:; font-src data:; connect-src 'none'; form-action 'none'; base-uri 'none'"
+  );
+}
+
+const CSS = `
+:root { --ink: #1b1b1b; --muted: #5a5a5a; --rule: #d4d4d4; --accent: #1f5f8b; --band: #eef3f6;
+  --warn: #8c1c13; }
+* { box-sizing: border-box; }
+body { font: 15px/1.5 "DejaVu Sans", "Segoe UI", Roboto, Helvetica, Arial, sans-serif;
+  color: var(--ink); background: #fff; max-width: 62rem; margin: 0 auto; padding: 1.5rem; }
+header { border-bottom: 3px solid var(--accent); margin-bottom: 1rem; }
+h1 { font-size: 1.6rem; margin: 0 0 0.3rem; }
+h2 { font-size: 1.25rem; color: var(--accent); margin: 2.2rem 0 0.6rem;
+  border-bottom: 1px solid var(--rule); padding-bottom: 0.2rem; }
+.meta { color: var(--muted); margin: 0 0 0.8rem; }
+nav ol { columns: 2; margin: 0; padding-left: 1.4rem; }
+nav a { color: var(--accent); }
+table { border-collapse: collapse; width: 100%; font-size: 0.86rem;
+  font-variant-numeric: tabular-nums; margin: 0.5rem 0 1rem; }
+caption { text-align: left; color: var(--muted); font-size: 0.85rem; padding-bottom: 0.3rem; }
+th, td { padding: 0.28rem 0.5rem; border-bottom: 1px solid var(--rule); text-align: right;
+  vertical-align: top; }
+th:first-child, td:first-child { text-align: left; }
+td.text, th.text { text-align: left; }
+thead th { border-bottom: 2px solid var(--ink); font-weight: 600; }
+tbody th { font-weight: normal; }
+.unit { color: var(--muted); font-size: 0.85em; white-space: nowrap; }
+.chg { display: block; color: var(--muted); font-size: 0.8em; }
+.is-baseline { background: var(--band); }
+.chart { min-height: 4rem; overflow-x: auto; }
+.chart svg { max-width: 100%; height: auto; }
+.chart-error { color: var(--warn); }
+figure { margin: 1.6rem 0; }
+figcaption { color: var(--muted); font-size: 0.88rem; margin-top: 0.3rem; }
+.cautions { border-left: 4px solid var(--warn); background: #fbf3f2; padding: 0.6rem 1rem; }
+.cautions li { margin: 0.3rem 0; }
+.ok { color: #2c6e2f; }
+.bad { color: var(--warn); font-weight: 600; }
+footer { margin-top: 2.5rem; color: var(--muted); font-size: 0.8rem;
+  border-top: 1px solid var(--rule); padding-top: 0.5rem; }
+@page { margin: 14mm; }
+@media print {
+  body { max-width: none; padding: 0; font-size: 10pt; }
+  nav, noscript { display: none; }
+  h2 { break-after: avoid; }
+  figure, .cautions, table.keep { break-inside: avoid; }
+  thead { display: table-header-group; }
+  table.yearly { font-size: 7.5pt; }
+  a { color: inherit; text-decoration: none; }
+}
+`;
+
+/** Figure shown in a table cell: value in display units, "n/a" for null. */
+function shown(x: number | null, u: Pick<DisplayUnit, 'factor' | 'decimals'>): string {
+  return fixed(x === null ? null : x * u.factor, u.decimals);
+}
+
+const DAYS: DisplayUnit = { factor: 1, label: 'days', decimals: 1 };
+const PERCENT_DECIMALS = 1;
+
+/** One measure row of the comparison table (measures down, scenarios across). */
+interface MeasureRow {
+  label: string;
+  unit: string;
+  value: (r: ComparisonRow) => string;
+  change?: (r: ComparisonRow) => string;
+}
+
+/** A comparison figure by column name (the names are built from the stems of COMPARED). */
+function figure(r: ComparisonRow, column: string): number | null {
+  return (r as unknown as Record<string, number | null>)[column] ?? null;
+}
+
+function comparisonMeasures(data: ReportData): MeasureRow[] {
+  const du = displayUnits(data.units);
+  const perYear = (u: DisplayUnit) => `${u.label}/yr`;
+  const depth = { ...du.length, decimals: 2 };
+  const spacing = { ...du.length, decimals: 1 };
+  // [label, display unit, unit text, mean column, stem and unit of the change columns]
+  const compared: Array<[string, DisplayUnit, string, string, string, string]> = [
+    ['Lateral pipe length', du.pipe, du.pipe.label, 'pipe_length_m_ha', 'pipe_length', 'm_ha'],
+    ['Drain flow', du.water, perYear(du.water), 'drainflow_mm', 'drainflow', 'mm'],
+    [
+      'Nitrate-N load in drain flow',
+      du.load,
+      perYear(du.load),
+      'no3_load_kg_ha',
+      'no3_load',
+      'kg_ha',
+    ],
+    ['Flow-weighted nitrate-N concentration', du.conc, du.conc.label, 'fwmc_mg_l', 'fwmc', 'mg_l'],
+    ['Surface runoff', du.water, perYear(du.water), 'runoff_mm', 'runoff', 'mm'],
+    ['Evapotranspiration', du.water, perYear(du.water), 'et_mm', 'et', 'mm'],
+    ['Deep seepage', du.water, perYear(du.water), 'seepage_mm', 'seepage', 'mm'],
+    ['Wet days in the growing season', DAYS, 'days/yr', 'wet_days', 'wet', 'days'],
+    [
+      'Excess wetness',
+      du.wetness,
+      perYear(du.wetness),
+      'excess_wetness_cm_days',
+      'excess_wetness',
+      'cm_days',
+    ],
+    ['Planting-ready days', DAYS, 'days/yr', 'planting_ready_days', 'planting_ready', 'days'],
+    ['Harvest-ready days', DAYS, 'days/yr', 'harvest_ready_days', 'harvest_ready', 'days'],
+    ['Water-stress days', DAYS, 'days/yr', 'stress_days', 'stress', 'days'],
+    ['Mean water-table depth', depth, du.length.label, 'wt_mean_depth_m', 'wt_mean_depth', 'm'],
+  ];
+  const spread: Array<[string, DisplayUnit, string, string]> = [
+    ['Drain flow across years', du.water, 'drainflow', 'mm'],
+    ['Nitrate-N load across years', du.load, 'no3_load', 'kg_ha'],
+  ];
+  const scenario = (r: ComparisonRow) => data.scenarios.find((s) => s.name === r.scenario);
+  return [
+    {
+      label: 'Drain depth',
+      unit: du.length.label,
+      value: (r) => shown(scenario(r)?.drainDepthM ?? null, depth),
+    },
+    { label: 'Lateral spacing', unit: du.length.label, value: (r) => shown(r.spacing_m, spacing) },
+    ...compared.map(([label, u, unit, column, stem, suffix]): MeasureRow => ({
+      label,
+      unit,
+      value: (r) => shown(figure(r, column), u),
+      change: (r) => {
+        const abs = figure(r, `${stem}_change_${suffix}`);
+        const pct = figure(r, `${stem}_change_percent`);
+        return `${signed(abs === null ? null : abs * u.factor, u.decimals)} (${signed(pct, PERCENT_DECIMALS)} %)`;
+      },
+    })),
+    ...spread.map(([label, u, stem, suffix]): MeasureRow => ({
+      label,
+      unit: `${perYear(u)}, min / median / max`,
+      value: (r) =>
+        ['min', 'median', 'max']
+          .map((k) => shown(figure(r, `${stem}_${k}_${suffix}`), u))
+          .join(' / '),
+    })),
+  ];
+}
+
+function comparisonTable(data: ReportData): string {
+  const rows = data.comparison;
+  const head = rows
+    .map(
+      (r) =>
+        `<th scope="col"${r.is_baseline ? ' class="is-baseline"' : ''}>${escapeHtml(r.scenario)}` +
+        `${r.is_baseline ? '<span class="chg">baseline</span>' : ''}</th>`,
+    )
+    .join('');
+  const body = comparisonMeasures(data)
+    .map((m) => {
+      const cells = rows
+        .map((r) => {
+          const change =
+            m.change && !r.is_baseline ? `<span class="chg">${m.change(r)}</span>` : '';
+          return `<td${r.is_baseline ? ' class="is-baseline"' : ''}>${m.value(r)}${change}</td>`;
+        })
+        .join('');
+      return `<tr><th scope="row">${m.label} <span class="unit">(${escapeHtml(m.unit)})</span></th>${cells}</tr>`;
+    })
+    .join('\n');
+  return (
+    `<table class="comparison keep" id="comparison-table">` +
+    `<caption>Mean annual figures over ${data.period.years} years; under each, the change against ` +
+    `${escapeHtml(data.baseline)} (absolute and percent).</caption>` +
+    `<thead><tr><th scope="col">Measure</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+function scenarioTable(data: ReportData): string {
+  const du = displayUnits(data.units);
+  const body = data.scenarios
+    .map(
+      (s) =>
+        `<tr${s.name === data.baseline ? ' class="is-baseline"' : ''}><th scope="row">${escapeHtml(s.name)}</th>` +
+        `<td class="text">${escapeHtml(s.description)}</td>` +
+        `<td>${shown(s.drainDepthM, du.length)}</td><td>${shown(s.spacingM, du.length)}</td>` +
+        `<td class="text">${escapeHtml(s.outlet)}</td></tr>`,
+    )
+    .join('\n');
+  return (
+    `<table class="scenarios keep" id="scenario-table"><thead><tr><th scope="col">Scenario</th>` +
+    `<th scope="col" class="text">Description</th>` +
+    `<th scope="col">Drain depth <span class="unit">(${du.length.label})</span></th>` +
+    `<th scope="col">Spacing <span class="unit">(${du.length.label})</span></th>` +
+    `<th scope="col" class="text">Outlet</th></tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+function yearlyTable(data: ReportData): string {
+  const du = displayUnits(data.units);
+  const order = data.scenarios.map((s) => s.name);
+  const rows: AnnualRow[] = data.annual
+    .filter((r) => order.includes(r.scenario))
+    .sort((a, b) => order.indexOf(a.scenario) - order.indexOf(b.scenario) || a.year - b.year);
+  const cols: Array<[string, string, (r: AnnualRow) => string]> = [
+    ['Precipitation', du.water.label, (r) => shown(r.precip_mm, du.water)],
+    ['Drain flow', du.water.label, (r) => shown(r.drainflow_mm, du.water)],
+    ['Runoff', du.water.label, (r) => shown(r.runoff_mm, du.water)],
+    ['ET', du.water.label, (r) => shown(r.et_mm, du.water)],
+    ['Seepage', du.water.label, (r) => shown(r.seepage_mm, du.water)],
+    ['Nitrate-N load', du.load.label, (r) => shown(r.no3_load_kg_ha, du.load)],
+    ['Concentration', du.conc.label, (r) => shown(r.fwmc_mg_l, du.conc)],
+    ['Wet days', 'days', (r) => fixed(r.wet_days, 0)],
+    ['Excess wetness', du.wetness.label, (r) => shown(r.excess_wetness_cm_days, du.wetness)],
+    ['Planting-ready', 'days', (r) => fixed(r.planting_ready_days, 0)],
+    ['Harvest-ready', 'days', (r) => fixed(r.harvest_ready_days, 0)],
+  ];
+  const head = cols
+    .map(([h, u]) => `<th scope="col">${h} <span class="unit">(${escapeHtml(u)})</span></th>`)
+    .join('');
+  const body = rows
+    .map(
+      (r) =>
+        `<tr><th scope="row">${escapeHtml(r.scenario)}</th><td>${r.year}</td>` +
+        cols.map(([, , f]) => `<td>${f(r)}</td>`).join('') +
+        '</tr>',
+    )
+    .join('\n');
+  return (
+    `<table class="yearly" id="yearly-table"><thead><tr><th scope="col">Scenario</th>` +
+    `<th scope="col">Year</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+function methodsTable(data: ReportData): string {
+  const body = data.methods
+    .map(
+      (m) =>
+        `<tr><th scope="row">${escapeHtml(m.topic)}</th><td class="text">${escapeHtml(m.text)}</td>` +
+        `<td class="text">${escapeHtml(m.source)}</td></tr>`,
+    )
+    .join('\n');
+  return (
+    `<table class="methods" id="methods-table"><thead><tr><th scope="col">Topic</th>` +
+    `<th scope="col" class="text">Method and assumptions</th><th scope="col" class="text">Source</th>` +
+    `</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+function closed(x: number, tol: number): string {
+  return Math.abs(x) <= tol
+    ? '<span class="ok">closed</span>'
+    : '<span class="bad">not closed</span>';
+}
+
+function balanceTable(data: ReportData): string {
+  const body = data.balances
+    .map(
+      (b) =>
+        `<tr><th scope="row">${escapeHtml(b.scenario)}</th>` +
+        `<td>${b.maxAnnualWaterErrorMm.toExponential(1)}</td><td>${closed(b.maxAnnualWaterErrorMm, BALANCE_TOLERANCE.waterMm)}</td>` +
+        `<td>${b.maxAnnualNitrogenErrorKgHa.toExponential(1)}</td>` +
+        `<td>${closed(b.maxAnnualNitrogenErrorKgHa, BALANCE_TOLERANCE.nitrogenKgHa)}</td></tr>`,
+    )
+    .join('\n');
+  return (
+    `<table class="balances keep" id="balance-table"><thead><tr><th scope="col">Scenario</th>` +
+    `<th scope="col">Largest annual water-balance residual <span class="unit">(mm)</span></th>` +
+    `<th scope="col">Water</th>` +
+    `<th scope="col">Largest annual nitrogen-balance residual <span class="unit">(kg N/ha)</span></th>` +
+    `<th scope="col">Nitrogen</th></tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+function chartFigures(data: ReportData, names: string[]): string {
+  return names
+    .map((name, i) => {
+      const caption =
+        (CHART_CAPTIONS as Record<string, string | undefined>)[name as ChartName] ?? name;
+      return (
+        `<figure id="figure-${escapeHtml(name)}"><div class="chart" data-chart="${escapeHtml(name)}" role="img" ` +
+        `aria-label="${escapeHtml(caption)}"></div>` +
+        `<figcaption><strong>Figure ${i + 1}.</strong> ${escapeHtml(caption)}</figcaption></figure>`
+      );
+    })
+    .join('\n');
+}
+
+const CAUTIONS = [
+  'The figures are planning estimates from simplified physics: a daily water balance with a ' +
+    'single water table midway between the drains, quasi-steady drain equations and simple ' +
+    'nitrate models. They compare alternatives under the same assumptions and the same weather; ' +
+    'they do not predict what a particular field will do in a particular year.',
+  'Drain design, outlet works and any wetland or water-quality determination follow local ' +
+    'drainage guides, conservation practice standards and permits, and need a licensed professional.',
+  'Trenching is dangerous work with its own safety rules: locate buried utilities before digging ' +
+    'and follow the excavation safety rules that apply where the work is done.',
+];
+
+/** Browser side: draw every chart container with its spec, then mark the page as ready. */
+const EMBED_SCRIPT = `(function () {
+  'use strict';
+  var specs = JSON.parse(document.getElementById('tileflux-chart-specs').textContent);
+  var boxes = document.querySelectorAll('.chart[data-chart]');
+  var jobs = [];
+  Array.prototype.forEach.call(boxes, function (box) {
+    var name = box.getAttribute('data-chart');
+    if (!Object.prototype.hasOwnProperty.call(specs, name)) return;
+    jobs.push(
+      vegaEmbed(box, specs[name], { actions: false, renderer: 'svg' }).catch(function (err) {
+        box.textContent = 'This chart could not be drawn: ' + (err && err.message ? err.message : err);
+        box.className += ' chart-error';
+        console.error(err);
+      })
+    );
+  });
+  Promise.all(jobs).then(function () {
+    document.documentElement.setAttribute('data-charts', 'ready');
+  });
+})();`;
+
+/**
+ * The self-contained HTML report: the question, the inputs, the comparison table, the charts
+ * (drawn in the page by vega-embed from `specs`), the year-by-year table, methods and sources,
+ * water and nitrogen balance closure, and the cautions (DESIGN.md section 8). Opens from
+ * file:// with no network access; `bundles` defaults to the builds in node_modules.
+ *
+ * @example writeFileSync('report.html', buildReportHtml(data, buildChartSpecs(data)))
+ */
+export function buildReportHtml(
+  data: ReportData,
+  specs: Record<string, object>,
+  bundles: VegaBundles = loadVegaBundles(),
+): string {
+  const du = displayUnits(data.units);
+  const names = Object.keys(specs);
+  const others = data.scenarios.filter((s) => s.name !== data.baseline).map((s) => s.name);
+  const headline = headlineLines(data.comparison);
+  const wetness = wetnessChangeLines(data.comparison, data.units);
+  const list = (lines: string[]) =>
+    lines.length ? `<ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : '';
+  const title = escapeHtml(data.title);
+  const sections: Array<[id: string, heading: string, body: string]> = [
+    [
+      'question',
+      'The question',
+      `<p>How do ${others.length ? escapeHtml(others.join(', ')) : 'the alternatives'} compare with ` +
+        `<strong>${escapeHtml(data.baseline)}</strong> on ${escapeHtml(data.fieldName)} in the water and ` +
+        `nitrate-N that leave through the drains, and in how wet the field stays, over the same ` +
+        `${data.period.years} years of weather?</p>` +
+        `<p>Shallower drains set closer together, or a control structure that holds water back at ` +
+        `the outlet outside the cropping season, usually send less water and nitrate downstream; the ` +
+        `price can be a wetter field at planting and harvest. This report puts figures on both ` +
+        `sides of that trade.</p>` +
+        (headline.length ? `<p>Drain flow and nitrate-N load:</p>${list(headline)}` : '') +
+        (wetness.length
+          ? `<p id="wetness-summary">How wetness changed:</p>${list(wetness)}`
+          : '<p>Only the baseline was simulated.</p>'),
+    ],
+    [
+      'inputs',
+      'Inputs',
+      `<table class="keep" id="input-table"><tbody>` +
+        `<tr><th scope="row">Field</th><td class="text">${escapeHtml(data.fieldName)}</td></tr>` +
+        `<tr><th scope="row">Weather file</th><td class="text">${escapeHtml(data.weatherFile)}</td></tr>` +
+        `<tr><th scope="row">Period</th><td class="text">${escapeHtml(data.period.from)} to ` +
+        `${escapeHtml(data.period.to)} (${data.period.years} years)</td></tr>` +
+        `<tr><th scope="row">Baseline</th><td class="text">${escapeHtml(data.baseline)}</td></tr>` +
+        `<tr><th scope="row">Wet threshold</th><td class="text">water table shallower than ` +
+        `${shown(data.wetThresholdM, { ...du.length, decimals: 2 })} ${du.length.label}</td></tr>` +
+        `</tbody></table>` +
+        scenarioTable(data),
+    ],
+    ['comparison', 'Comparison', comparisonTable(data)],
+    [
+      'charts',
+      'Charts',
+      chartFigures(data, names) +
+        '<noscript><p>The charts need JavaScript. SVG and PNG copies are in the charts folder ' +
+        'beside this report.</p></noscript>',
+    ],
+    ['yearly', 'Year by year', yearlyTable(data)],
+    ['methods', 'Methods and assumptions', methodsTable(data)],
+    [
+      'balance',
+      'Water and nitrogen balance closure',
+      `<p>Every run checks that precipitation equals evapotranspiration, runoff, drain flow, ` +
+        `seepage and the change in storage. The table gives the largest annual residual of each ` +
+        `scenario; a residual within ${BALANCE_TOLERANCE.waterMm.toExponential(0)} mm ` +
+        `(${BALANCE_TOLERANCE.nitrogenKgHa.toExponential(0)} kg N/ha for nitrogen) counts as closed.</p>` +
+        balanceTable(data),
+    ],
+    [
+      'cautions',
+      'Cautions',
+      `<ul class="cautions">${CAUTIONS.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>`,
+    ],
+  ];
+  const scripts = [bundles.vega, bundles.vegaLite, bundles.vegaEmbed, EMBED_SCRIPT];
+  const nav = sections.map(([id, h]) => `<li><a href="#${id}">${h}</a></li>`).join('');
+  const body = sections
+    .map(([id, h, content]) => `<section id="${id}">\n<h2>${h}</h2>\n${content}\n</section>`)
+    .join('\n');
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta http-equiv="Content-Security-Policy" content="${contentSecurityPolicy(scripts)}">
+<meta name="generator" content="${escapeHtml(data.generatedBy)}">
+<title>${title}</title>
+<link rel="icon" href="data:,">
+<style>${CSS}</style>
+</head>
+<body>
+<header>
+<h1>${title}</h1>
+<p class="meta">${escapeHtml(data.fieldName)} &middot; ${escapeHtml(data.period.from)} to ${escapeHtml(data.period.to)} &middot; ${escapeHtml(data.generatedBy)}</p>
+</header>
+<nav aria-label="Contents"><ol>${nav}</ol></nav>
+${body}
+<footer>Generated by ${escapeHtml(data.generatedBy)}. Planning estimate; see the cautions above.</footer>
+${inlineScript(bundles.vega, 'vega')}
+${inlineScript(bundles.vegaLite, 'vega-lite')}
+${inlineScript(bundles.vegaEmbed, 'vega-embed')}
+<script type="application/json" id="tileflux-chart-specs">${jsonForScript(specs)}</script>
+<script>${EMBED_SCRIPT}</script>
+</body>
+</html>
+`;
+}

@@ -1,0 +1,53 @@
+/**
+ * What the report stage needs from a run: the inputs that were compared, the annual and
+ * comparison tables, a few daily series for the charts, balance closure and the methods used.
+ * Everything is in the core's SI units; the report converts for display when `units` is 'us'.
+ */
+import type { ComparisonRow } from '../scenarios/compare.js';
+import type { AnnualRow } from '../scenarios/types.js';
+
+/** Daily series of one scenario, aligned with `ReportData.daily.dates`. */
+export interface ScenarioDailySeries {
+  scenario: string;
+  /** Midpoint water-table depth below the surface, m. */
+  waterTableDepthM: Float64Array;
+  /** Effective outlet depth in force that day (drain depth when free), m. */
+  outletDepthM: Float64Array;
+  drainflowMm: Float64Array;
+  no3LoadKgHa: Float64Array;
+  no3ConcMgL: Float64Array;
+}
+
+export interface ReportData {
+  title: string;
+  /** Tool and version, e.g. "tileflux 0.1.0". */
+  generatedBy: string;
+  fieldName: string;
+  weatherFile: string;
+  /** ISO dates of the first and last day, and the number of years compared. */
+  period: { from: string; to: string; years: number };
+  baseline: string;
+  scenarios: Array<{
+    name: string;
+    description: string;
+    drainDepthM: number;
+    spacingM: number;
+    /** Outlet management in words, e.g. "free" or "held at 0.3 m Nov-Mar". */
+    outlet: string;
+  }>;
+  comparison: ComparisonRow[];
+  annual: AnnualRow[];
+  daily: { dates: string[]; series: ScenarioDailySeries[] };
+  /** Water table shallower than this depth counts as wet, m. */
+  wetThresholdM: number;
+  /** Calendar year shown in the water-table chart. */
+  chartYear: number;
+  balances: Array<{
+    scenario: string;
+    maxAnnualWaterErrorMm: number;
+    maxAnnualNitrogenErrorKgHa: number;
+  }>;
+  methods: Array<{ topic: string; text: string; source: string }>;
+  /** Display units: SI (mm, m, kg/ha) or US customary (in, ft, lb/ac). */
+  units: 'si' | 'us';
+}

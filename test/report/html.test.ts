@@ -1,0 +1,206 @@
+import { createHash } from 'node:crypto';
+import { describe, expect, it } from 'vitest';
+import { compareScenarios } from '../../src/scenarios/compare.js';
+import { buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
+import { buildReportHtml, escapeHtml, jsonForScript } from '../../src/report/html.js';
+import { headlineLines, wetnessChangeLines } from '../../src/report/summary.js';
+import { fixed, signed } from '../../src/report/format.js';
+import { loadVegaBundles } from '../../src/report/vegaBundles.js';
+import type { ReportData } from '../../src/report/types.js';
+import { makeReportData } from './fixture.mjs';
+
+const XSS = '<img src=x onerror=alert(1)>';
+const stub = { vega: '/*vega*/', vegaLite: '/*vega-lite*/', vegaEmbed: '/*vega-embed*/' };
+const data = makeReportData({
+  years: 3,
+  names: ['conventional', XSS, 'controlled'],
+  compareScenarios,
+}) as ReportData;
+const specs = buildChartSpecs(data);
+const html = buildReportHtml(data, specs, stub);
+
+/** Mean of a measure over the annual rows of one scenario, computed here. */
+function meanOf(name: string, key: 'wet_days' | 'drainflow_mm'): number {
+  const rows = data.annual.filter((r) => r.scenario === name);
+  return rows.reduce((t, r) => t + r[key], 0) / rows.length;
+}
+
+describe('escaping', () => {
+  it('escapes markup characters for text and attributes', () => {
+    expect(escapeHtml(`<a href="x" title='y'>&</a>`)).toBe(
+      '&lt;a href=&quot;x&quot; title=&#39;y&#39;&gt;&amp;&lt;/a&gt;',
+    );
+  });
+
+  it('makes JSON safe inside <script> and gives back the same value', () => {
+    const value = { name: `</script><script>alert(1)</script><!-- ${XSS} & \u2028` };
+    const text = jsonForScript(value);
+    expect(text).not.toMatch(/[<>&\u2028\u2029]/);
+    expect(text).toContain('\\u003cimg src=x onerror=alert(1)\\u003e');
+    expect(JSON.parse(text)).toEqual(value);
+  });
+
+  it('never lets a user-supplied string through as markup', () => {
+    expect(html).not.toContain(XSS);
+    expect(html).toContain('&lt;img src=x onerror=alert(1)&gt;');
+    const island =
+      /<script type="application\/json" id="tileflux-chart-specs">([\s\S]*?)<\/script>/.exec(
+        html,
+      )![1];
+    expect(island).not.toContain('<');
+    expect(JSON.parse(island)).toEqual(JSON.parse(JSON.stringify(specs)));
+    // Everything else a user controls, planted with markup: all of it shows as text.
+    const hostile = buildReportHtml(
+      {
+        ...data,
+        title: '<b>t</b>',
+        fieldName: '<i>f</i>',
+        weatherFile: '"><script>x()</script>',
+        generatedBy: '<u>g</u>',
+        scenarios: data.scenarios.map((s) => ({
+          ...s,
+          description: '<s>d</s>',
+          outlet: '<q>o</q>',
+        })),
+        methods: [{ topic: '<em>m</em>', text: '<p>t</p>', source: '<a href=x>s</a>' }],
+      },
+      specs,
+      stub,
+    );
+    for (const tag of [
+      '<b>',
+      '<i>',
+      '<u>',
+      '<s>',
+      '<q>',
+      '<em>',
+      '<a href=x',
+      '<p>t',
+      '<script>x()',
+    ]) {
+      expect(hostile).not.toContain(tag);
+    }
+  });
+
+  it('refuses a library that would close its script element', () => {
+    expect(() => buildReportHtml(data, specs, { ...stub, vega: 'a="</script>"' })).toThrow(/vega/);
+  });
+});
+
+describe('report content', () => {
+  it('has every section in order, and a figure per chart', () => {
+    const ids = [...html.matchAll(/<section id="([a-z]+)">/g)].map((m) => m[1]);
+    expect(ids).toEqual([
+      'question',
+      'inputs',
+      'comparison',
+      'charts',
+      'yearly',
+      'methods',
+      'balance',
+      'cautions',
+    ]);
+    const charts = [...html.matchAll(/<div class="chart" data-chart="([a-z-]+)"/g)].map(
+      (m) => m[1],
+    );
+    expect(charts).toEqual([...CHART_NAMES]);
+  });
+
+  it('says the cautions of DESIGN.md section 8', () => {
+    expect(html).toMatch(/planning estimates from simplified physics/);
+    expect(html).toMatch(/local drainage guides, conservation practice standards and permits/);
+    expect(html).toMatch(/licensed professional/);
+    expect(html).toMatch(/Trenching is dangerous work/);
+  });
+
+  it('says how wetness changed against the baseline, with figures averaged here', () => {
+    for (const name of [XSS, 'controlled']) {
+      const change = meanOf(name, 'wet_days') - meanOf('conventional', 'wet_days');
+      const text = `${escapeHtml(name)}: ${change >= 0.05 ? '+' : ''}${fixed(change, 1)} wet days per year`;
+      expect(html).toContain(text);
+    }
+    const lines = wetnessChangeLines(data.comparison);
+    expect(lines).toHaveLength(2);
+    expect(lines[1]).toMatch(/against conventional$/);
+    expect(headlineLines(data.comparison)[1]).toMatch(/^controlled: drain flow -\d+\.\d %/);
+  });
+
+  it('tables: the comparison shows the mean annual drain flow averaged here, one column per scenario', () => {
+    const table = /<table class="comparison[\s\S]*?<\/table>/.exec(html)![0];
+    const flowRow = /<tr><th scope="row">Drain flow <span[\s\S]*?<\/tr>/.exec(table)![0];
+    const cells = [...flowRow.matchAll(/<td[^>]*>([\d.]+)/g)].map((m) => m[1]);
+    expect(cells).toEqual(
+      ['conventional', XSS, 'controlled'].map((n) => fixed(meanOf(n, 'drainflow_mm'), 0)),
+    );
+    // Every cell has a figure: a misspelt column would show as n/a (no baseline value is 0 here).
+    expect(table).not.toMatch(/n\/a|NaN|undefined/);
+    // One change line per compared measure (13) in each of the two non-baseline columns.
+    const tbody = /<tbody>[\s\S]*<\/tbody>/.exec(table)![0];
+    expect(tbody.match(/<span class="chg">/g)).toHaveLength(2 * 13);
+    const yearly = /<table class="yearly"[\s\S]*?<\/table>/.exec(html)![0];
+    expect(yearly.match(/<tr><th scope="row">/g)).toHaveLength(data.annual.length);
+    expect(html).toContain('id="scenario-table"');
+    expect(html).toContain('id="methods-table"');
+    expect(html).toContain('FAO-56 Eq. 52');
+  });
+
+  it('marks balance closure against 1e-6 (DESIGN.md section 6)', () => {
+    expect(html).toMatch(/1\.0e-9<\/td><td><span class="ok">closed/);
+    const open = buildReportHtml(
+      {
+        ...data,
+        balances: [
+          { scenario: 'conventional', maxAnnualWaterErrorMm: 0.002, maxAnnualNitrogenErrorKgHa: 0 },
+        ],
+      },
+      specs,
+      stub,
+    );
+    expect(open).toMatch(/2\.0e-3<\/td><td><span class="bad">not closed/);
+  });
+
+  it('shows US units when asked (in, lb N/ac, ft)', () => {
+    const us = buildReportHtml(
+      { ...data, units: 'us' },
+      buildChartSpecs({ ...data, units: 'us' }),
+      stub,
+    );
+    expect(us).toContain('(in/yr)');
+    expect(us).toContain('(lb N/ac/yr)');
+    expect(us).toMatch(/Drain depth <span class="unit">\(ft\)/);
+  });
+
+  it('formats changes with a sign and no negative zero', () => {
+    expect(signed(4.08)).toBe('+4.1');
+    expect(signed(-0.04)).toBe('0.0');
+    expect(signed(null)).toBe('n/a');
+    expect(fixed(-30, 1)).toBe('-30.0');
+  });
+});
+
+describe('offline page', () => {
+  it('inlines the three libraries and requests nothing by itself', () => {
+    const real = buildReportHtml(data, specs);
+    const b = loadVegaBundles();
+    expect(real).toContain(b.vega.slice(0, 200));
+    expect(real).toContain(b.vegaLite.slice(0, 200));
+    expect(real).toContain(b.vegaEmbed.slice(0, 200));
+    // No element of ours loads anything: no src/href to another resource, and a CSP that
+    // forbids network access.
+    const ours = html.replace(/<script>[\s\S]*?<\/script>/g, '');
+    expect(ours).not.toMatch(/\s(src|href)="(?!#|data:)/);
+    expect(ours).toMatch(
+      /Content-Security-Policy" content="default-src 'none';[^"]*connect-src 'none'/,
+    );
+  });
+
+  it('lets only its own inline scripts run, by SHA-256 hash (no inline event handlers)', () => {
+    const csp = /Content-Security-Policy" content="([^"]*)"/.exec(html)![1];
+    const scriptSrc = /script-src ([^;]*);/.exec(csp)![1];
+    expect(scriptSrc).not.toContain('unsafe-inline');
+    const inline = [...html.matchAll(/<script>([\s\S]*?)<\/script>/g)].map((m) => m[1]);
+    expect(inline).toHaveLength(4);
+    const hashes = inline.map((s) => `'sha256-${createHash('sha256').update(s).digest('base64')}'`);
+    expect(scriptSrc.split(' ').filter((t) => t.startsWith("'sha256-"))).toEqual(hashes);
+  });
+});
