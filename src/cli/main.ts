@@ -7,17 +7,19 @@ import { VERSION } from '../version.js';
 import { registerWeather } from './commands/weather.js';
 import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
+import { registerSpacing } from './commands/spacing.js';
+import { registerSize } from './commands/size.js';
 
 const program = new Command();
 program
   .name('tileflux')
   .description(
-    'Plan agricultural subsurface (tile) drainage: drain spacing and pipe size, a daily\n' +
-      'water-table and drain-outflow simulation from a weather CSV, nitrate-N loads, and a\n' +
+    'Plan agricultural subsurface (tile) drainage: drain spacing and pipe size, a daily ' +
+      'water-table and drain-outflow simulation from a weather CSV, nitrate-N loads, and a ' +
       'comparison of conventional, shallow and controlled drainage.\n\n' +
-      'Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the\n' +
+      'Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the ' +
       'SI unit given beside each option. Every command takes --json.\n\n' +
-      'Results are planning estimates: local drainage guides, practice standards, permits\n' +
+      'Results are planning estimates: local drainage guides, practice standards, permits ' +
       'and a licensed professional decide the design.',
   )
   .version(VERSION, '-V, --version')
@@ -29,6 +31,8 @@ const registrations: Array<(p: Command) => void> = [
   registerWeather,
   registerRun,
   registerInit,
+  registerSpacing,
+  registerSize,
 ];
 for (const register of registrations) register(program);
 

@@ -1,5 +1,7 @@
 /** `tileflux init [FILE]`: write a fully commented starter field file. */
 import type { Command } from 'commander';
+import { z } from 'zod';
+import { fieldSchema } from '../../scenarios/fieldSchema.js';
 import { starterFieldFile } from '../../scenarios/starter.js';
 import { action, writeFileAtomic } from '../common.js';
 
@@ -8,18 +10,24 @@ export function registerInit(program: Command): void {
     .command('init')
     .summary('write a commented starter field file')
     .description(
-      'Write a starter field file in which every key is explained (meaning, unit, default) by a\n' +
-        'comment generated from the schema that validates field files. Without FILE it prints to\n' +
+      'Write a starter field file in which every key is explained (meaning, unit, default) by a ' +
+        'comment generated from the schema that validates field files. Without FILE it prints to ' +
         'stdout.',
     )
     .argument('[file]', 'where to write it, e.g. field.yaml')
     .option('-f, --force', 'overwrite FILE if it exists')
+    .option('--json', 'print the JSON Schema of field files instead (for editors and scripts)')
     .addHelpText(
       'after',
       '\nExample:\n  tileflux init my-field.yaml && tileflux run my-field.yaml --weather weather.csv',
     )
     .action(
-      action((file: string | undefined, o: { force?: boolean }) => {
+      action((file: string | undefined, o: { force?: boolean; json?: boolean }) => {
+        if (o.json) {
+          const schema = z.toJSONSchema(fieldSchema, { io: 'input', unrepresentable: 'any' });
+          process.stdout.write(JSON.stringify(schema, null, 2) + '\n');
+          return;
+        }
         const text = starterFieldFile();
         if (!file) {
           process.stdout.write(text);

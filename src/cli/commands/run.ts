@@ -15,8 +15,9 @@ import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
 import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
 import { progress } from '../progress.js';
+import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';
 
-export interface RunCommandOptions {
+export interface RunCommandOptions extends WeatherReadFlags {
   weather: string;
   out?: string;
   scenario?: string[];
@@ -26,7 +27,9 @@ export interface RunCommandOptions {
   force?: boolean;
   json?: boolean;
   units?: string;
-  fill?: boolean;
+  charts?: boolean;
+  report?: boolean;
+  year?: string;
 }
 
 const ISO = /^\d{4}-\d{2}-\d{2}$/;
@@ -63,7 +66,7 @@ export function runFromFiles(
     }
   }
   const field = readFieldFile(fieldPath);
-  const weather = readWeatherFile(o.weather, { fill: o.fill });
+  const weather = readWeatherFile(o.weather, weatherReadOptions(o));
   const bar = progress(field.scenarios.length || 3, 'simulating');
   const run = runField(field, weather.series, {
     from: o.from,
@@ -109,19 +112,21 @@ export function headline(run: RunOutput, units: UnitSystem): string {
 }
 
 export function registerRun(program: Command): void {
-  program
+  const cmd = program
     .command('run')
     .summary('simulate a field’s drainage scenarios over a weather record')
     .description(
-      'Simulate the daily water table midway between drains, drain outflow, runoff, ET, seepage\n' +
-        'and nitrate-N load for every scenario of a field file over a weather record, and write\n' +
+      'Simulate the daily water table midway between drains, drain outflow, runoff, ET, seepage ' +
+        'and nitrate-N load for every scenario of a field file over a weather record, and write ' +
         'daily.csv, annual.csv and summary.json into an output folder.\n\n' +
-        'Without `scenarios:` in the field file, three alternatives are derived: conventional (as\n' +
-        'given), shallow (0.75 m drains at the spacing with the same drainage intensity) and\n' +
+        'Without `scenarios:` in the field file, three alternatives are derived: conventional (as ' +
+        'given), shallow (0.75 m drains at the spacing with the same drainage intensity) and ' +
         'controlled (outlet held 0.30 m below the surface from 1 November to 1 April).',
     )
     .argument('<field>', 'field file (YAML; `tileflux init` writes a starter)')
-    .requiredOption('-w, --weather <csv>', 'daily weather CSV (see `tileflux weather check`)')
+    .requiredOption('-w, --weather <csv>', 'daily weather CSV (see `tileflux weather check`)');
+  addWeatherReadOptions(cmd);
+  cmd
     .option('-o, --out <dir>', 'output folder (default: <field name>-run)')
     .option('-s, --scenario <name...>', 'run only these scenarios')
     .option(
@@ -130,8 +135,10 @@ export function registerRun(program: Command): void {
     )
     .option('--to <date>', 'last reported day, YYYY-MM-DD (default: last whole year)')
     .option('--warmup-years <n>', 'years simulated before --from and not reported (default 1)')
-    .option('--fill', 'fill weather gaps of up to 7 days (see `tileflux weather check --help`)')
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
+    .option('--no-charts', 'skip the charts/ folder (faster, for scripted use)')
+    .option('--no-report', 'skip report.html (faster, for scripted use)')
+    .option('--year <year>', 'year shown in the water-table chart (default: the wettest year)')
     .option('-f, --force', 'replace the output folder if it exists')
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(

@@ -1,0 +1,261 @@
+/**
+ * `tileflux size`: the pipe a drain line needs for its design flow (drained area times drainage
+ * rate) by Manning's equation for a full circular pipe, rounded up to the next commercial size,
+ * with the full-flow velocity and the minimum grade for a velocity target.
+ */
+import type { Command } from 'commander';
+import { TilefluxError } from '../../errors.js';
+import {
+  fullFlowVelocity,
+  manningDiameter,
+  manningFullCapacity,
+  minimumGrade,
+  pipeSizeList,
+  ROUGHNESS,
+  selectPipeSize,
+  type PipeMaterial,
+} from '../../drainage/index.js';
+import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
+import { action, CAUTION, emit, fmt, requiredQuantity } from '../common.js';
+import { parseUnits } from './run.js';
+import { blocks, echo } from './spacing.js';
+
+/**
+ * Full-flow velocity target for the minimum grade when --velocity is not given: 1.4 ft/s, the
+ * figure US conservation practice standards give where sediment can settle in the line (from
+ * memory; 0.5 ft/s is quoted where it cannot).
+ */
+export const DEFAULT_VELOCITY_MS = 1.4 * US.mPerFt;
+
+interface SizeFlags {
+  area?: string;
+  length?: string;
+  spacing?: string;
+  rate?: string;
+  slope?: string;
+  roughness?: string;
+  material?: string;
+  sizes?: string;
+  velocity?: string;
+  units?: string;
+  json?: boolean;
+}
+
+/** A velocity option: bare numbers are m/s, unit strings such as "1.4 ft/s" are converted. */
+function velocityOption(value: string | undefined): number | undefined {
+  if (value === undefined) return undefined;
+  const text = value.trim();
+  const r = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)
+    ? { ok: true as const, value: Number(text) * 86400 }
+    : tryParseQuantity(text, 'conductivity');
+  if (!r.ok || !(r.value > 0)) {
+    throw new TilefluxError(
+      `--velocity expects a velocity greater than 0 such as 0.45 m/s or 1.4 ft/s; got ${value}`,
+    );
+  }
+  return r.value / 86400;
+}
+
+function roughnessOf(o: SizeFlags): { n: number; label: string } {
+  if (o.roughness !== undefined && o.material !== undefined) {
+    throw new TilefluxError('give --roughness or --material, not both');
+  }
+  if (o.roughness !== undefined) {
+    const n = parseQuantity(o.roughness, 'fraction', '--roughness');
+    if (!(n > 0 && n < 0.1)) {
+      throw new TilefluxError(
+        `--roughness expects a Manning n between 0 and 0.1 (drain pipes 0.009-0.025); got ${o.roughness}`,
+      );
+    }
+    return { n, label: `${o.roughness} (given)` };
+  }
+  const material = o.material ?? 'corrugated';
+  if (material !== 'corrugated' && material !== 'smooth') {
+    throw new TilefluxError(`--material expects corrugated or smooth; got ${material}`);
+  }
+  const r = ROUGHNESS[material as PipeMaterial];
+  return { n: r.n, label: `${r.n}${o.material === undefined ? ' (default)' : ''}, ${r.source}` };
+}
+
+/** The drained area in m2 and how to describe it, from --area or --length x --spacing. */
+function drainedArea(o: SizeFlags): {
+  m2: number;
+  text: string;
+  lengthM?: number;
+  spacingM?: number;
+} {
+  const lateral = o.length !== undefined || o.spacing !== undefined;
+  if (o.area !== undefined && lateral) {
+    throw new TilefluxError('give either --area, or --length with --spacing, not both');
+  }
+  if (o.area !== undefined) {
+    const ha = requiredQuantity(o.area, 'area', '--area');
+    if (!(ha > 0)) throw new TilefluxError(`--area must be greater than 0; got ${o.area}`);
+    return { m2: ha * 10000, text: echo(o.area, ha, 'ha', 3) };
+  }
+  if (!lateral) {
+    throw new TilefluxError(
+      'give the drained area: --area, or --length with --spacing for a lateral',
+    );
+  }
+  if (o.length === undefined)
+    throw new TilefluxError('--spacing needs --length (the lateral’s length)');
+  if (o.spacing === undefined)
+    throw new TilefluxError('--length needs --spacing (the drain spacing)');
+  const lengthM = parseQuantity(o.length, 'length', '--length');
+  const spacingM = parseQuantity(o.spacing, 'length', '--spacing');
+  if (!(lengthM > 0)) throw new TilefluxError(`--length must be greater than 0; got ${o.length}`);
+  if (!(spacingM > 0))
+    throw new TilefluxError(`--spacing must be greater than 0; got ${o.spacing}`);
+  const m2 = lengthM * spacingM;
+  return {
+    m2,
+    lengthM,
+    spacingM,
+    text: `${echo(o.length, lengthM, 'm', 1)} x ${echo(o.spacing, spacingM, 'm', 1)} = ${fmt(m2 / 10000, 3)} ha`,
+  };
+}
+
+function run(o: SizeFlags): void {
+  const units: UnitSystem = parseUnits(o.units);
+  const area = drainedArea(o);
+  const rateMmPerDay = requiredQuantity(o.rate, 'rate', '--rate');
+  if (!(rateMmPerDay > 0)) throw new TilefluxError(`--rate must be greater than 0; got ${o.rate}`);
+  const slope = requiredQuantity(o.slope, 'slope', '--slope');
+  if (!(slope > 0)) {
+    throw new TilefluxError(
+      `--slope must be greater than 0 (the pipe needs a fall toward its outlet, such as 0.2 %); got ${o.slope}`,
+    );
+  }
+  const rough = roughnessOf(o);
+  const sizes = pipeSizeList(o.sizes ?? 'in', '--sizes');
+  const velocityMs = velocityOption(o.velocity) ?? DEFAULT_VELOCITY_MS;
+
+  const flowM3s = (area.m2 * rateMmPerDay) / 1000 / 86400;
+  const requiredM = manningDiameter(flowM3s, slope, rough.n);
+  const pipe = selectPipeSize(requiredM, sizes, '--sizes');
+  const capacity = manningFullCapacity(pipe.diameterM, slope, rough.n);
+  const velocity = fullFlowVelocity(pipe.diameterM, slope, rough.n);
+  const minGrade = minimumGrade(pipe.diameterM, velocityMs, rough.n);
+  const selectedKey = pipe.unit === 'in' ? 'selected_diameter_in' : 'selected_diameter_mm';
+  const data = {
+    method: 'manning-full-pipe',
+    area_ha: area.m2 / 10000,
+    ...(area.lengthM !== undefined ? { length_m: area.lengthM, spacing_m: area.spacingM } : {}),
+    rate_mm_d: rateMmPerDay,
+    slope_m_m: slope,
+    roughness: rough.n,
+    flow_m3_s: flowM3s,
+    flow_l_s: flowM3s * 1000,
+    flow_cfs: flowM3s * US.cfsPerM3s,
+    required_diameter_mm: requiredM * 1000,
+    required_diameter_in: (requiredM * 1000) / US.mmPerIn,
+    size_list: sizes.name,
+    [selectedKey]: pipe.nominal,
+    selected_capacity_m3_s: capacity,
+    capacity_used_percent: (100 * flowM3s) / capacity,
+    full_flow_velocity_m_s: velocity,
+    velocity_target_m_s: velocityMs,
+    min_grade_percent: minGrade * 100,
+    grade_meets_minimum: slope >= minGrade,
+  };
+  const us = units === 'us';
+  const flow = (m3s: number) =>
+    us ? `${fmt(m3s * US.cfsPerM3s, 4)} cfs` : `${fmt(m3s * 1000, 2)} L/s`;
+  const speed = (ms: number) => (us ? `${fmt(ms / US.mPerFt, 2)} ft/s` : `${fmt(ms, 2)} m/s`);
+  const needed = us
+    ? `${fmt((requiredM * 1000) / US.mmPerIn, 2)} in (${fmt(requiredM * 1000, 0)} mm)`
+    : `${fmt(requiredM * 1000, 0)} mm (${fmt((requiredM * 1000) / US.mmPerIn, 2)} in)`;
+  emit(o.json, data, () =>
+    [
+      "Pipe size for a drain line (Manning's equation, circular pipe flowing full)",
+      '',
+      blocks([
+        [
+          'Inputs',
+          [
+            ['drained area', area.text],
+            ['drainage rate', echo(o.rate, rateMmPerDay, 'mm/d', 2)],
+            ['grade', `${echo(o.slope, slope, 'm/m', 4)}`],
+            ['roughness n', rough.label],
+            ['sizes', `${sizes.nominal.join(', ')} ${sizes.unit}; ${sizes.source}`],
+          ],
+        ],
+        [
+          'Result',
+          [
+            ['design flow', `${flow(flowM3s)} (area x rate)`],
+            ['required diameter', needed],
+            [
+              'selected size',
+              `${pipe.nominal} ${pipe.unit}, the next size up: ${flow(capacity)} full, ` +
+                `${fmt(data.capacity_used_percent, 0)} % used`,
+            ],
+            ['full-flow velocity', `${speed(velocity)} at this grade`],
+            [
+              'minimum grade',
+              `${fmt(minGrade * 100, 3)} % for ${speed(velocityMs)} full-flow velocity (--velocity)`,
+            ],
+          ],
+        ],
+      ]),
+      ...(slope >= minGrade
+        ? []
+        : [
+            `  Note: the grade is flatter than that minimum; sediment may settle where the soil`,
+            `  holds fine sand or silt (a lower target, e.g. --velocity "0.5 ft/s", where it does not).`,
+          ]),
+      '',
+      'Method: Manning, Q = (1/n) A R^(2/3) S^(1/2) for a full circular pipe (in inch-pound units',
+      'D = 16 (q n / S^0.5)^(3/8), D in, q ft3/s); round up to the next size (common practice).',
+      CAUTION,
+    ].join('\n'),
+  );
+}
+
+const HELP = `
+Examples:
+  A lateral 400 m long draining a 20 m strip at 3/8 inch per day on a 0.2 % grade:
+    tileflux size --length 400 --spacing 20 --rate "0.375 in/d" --slope "0.2 %"
+  A main serving 16 ha at 12 mm/d, smooth pipe, metric sizes:
+    tileflux size --area 16 --rate 12 --slope 0.001 --material smooth --sizes mm
+  Your own list of inside diameters:
+    tileflux size --area "40 ac" --rate "0.5 in/d" --slope "0.1 %" --sizes "6,8,10,12 in" --units us
+
+The design flow is the drained area times the drainage rate (drainage coefficient); common
+practice for field crops on mineral soils without surface inlets is 3/8 to 1/2 inch per day,
+more for organic soils, vegetables and fields with surface inlets. Nominal sizes are taken as
+inside diameters.
+
+${CAUTION}`;
+
+/** Register `tileflux size`. */
+export function registerSize(program: Command): void {
+  program
+    .command('size')
+    .summary('pipe size for a drain line or main (Manning, next commercial size up)')
+    .description(
+      'Pipe diameter a drain line needs to carry its drained area times the drainage rate, by ' +
+        "Manning's equation for a full circular pipe, rounded up to the next commercial size, " +
+        'with the full-flow velocity and the minimum grade for a velocity target.',
+    )
+    .option('--area <area>', 'drained area, bare number ha (or give --length and --spacing)')
+    .option('--length <length>', 'length of the lateral, m')
+    .option('--spacing <length>', 'drain spacing (width drained by the lateral), m')
+    .option('--rate <rate>', 'drainage rate (drainage coefficient), mm/d')
+    .option('--slope <slope>', 'pipe grade, m/m (e.g. 0.002 or "0.2 %")')
+    .option('--roughness <n>', 'Manning n (overrides --material)')
+    .option('--material <kind>', 'corrugated (n 0.015) or smooth (n 0.012); default corrugated')
+    .option(
+      '--sizes <list>',
+      'in (3-24 in), mm (50-630 mm) or a list such as "4,6,8 in"; default in',
+    )
+    .option(
+      '--velocity <speed>',
+      'full-flow velocity target for the minimum grade, m/s (default 1.4 ft/s)',
+    )
+    .option('--units <system>', 'units of printed results: si or us (JSON is always SI)', 'si')
+    .option('--json', 'print the result as JSON')
+    .addHelpText('after', HELP)
+    .action(action((o: SizeFlags) => run(o)));
+}
