@@ -38,6 +38,12 @@ import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from './
 
 /** Largest change of the drain head, as a fraction of itself, allowed in one sub-step. */
 const MAX_RELATIVE_STEP = 0.5;
+/**
+ * Depth of the biologically active upper profile whose saturated share drives denitrification,
+ * m. Most soil denitrification happens in the carbon-rich top metre (assumption; a fixed depth
+ * lets scenarios with different drain depths be compared on the same soil volume).
+ */
+export const ACTIVE_ZONE_M = 1.0;
 /** Largest annual water-balance residual tolerated (DESIGN.md section 6), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
@@ -301,7 +307,7 @@ export function simulate(
     out.rootZoneDepletionMm[i] = depletion;
     out.ks[i] = ksSum / nSteps;
     out.soilStorageMm[i] = -(air + depletion);
-    const sat = (p.drainDepthM - wtd) / p.drainDepthM;
+    const sat = (ACTIVE_ZONE_M - wtd) / ACTIVE_ZONE_M;
     out.saturatedFraction[i] = sat < 0 ? 0 : sat > 1 ? 1 : sat;
     out.balanceErrorMm[i] = err;
 

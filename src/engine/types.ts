@@ -92,7 +92,7 @@ export interface EngineResult {
   ks: Float64Array;
   /** Soil water relative to a profile saturated to the surface at field capacity, mm (<= 0). */
   soilStorageMm: Float64Array;
-  /** Saturated fraction of the drained profile: (drain depth - water-table depth) / drain depth, in [0, 1]. */
+  /** Saturated share of the top metre of the profile (ACTIVE_ZONE_M), in [0, 1]: (1 m - depth) / 1 m. */
   saturatedFraction: Float64Array;
   /** Daily water-balance residual, mm. */
   balanceErrorMm: Float64Array;
