@@ -1,0 +1,55 @@
+/**
+ * Drain design equations (DESIGN.md section 4): equivalent depth, Hooghoudt steady-state flux
+ * and spacing, drainage intensity, Kirkham's ponded-surface rate, Glover-Dumm drawdown and
+ * spacing, Manning pipe capacity and commercial pipe sizes. Pure functions, SI units (m, m/d,
+ * m3/s), no Node imports.
+ */
+export {
+  equivalentDepth,
+  equivalentDepthAndSlope,
+  checkEquivalentDepthInputs,
+  minimumSpacingM,
+  EQUIVALENT_DEPTH_METHODS,
+  type EquivalentDepthMethod,
+} from './equivalentDepth.js';
+export {
+  hooghoudtFlux,
+  hooghoudtSpacing,
+  drainageIntensity,
+  type HooghoudtFluxInput,
+  type HooghoudtSpacingInput,
+  type DrainageIntensityInput,
+} from './hooghoudt.js';
+export {
+  kirkhamGeometryFactor,
+  kirkhamFlux,
+  type KirkhamGeometryInput,
+  type KirkhamFluxInput,
+} from './kirkham.js';
+export {
+  gloverHeadRatio,
+  gloverSpacing,
+  gloverRatioOfTime,
+  gloverTimeOfRatio,
+  type GloverInput,
+  type GloverSpacingInput,
+} from './glover.js';
+export {
+  manningFullCapacity,
+  manningDiameter,
+  manningDiameterInches,
+  fullFlowVelocity,
+  minimumGrade,
+} from './manning.js';
+export {
+  selectPipeSize,
+  pipeSizeList,
+  pipeDiameterM,
+  INCH_SIZES,
+  METRIC_SIZES,
+  ROUGHNESS,
+  type PipeSizeList,
+  type PipeMaterial,
+  type SelectedPipe,
+} from './pipeSizes.js';
+export { solveSpacing, type SpacingRoot } from './spacingRoot.js';

@@ -1,0 +1,173 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { cli, cliJson as json, ensureBuilt, expectUserError } from './spacing.build.js';
+import { inchD, M3S_PER_CFS as CFS, manningQ } from '../drainage/reference.js';
+
+beforeAll(() => {
+  ensureBuilt('dist/cli/commands/size.js', [
+    'src/cli/main.ts',
+    'src/cli/commands/size.ts',
+    'src/cli/commands/spacing.ts',
+    'src/drainage/manning.ts',
+    'src/drainage/pipeSizes.ts',
+  ]);
+}, 180_000);
+
+// Manning's SI form and the inch design formula, evaluated independently: ../drainage/reference.ts.
+
+const LATERAL = ['size', '--length', '400', '--spacing', '20', '--slope', '0.2 %'];
+
+describe('tileflux size', () => {
+  it('--json: a 400 m x 20 m lateral at 1/2 in/d on 0.2 % (drainage coefficient, common practice)', () => {
+    const out = json([...LATERAL, '--rate', '0.5 in/d']);
+    const q = (400 * 20 * 0.0127) / 86400; // area x rate, m3/s
+    expect(out.flow_m3_s).toBeCloseTo(q, 12);
+    expect(out.flow_cfs).toBeCloseTo(q / CFS, 12);
+    expect(out.roughness).toBe(0.015);
+    // Required diameter by the inch design formula, to the rounding of its 16 (0.1 %).
+    expect(Math.abs(out.required_diameter_in / inchD(q / CFS, 0.002, 0.015) - 1)).toBeLessThan(
+      2e-3,
+    );
+    // Field laterals are 3 to 6 in tubing in common practice.
+    expect(out.selected_diameter_in).toBeGreaterThanOrEqual(3);
+    expect(out.selected_diameter_in).toBeLessThanOrEqual(6);
+    // Next size up (common practice): the one below is too small, the one chosen is not.
+    const sizes = [3, 4, 5, 6, 8, 10, 12, 15, 18, 24];
+    const i = sizes.indexOf(out.selected_diameter_in);
+    expect(sizes[i] * 25.4).toBeGreaterThanOrEqual(out.required_diameter_mm);
+    if (i > 0) expect(sizes[i - 1] * 25.4).toBeLessThan(out.required_diameter_mm);
+    expect(out.selected_capacity_m3_s).toBeCloseTo(manningQ(sizes[i] * 0.0254, 0.002, 0.015), 12);
+    expect(out.full_flow_velocity_m_s).toBeCloseTo(
+      out.selected_capacity_m3_s / ((Math.PI * (sizes[i] * 0.0254) ** 2) / 4),
+      12,
+    );
+    // Minimum grade: the grade at which the selected pipe reaches 1.4 ft/s flowing full.
+    const v = 1.4 * 0.3048;
+    const D = sizes[i] * 0.0254;
+    const grade = Math.pow((v * 0.015) / Math.pow(D / 4, 2 / 3), 2);
+    expect(out.min_grade_percent).toBeCloseTo(grade * 100, 10);
+  });
+
+  it('metric list gives selected_diameter_mm; smooth pipe uses n = 0.012', () => {
+    const out = json([
+      'size',
+      '--area',
+      '16',
+      '--rate',
+      '12',
+      '--slope',
+      '0.001',
+      '--material',
+      'smooth',
+      '--sizes',
+      'mm',
+    ]);
+    expect(out.roughness).toBe(0.012);
+    expect(out.selected_diameter_mm).toBeGreaterThanOrEqual(out.required_diameter_mm);
+    expect(out.selected_diameter_in).toBeUndefined();
+  });
+
+  it('a custom list and an explicit roughness', () => {
+    const out = json([
+      'size',
+      '--area',
+      '40 ac',
+      '--rate',
+      '0.5 in/d',
+      '--slope',
+      '0.001',
+      '--sizes',
+      '6,8,10,12,14 in',
+      '--roughness',
+      '0.02',
+    ]);
+    // js-quantities defines the acre to 9 significant digits (4046.85642 m2).
+    expect(out.area_ha).toBeCloseTo(40 * 0.40468564224, 6);
+    expect(out.roughness).toBe(0.02);
+    expect([6, 8, 10, 12, 14]).toContain(out.selected_diameter_in);
+  });
+
+  it('human output: inputs as given, result, method and caution; --units us', () => {
+    const r = cli([...LATERAL, '--rate', '0.375 in/d']);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain('400 m x 20 m = 0.800 ha');
+    expect(r.stdout).toContain('0.375 in/d = 9.53 mm/d');
+    expect(r.stdout).toMatch(/selected size\s+\d+ in/);
+    expect(r.stdout).toContain("Manning's equation");
+    expect(r.stdout).toContain('Planning estimate');
+    const us = cli([...LATERAL, '--rate', '0.375 in/d', '--units', 'us']);
+    expect(us.stdout).toMatch(/design flow\s+0\.0\d+ cfs/);
+    expect(us.stdout).toMatch(/ft\/s/);
+  });
+});
+
+describe('tileflux size rejects bad input with one line and exit code 1', () => {
+  const cases: Array<[string, string[], RegExp]> = [
+    [
+      'zero slope',
+      [...LATERAL.slice(0, 5), '--slope', '0', '--rate', '10'],
+      /--slope must be greater than 0/,
+    ],
+    [
+      'negative slope',
+      [...LATERAL.slice(0, 5), '--slope', '-0.1 %', '--rate', '10'],
+      /--slope must be greater than 0/,
+    ],
+    [
+      'flow beyond the largest size',
+      ['size', '--area', '2000', '--rate', '25', '--slope', '0.001'],
+      /larger than the largest size in --sizes \(24 in\)/,
+    ],
+    [
+      'area and lateral both',
+      ['size', '--area', '10', '--length', '400', '--rate', '10', '--slope', '0.001'],
+      /either --area, or --length with --spacing/,
+    ],
+    [
+      'lateral without spacing',
+      ['size', '--length', '400', '--rate', '10', '--slope', '0.001'],
+      /--length needs --spacing/,
+    ],
+    ['no area', ['size', '--rate', '10', '--slope', '0.001'], /give the drained area/],
+    [
+      'roughness and material',
+      [
+        'size',
+        '--area',
+        '1',
+        '--rate',
+        '10',
+        '--slope',
+        '0.001',
+        '--roughness',
+        '0.013',
+        '--material',
+        'smooth',
+      ],
+      /--roughness or --material, not both/,
+    ],
+    [
+      'unknown material',
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--material', 'steel'],
+      /--material expects corrugated or smooth/,
+    ],
+    [
+      'sizes out of order',
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--sizes', '8,6'],
+      /--sizes accepts .* increasing order/,
+    ],
+    [
+      'velocity not a speed',
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--velocity', '2 kg'],
+      /--velocity expects a velocity/,
+    ],
+  ];
+  for (const [what, args, message] of cases) it(what, () => expectUserError(args, message));
+});
+
+describe('tileflux size --help', () => {
+  it('teaches with examples and carries the caution', () => {
+    const r = cli(['size', '--help']);
+    expect(r.stdout).toContain('tileflux size --length 400 --spacing 20');
+    expect(r.stdout).toContain('Planning estimate');
+  });
+});

@@ -1,0 +1,128 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { gloverHeadRatio, gloverSpacing } from '../../src/drainage/glover.js';
+import { equivalentDepth } from '../../src/drainage/equivalentDepth.js';
+import { gloverSeriesRatio as seriesRatio } from './reference.js';
+
+// The Glover-Dumm series is evaluated independently in ./reference.ts (gloverSeriesRatio).
+
+// Explicit finite differences for the linearized Boussinesq equation mu h_t = K D h_xx with
+// h = 0 at both drains and h = h0 between them at t = 0 (forward Euler in time, central
+// differences in space, stable for r = kappa dt / dx^2 <= 1/2).
+function finiteDifferenceRatio(kappa: number, L: number, tDays: number, cells = 200): number {
+  const dx = L / cells;
+  const steps = Math.ceil(tDays / ((0.4 * dx * dx) / kappa));
+  const r = (kappa * (tDays / steps)) / (dx * dx);
+  let h = new Float64Array(cells + 1).fill(1);
+  let next = new Float64Array(cells + 1);
+  h[0] = 0;
+  h[cells] = 0;
+  for (let s = 0; s < steps; s++) {
+    for (let i = 1; i < cells; i++) next[i] = h[i] + r * (h[i - 1] - 2 * h[i] + h[i + 1]);
+    next[0] = 0;
+    next[cells] = 0;
+    [h, next] = [next, h];
+  }
+  return h[cells / 2];
+}
+
+const layout = {
+  kMPerDay: 0.6,
+  equivalentDepthM: 1.3,
+  drainablePorosity: 0.06,
+  spacingM: 22,
+  initialHeadM: 0.8,
+};
+// The module's convention: transmissive depth D = d + h0 / 2.
+const kappa =
+  (layout.kMPerDay * (layout.equivalentDepthM + layout.initialHeadM / 2)) /
+  layout.drainablePorosity;
+
+describe('gloverHeadRatio', () => {
+  it('agrees with the series summed directly', () => {
+    for (const t of [0.01, 0.1, 0.5, 1, 2, 5, 10]) {
+      const y = (Math.PI * Math.PI * kappa * t) / layout.spacingM ** 2;
+      expect(gloverHeadRatio(t, layout)).toBeCloseTo(seriesRatio(y), 12);
+    }
+  });
+
+  it('agrees with an explicit finite-difference solution of the linearized Boussinesq equation', () => {
+    // 200 cells: discretisation error of order (dx/L)^2 = 2.5e-5 of the ratio; 1e-4 allowed.
+    for (const t of [0.3, 1, 3, 6]) {
+      const fd = finiteDifferenceRatio(kappa, layout.spacingM, t);
+      expect(Math.abs(gloverHeadRatio(t, layout) - fd)).toBeLessThan(1e-4);
+    }
+  });
+
+  it('is 1 at t = 0 and follows the one-term design formula once the first term dominates', () => {
+    expect(gloverHeadRatio(0, layout)).toBe(1);
+    // First term alone: h_mid / h0 = (4/pi) exp(-y); the next term is exp(-9y)/3, < 1e-4 of it
+    // for y >= 1.2.
+    const t = 8;
+    const y = (Math.PI * Math.PI * kappa * t) / layout.spacingM ** 2;
+    expect(y).toBeGreaterThan(1.2);
+    expect(gloverHeadRatio(t, layout) / ((4 / Math.PI) * Math.exp(-y)) - 1).toBeLessThan(1e-4);
+  });
+});
+
+describe('gloverSpacing', () => {
+  it('t -> spacing -> t round trip (property), with d checked against equivalentDepth', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.05, max: 5, noNaN: true }),
+        fc.double({ min: 0.01, max: 0.3, noNaN: true }),
+        fc.double({ min: 0.6, max: 2, noNaN: true }),
+        fc.double({ min: 0.3, max: 10, noNaN: true }),
+        fc.double({ min: 0, max: 0.9, noNaN: true }),
+        fc.double({ min: 0.05, max: 0.95, noNaN: true }),
+        fc.double({ min: 0.5, max: 20, noNaN: true }),
+        (k, mu, drainDepthM, D, fromFrac, toFrac, days) => {
+          const fromDepthM = fromFrac * drainDepthM * 0.5;
+          const toDepthM = fromDepthM + toFrac * (drainDepthM - fromDepthM) * 0.99;
+          fc.pre(toDepthM > fromDepthM);
+          const s = gloverSpacing({
+            kMPerDay: k,
+            drainablePorosity: mu,
+            drainDepthM,
+            layerBelowDrainsM: D,
+            drainRadiusM: 0.1,
+            fromDepthM,
+            toDepthM,
+            days,
+          });
+          expect(s.equivalentDepthM).toBeCloseTo(equivalentDepth(s.spacingM, D, 0.1), 12);
+          const h0 = drainDepthM - fromDepthM;
+          const y =
+            (Math.PI * Math.PI * k * (s.equivalentDepthM + h0 / 2) * days) / (mu * s.spacingM ** 2);
+          const want = (drainDepthM - toDepthM) / h0;
+          expect(seriesRatio(y, 5000) - want).toBeCloseTo(0, 9);
+        },
+      ),
+      { numRuns: 300 },
+    );
+  });
+
+  const base = {
+    kMPerDay: 0.5,
+    drainablePorosity: 0.05,
+    drainDepthM: 1.2,
+    layerBelowDrainsM: 2,
+    drainRadiusM: 0.1,
+    fromDepthM: 0.3,
+    toDepthM: 0.6,
+    days: 2,
+  };
+  it('rejects a start above the surface, a rise, a target at drain level and a bad porosity', () => {
+    expect(() => gloverSpacing({ ...base, fromDepthM: -0.1 })).toThrowError(/above the surface/);
+    expect(() => gloverSpacing({ ...base, toDepthM: 0.2 })).toThrowError(/deeper than fromDepthM/);
+    expect(() => gloverSpacing({ ...base, toDepthM: 1.2 })).toThrowError(
+      /shallower than the drain depth/,
+    );
+    expect(() => gloverSpacing({ ...base, drainablePorosity: 1.2 })).toThrowError(
+      /drainablePorosity/,
+    );
+    expect(() => gloverSpacing({ ...base, layerBelowDrainsM: -1 })).toThrowError(
+      /restrictive layer/,
+    );
+  });
+});
