@@ -398,15 +398,18 @@ function monthlySums(data: ReportData, name: string) {
   const s = dailySeries(data, name);
   const flow = new Float64Array(12);
   const load = new Float64Array(12);
-  const seen = Array.from({ length: 12 }, () => new Set<string>());
+  const count = new Array<number>(12).fill(0);
   const dates = data.daily.dates;
+  let previous = -1;
   for (let i = 0; i < dates.length; i++) {
     const m = monthOf(dates[i]);
     flow[m] += s.drainflowMm[i];
     load[m] += s.no3LoadKgHa[i];
-    seen[m].add(dates[i].slice(0, 4));
+    // Dates are consecutive: a new (year, month) pair starts whenever the month changes.
+    if (m !== previous) count[m]++;
+    previous = m;
   }
-  return { flow, load, count: seen.map((x) => x.size) };
+  return { flow, load, count };
 }
 
 /**

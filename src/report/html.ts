@@ -234,7 +234,8 @@ function comparisonTable(data: ReportData): string {
   return (
     `<table class="comparison keep" id="comparison-table">` +
     `<caption>Mean annual figures over ${data.period.years} years; under each, the change against ` +
-    `${escapeHtml(data.baseline)} (absolute and percent).</caption>` +
+    `${escapeHtml(data.baseline)} (absolute and percent). Pipe length counts the parallel laterals ` +
+    `only (10 000 m/ha divided by the spacing in m); mains and submains are not included.</caption>` +
     `<thead><tr><th scope="col">Measure</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
   );
 }

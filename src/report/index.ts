@@ -5,7 +5,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { buildReportHtml } from './html.js';
-import { renderSvg, svgToPngAsync } from './renderChart.js';
+import { PNG_SCALE, renderSvg, svgToPngAsync } from './renderChart.js';
 import type { ReportData } from './types.js';
 
 export * from './charts.js';
@@ -29,12 +29,17 @@ const SAFE_NAME = /^[a-z0-9][a-z0-9-]*$/;
 
 /**
  * Write every chart into `<dir>/charts/` as `<name>.vl.json` (the spec), `<name>.svg` and
- * `<name>.png`, creating the folder. SVGs are drawn one after another (vega is single-threaded);
+ * `<name>.png` (at `opts.pngScale` PNG pixels per SVG pixel, default PNG_SCALE), creating the
+ * folder. SVGs are drawn one after another (vega is single-threaded);
  * PNGs rasterise in parallel on resvg's worker pool. Returns the paths written, in order.
  *
  * @example await writeCharts(tmpDir, buildChartSpecs(data)) // ['<tmp>/charts/water-table.vl.json', ...]
  */
-export async function writeCharts(dir: string, specs: Record<string, object>): Promise<string[]> {
+export async function writeCharts(
+  dir: string,
+  specs: Record<string, object>,
+  opts: { pngScale?: number } = {},
+): Promise<string[]> {
   const out = join(dir, 'charts');
   mkdirSync(out, { recursive: true });
   const written: string[] = [];
@@ -45,7 +50,11 @@ export async function writeCharts(dir: string, specs: Record<string, object>): P
     writeFileSync(`${base}.vl.json`, JSON.stringify(spec, null, 2) + '\n');
     const svg = await renderSvg(spec);
     writeFileSync(`${base}.svg`, svg);
-    pngs.push(svgToPngAsync(svg).then((png) => writeFileSync(`${base}.png`, png)));
+    pngs.push(
+      svgToPngAsync(svg, opts.pngScale ?? PNG_SCALE).then((png) =>
+        writeFileSync(`${base}.png`, png),
+      ),
+    );
     written.push(`${base}.vl.json`, `${base}.svg`, `${base}.png`);
   }
   await Promise.all(pngs);
