@@ -10,7 +10,7 @@ import type { CropCalendar } from './types.js';
 const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
 
 /** Day of year (1-based) of "MM-DD" in `year` (Gregorian leap years). */
-export function dayOfYear(year: number, mmdd: string): number {
+export function monthDayOfYear(year: number, mmdd: string): number {
   const m = (mmdd.charCodeAt(0) - 48) * 10 + (mmdd.charCodeAt(1) - 48);
   const d = (mmdd.charCodeAt(3) - 48) * 10 + (mmdd.charCodeAt(4) - 48);
   const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
@@ -65,10 +65,10 @@ export function cropCalendar(
         rotation[(((year - firstYear) % rotation.length) + rotation.length) % rotation.length];
       params = crops[name];
       code = names.indexOf(name) + 1;
-      plant = dayOfYear(year, params.planting);
-      harvest = dayOfYear(year, params.harvest);
+      plant = monthDayOfYear(year, params.planting);
+      harvest = monthDayOfYear(year, params.harvest);
     }
-    const doy = dayOfYear(year, dates[i].substring(5, 10));
+    const doy = monthDayOfYear(year, dates[i].substring(5, 10));
     if (doy >= plant && doy < harvest) {
       kc[i] = kcOnDay(params, doy - plant);
       depletionFraction[i] = params.depletionFraction;

@@ -1,0 +1,17 @@
+/**
+ * tileflux as a Node library: the browser-safe core plus the file readers and writers (weather
+ * CSV, field YAML, run folders) and the chart rendering and HTML report.
+ */
+export * from './core.js';
+export * from './io/weather.js';
+export * from './io/field.js';
+export * from './io/tables.js';
+export * from './io/runFolder.js';
+export {
+  writeCharts,
+  writeReport,
+  buildReportHtml,
+  renderSvg,
+  svgToPng,
+  loadVegaBundles,
+} from './report/index.js';
