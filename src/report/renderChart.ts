@@ -5,10 +5,29 @@
  * on a fresh machine. System fonts are the fallback when DejaVu is missing.
  */
 import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { join } from 'node:path';
-import { Resvg, renderAsync, type ResvgRenderOptions } from '@resvg/resvg-js';
-import { parse, View } from 'vega';
-import { compile, type TopLevelSpec } from 'vega-lite';
+import type { ResvgRenderOptions } from '@resvg/resvg-js';
+import type { TopLevelSpec } from 'vega-lite';
+
+// vega, vega-lite and resvg take about half a second to load: they are loaded on first use, so
+// that runs without charts (and importing the report module) do not pay for them.
+type Vega = typeof import('vega');
+type VegaLite = typeof import('vega-lite');
+type ResvgModule = typeof import('@resvg/resvg-js');
+let vegaModules: Promise<[Vega, VegaLite]> | undefined;
+let resvgModule: ResvgModule | undefined;
+
+function loadVega(): Promise<[Vega, VegaLite]> {
+  vegaModules ??= Promise.all([import('vega'), import('vega-lite')]);
+  return vegaModules;
+}
+
+function resvg(): ResvgModule {
+  // resvg-js is a CommonJS package with a native binding: require it synchronously, once.
+  resvgModule ??= createRequire(import.meta.url)('@resvg/resvg-js') as ResvgModule;
+  return resvgModule;
+}
 
 /** Where fonts-dejavu-core puts its files on Debian and Ubuntu. */
 export const DEJAVU_DIR = '/usr/share/fonts/truetype/dejavu';
@@ -29,8 +48,9 @@ export const PNG_SCALE = 1.5;
 export async function renderSvg(spec: object): Promise<string> {
   // vega tags the inline data objects it ingests; work on a copy so the caller's spec stays as
   // it was (it is written to .vl.json and embedded in the report).
-  const vgSpec = compile(structuredClone(spec) as TopLevelSpec).spec;
-  const view = new View(parse(vgSpec), { renderer: 'none' });
+  const [vega, vegaLite] = await loadVega();
+  const vgSpec = vegaLite.compile(structuredClone(spec) as TopLevelSpec).spec;
+  const view = new vega.View(vega.parse(vgSpec), { renderer: 'none' });
   try {
     return renumberIds(await view.toSVG());
   } finally {
@@ -93,7 +113,7 @@ export function rasterize(
   scale = PNG_SCALE,
   fontDir?: string,
 ): { width: number; height: number; pixels: Uint8Array } {
-  const img = new Resvg(svg, resvgOptions(scale, fontDir)).render();
+  const img = new (resvg().Resvg)(svg, resvgOptions(scale, fontDir)).render();
   return { width: img.width, height: img.height, pixels: new Uint8Array(img.pixels) };
 }
 
@@ -103,7 +123,7 @@ export function rasterize(
  * @example svgToPng(svg).subarray(1, 4) // 'PNG' in ASCII
  */
 export function svgToPng(svg: string, scale = PNG_SCALE, fontDir?: string): Uint8Array {
-  return new Uint8Array(new Resvg(svg, resvgOptions(scale, fontDir)).render().asPng());
+  return new Uint8Array(new (resvg().Resvg)(svg, resvgOptions(scale, fontDir)).render().asPng());
 }
 
 /**
@@ -117,6 +137,6 @@ export async function svgToPngAsync(
   scale = PNG_SCALE,
   fontDir?: string,
 ): Promise<Uint8Array> {
-  const img = await renderAsync(svg, resvgOptions(scale, fontDir));
+  const img = await resvg().renderAsync(svg, resvgOptions(scale, fontDir));
   return new Uint8Array(img.asPng());
 }

@@ -1,6 +1,6 @@
 // Report stage on a 30-year, 3-scenario fixture: build the six chart specs, render them to SVG
-// and PNG (writeCharts) and build and write the HTML report. The first run is cold (includes
-// loading vega, vega-lite and resvg and reading the fonts and browser bundles); warm runs repeat it.
+// and PNG (writeCharts) and build and write the HTML report. The first run is cold (it loads
+// vega, vega-lite and resvg and reads the fonts and the browser bundles); warm runs repeat it.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 import { tmpdir } from 'node:os';
@@ -34,7 +34,7 @@ export default async function () {
   for (let i = 0; i < 3; i++) warm.push(await once(lib, data));
   const mean = (k) => warm.reduce((t, r) => t + r[k], 0) / warm.length;
   return [
-    { name: 'import report modules (vega, vega-lite, resvg)', value: importMs, unit: 'ms' },
+    { name: 'import report module (vega etc. load on first use)', value: importMs, unit: 'ms' },
     { name: 'report, cold: specs + SVG/PNG + HTML (30 yr x 3)', value: cold.total, unit: 'ms' },
     { name: 'chart specs, warm (6 charts)', value: mean('specs'), unit: 'ms' },
     { name: 'charts to SVG + PNG, warm (6 charts)', value: mean('charts'), unit: 'ms' },
