@@ -9,7 +9,15 @@ import { basename } from 'node:path';
 import type { Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import { readFieldFile } from '../../io/field.js';
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { buildSummary, writeRunFiles, annualMean, type RunMeta } from '../../io/runFolder.js';
+import { recordIn, toCsv } from '../../io/tables.js';
+import { buildChartSpecs } from '../../report/charts.js';
+import { writeCharts, writeReport } from '../../report/index.js';
+import { wetnessChangeLines } from '../../report/summary.js';
+import { COMPARISON_COLUMNS, type ComparisonRow } from '../../scenarios/compare.js';
+import { comparisonOf, reportDataOf } from '../../scenarios/reportData.js';
 import { readWeatherFile } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
@@ -111,6 +119,94 @@ export function headline(run: RunOutput, units: UnitSystem): string {
   return lines.join('\n');
 }
 
+/** The human summary printed after a run: the table, what changed, where the files are. */
+export function runReport(
+  run: RunOutput,
+  meta: RunMeta,
+  units: UnitSystem,
+  out: string,
+  written: string[],
+  comparison: ComparisonRow[],
+): string {
+  const lines = [
+    `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
+    '',
+    headline(run, units),
+    '',
+    ...wetnessChangeLines(comparison, units),
+    '',
+    `Wrote ${out}/ (${written.join(', ')}).`,
+  ];
+  if (written.includes('report.html')) lines.push(`Report: ${join(out, 'report.html')}`);
+  lines.push(CAUTION);
+  return lines.join('\n');
+}
+
+/** Parse --year: a calendar year inside the reported period. */
+function chartYearOf(run: RunOutput, year: string | undefined): number | undefined {
+  if (year === undefined) return undefined;
+  const y = Number(year);
+  const first = Number(run.from.slice(0, 4));
+  const last = Number(run.to.slice(0, 4));
+  if (!Number.isInteger(y) || y < first || y > last) {
+    throw new TilefluxError(`--year expects a year from ${first} to ${last}; got ${year}`);
+  }
+  return y;
+}
+
+/**
+ * Write a run's output folder atomically: daily.csv, annual.csv, comparison.csv, summary.json,
+ * and unless switched off charts/ and report.html. Returns the summary and what was written.
+ */
+export async function writeRunFolder(
+  run: RunOutput,
+  meta: RunMeta,
+  out: string,
+  units: UnitSystem,
+  o: { force?: boolean; charts?: boolean; report?: boolean; year?: string },
+): Promise<{
+  summary: ReturnType<typeof buildSummary>;
+  written: string[];
+  comparison: ComparisonRow[];
+}> {
+  const comparison = comparisonOf(run);
+  const chartYear = chartYearOf(run, o.year);
+  const summary = buildSummary(run, meta, units, {
+    comparison: comparison.map((r) => recordIn(r as unknown as Record<string, unknown>, units)),
+  });
+  const written = ['daily.csv', 'annual.csv', 'comparison.csv', 'summary.json'];
+  await writeDirAtomic(out, Boolean(o.force), async (dir) => {
+    writeRunFiles(dir, run, summary, units);
+    writeFileSync(
+      join(dir, 'comparison.csv'),
+      toCsv(
+        comparison.map((r) =>
+          Object.fromEntries(COMPARISON_COLUMNS.map((k) => [k, r[k] as string | number])),
+        ),
+        units,
+      ),
+    );
+    if (o.charts === false && o.report === false) return;
+    const data = reportDataOf(run, {
+      fieldName: meta.fieldName,
+      weatherFile: meta.weatherFile,
+      units,
+      chartYear,
+      comparison,
+    });
+    const specs = buildChartSpecs(data);
+    if (o.charts !== false) {
+      await writeCharts(dir, specs);
+      written.push('charts/');
+    }
+    if (o.report !== false) {
+      writeReport(dir, data, specs);
+      written.push('report.html');
+    }
+  });
+  return { summary, written, comparison };
+}
+
 export function registerRun(program: Command): void {
   const cmd = program
     .command('run')
@@ -151,20 +247,8 @@ export function registerRun(program: Command): void {
         const units = parseUnits(o.units);
         const { run, meta } = runFromFiles(fieldPath, o);
         const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-run`;
-        const summary = buildSummary(run, meta, units);
-        await writeDirAtomic(out, Boolean(o.force), (dir) =>
-          writeRunFiles(dir, run, summary, units),
-        );
-        emit(o.json, summary, () =>
-          [
-            `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
-            '',
-            headline(run, units),
-            '',
-            `Wrote ${out}/ (daily.csv, annual.csv, summary.json).`,
-            CAUTION,
-          ].join('\n'),
-        );
+        const { summary, written, comparison } = await writeRunFolder(run, meta, out, units, o);
+        emit(o.json, summary, () => runReport(run, meta, units, out, written, comparison));
       }),
     );
 }
