@@ -5,6 +5,7 @@
 import { Command } from 'commander';
 import { VERSION } from '../version.js';
 import { registerWeather } from './commands/weather.js';
+import { registerDemo } from './commands/demo.js';
 import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
 import { registerSpacing } from './commands/spacing.js';
@@ -27,10 +28,11 @@ program
   .configureHelp({ sortSubcommands: false });
 
 const registrations: Array<(p: Command) => void> = [
-  // Each command module adds its registration here.
-  registerWeather,
+  // Each command module adds its registration here, in the order --help lists them.
+  registerDemo,
   registerRun,
   registerInit,
+  registerWeather,
   registerSpacing,
   registerSize,
 ];
