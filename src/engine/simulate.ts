@@ -222,7 +222,7 @@ export function simulate(
       const evap = Math.min(surface, demand);
       surface -= evap;
       demand -= evap;
-      let wtd = depthForAir(table, air);
+      const wtd = depthForAir(table, air);
       const below = wtd - p.rootZoneDepthM;
       const share = below <= 0 ? 1 : Math.exp(-below / p.capillaryDecayM);
       const fromTable = Math.min(demand * share, table.maxAirMm - air);

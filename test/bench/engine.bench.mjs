@@ -46,7 +46,11 @@ export default async function () {
     '--out',
     join(out, 'run'),
   ]);
-  figures.push({ name: 'tileflux run, 30 years x 3 scenarios ', value: (performance.now() - t0) / 1000, unit: 's' });
+  figures.push({
+    name: 'tileflux run, 30 years x 3 scenarios ',
+    value: (performance.now() - t0) / 1000,
+    unit: 's',
+  });
   rmSync(out, { recursive: true, force: true });
   return figures;
 }
