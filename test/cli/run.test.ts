@@ -15,6 +15,26 @@ function tileflux(...args: string[]) {
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
+/** `run` on the demo files for whole years, tables only (fast), into `out`. */
+function quickRun(fromYear: number, toYear: number, out: string, ...extra: string[]) {
+  return tileflux('run', ...quickArgs(fromYear, toYear, out), ...extra);
+}
+function quickArgs(fromYear: number, toYear: number, out: string): string[] {
+  return [
+    FIELD,
+    '--weather',
+    WEATHER,
+    '--from',
+    `${fromYear}-01-01`,
+    '--to',
+    `${toYear}-12-31`,
+    '--out',
+    out,
+    '--no-charts',
+    '--no-report',
+  ];
+}
+
 beforeAll(() => {
   if (!existsSync(CLI)) execFileSync('npm', ['run', 'build'], { stdio: 'ignore' });
   dir = mkdtempSync(join(tmpdir(), 'tileflux-run-'));
@@ -55,19 +75,7 @@ describe('tileflux run', () => {
 
   it('refuses to overwrite an existing folder without --force, and writes nothing half', () => {
     const out = join(dir, 'keep');
-    const args = [
-      FIELD,
-      '--weather',
-      WEATHER,
-      '--from',
-      '2001-01-01',
-      '--to',
-      '2001-12-31',
-      '--out',
-      out,
-      '--no-charts',
-      '--no-report',
-    ];
+    const args = quickArgs(2001, 2001, out);
     expect(tileflux('run', ...args).code).toBe(0);
     const before = readFileSync(join(out, 'summary.json'));
     const r = tileflux('run', ...args);
@@ -105,38 +113,10 @@ describe('tileflux run', () => {
 
   it('--units us writes inches and pounds per acre', () => {
     const out = join(dir, 'us');
-    const r = tileflux(
-      'run',
-      FIELD,
-      '--weather',
-      WEATHER,
-      '--from',
-      '2001-01-01',
-      '--to',
-      '2001-12-31',
-      '--out',
-      out,
-      '--units',
-      'us',
-      '--no-charts',
-      '--no-report',
-    );
+    const r = quickRun(2001, 2001, out, '--units', 'us');
     expect(r.code).toBe(0);
     const si = join(dir, 'si');
-    tileflux(
-      'run',
-      FIELD,
-      '--weather',
-      WEATHER,
-      '--from',
-      '2001-01-01',
-      '--to',
-      '2001-12-31',
-      '--out',
-      si,
-      '--no-charts',
-      '--no-report',
-    );
+    quickRun(2001, 2001, si);
     const parse = (p: string) => {
       const [h, row] = readFileSync(p, 'utf8').trim().split('\n');
       const hs = h.split(',');
