@@ -83,3 +83,38 @@ describe('runs on the real vega-datasets records', () => {
     );
   });
 });
+
+describe('every nitrate model through a run', () => {
+  const models: Array<[string, string]> = [
+    ['fixed', 'nitrate: { model: fixed, concentration: 12 mg/L }'],
+    [
+      'seasonal',
+      'nitrate: { model: seasonal, monthly: [14, 14, 16, 18, 16, 12, 9, 8, 8, 10, 12, 13] }',
+    ],
+    ['rating', 'nitrate: { model: rating, a: 11 mg/L, b: 0.1 }'],
+    ['pool', 'nitrate: { model: pool }'],
+  ];
+  for (const [model, section] of models) {
+    it(`${model}: loads on every scenario, load = flow x concentration / 100 each day`, () => {
+      const w = readWeatherFile(WEATHER, {
+        columns,
+        where: { column: 'location', value: 'New York' },
+      });
+      const run = runField(parseField(field(40.7) + section + '\n', 'f.yaml'), w.series);
+      for (const s of run.scenarios) {
+        expect(s.spec.nitrate.model).toBe(model);
+        for (let i = 0; i < s.engine.drainflowMm.length; i++) {
+          // DESIGN.md section 4: load (kg N/ha) = flow (mm) x concentration (mg/L) / 100.
+          expect(s.nitrate.loadKgHa[i]).toBeCloseTo(
+            (s.engine.drainflowMm[i] * s.nitrate.concMgL[i]) / 100,
+            12,
+          );
+        }
+        for (const y of s.annual) {
+          expect(Number.isFinite(y.no3_load_kg_ha) && y.no3_load_kg_ha > 0).toBe(true);
+          expect(Math.abs(y.n_balance_error_kg_ha)).toBeLessThan(1e-6);
+        }
+      }
+    });
+  }
+});
