@@ -24,7 +24,9 @@ program
       'and a licensed professional decide the design.',
   )
   .version(VERSION, '-V, --version')
-  .showHelpAfterError('(run with --help for usage)')
+  .showHelpAfterError(
+    '(run with --help for usage; quote a value that has a unit, e.g. --k "1 m/d")',
+  )
   .configureHelp({ sortSubcommands: false });
 
 const registrations: Array<(p: Command) => void> = [
