@@ -9,11 +9,11 @@
  * drop it. Yielding to the event loop after each display lets the message go out first.
  */
 import { parse } from 'yaml';
-import { outletSchema, TilefluxError, type Field } from '../dist/index.js';
-import { fixed } from '../dist/report/format.js';
+import { outletSchema, PALETTE, TilefluxError, type Field } from '../dist/index.js';
+import { fixed } from '../dist/index.js';
 
 // The report's number formats, for sentences: fixed(x, d) and signed(x, d) ("+4.1", "n/a").
-export { fixed, signed } from '../dist/report/format.js';
+export { fixed, signed } from '../dist/index.js';
 
 /**
  * The MIME type Jupyter front ends render Vega-Lite with. JupyterLab 4 (its vega5-extension,
@@ -32,17 +32,8 @@ export async function show(bundle: Record<string, unknown>): Promise<void> {
   await new Promise((resolve) => setTimeout(resolve, 25));
 }
 
-/** Our own palette for scenarios: well separated, print-safe on white. */
-export const PALETTE = [
-  '#1f5f8b',
-  '#d1603d',
-  '#4c9a2a',
-  '#7b4fa0',
-  '#c79a00',
-  '#3aa6a0',
-  '#9c4f6e',
-  '#2e2e2e',
-];
+/** The report's own palette for scenarios (well separated, print-safe on white). */
+export { PALETTE };
 
 /** The shared look of the notebook charts (white background, dark text, readable in print). */
 export const CHART_CONFIG = {

@@ -25,3 +25,4 @@ export * from './scenarios/compare.js';
 export * from './scenarios/starter.js';
 export * from './report/charts.js';
 export * from './report/types.js';
+export { fixed, signed } from './report/format.js';

@@ -51,7 +51,7 @@ export const CHART_CAPTIONS: Readonly<Record<ChartName, string>> = {
  * Our own palette: eight well-separated, print-safe colours on white, dark enough for thin
  * lines. Scenarios take them in order (cycling beyond eight).
  */
-const PALETTE = [
+export const PALETTE = [
   '#1f5f8b',
   '#d1603d',
   '#4c9a2a',
