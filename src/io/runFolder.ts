@@ -5,6 +5,7 @@
  */
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import type { RatingFit } from '../nitrate/types.js';
 import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
@@ -18,6 +19,8 @@ export interface RunMeta {
   weatherFile: string;
   weatherSha256: string;
   fieldName: string;
+  /** Nitrate ratings fitted to observation files named in the field file, by file name. */
+  ratingFits?: Record<string, RatingFit>;
 }
 
 /** Daily columns of one scenario, SI, in the column order of daily.csv. */
@@ -132,6 +135,15 @@ export function buildSummary(
       simulated_from: run.simulatedFrom,
     },
     reference_et_method: run.refEtMethod,
+    nitrate_rating_fits: Object.entries(meta.ratingFits ?? {}).map(([file, f]) => ({
+      observations: file,
+      a_mg_l: f.a,
+      b: f.b,
+      r_squared: f.rSquared,
+      n: f.n,
+      skipped: f.skipped,
+      flow_range_mm_d: f.flowRangeMm,
+    })),
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => {
       const mean = annualMean(s.annual);
@@ -167,6 +179,7 @@ export function buildSummary(
         },
         annual_mean: recordIn(mean, units),
         change_vs_baseline: change,
+        no3_rating_out_of_range_days: s.nitrate.outOfRangeDays,
         max_annual_balance_error_mm: Math.max(
           0,
           ...s.annual.map((r) => Math.abs(r.balance_error_mm)),

@@ -11,7 +11,26 @@ import type { RunOutput } from './run.js';
 /** The methods behind every number in a run, with their published sources. */
 export function methodsOf(run: RunOutput): ReportData['methods'] {
   const models = [...new Set(run.scenarios.map((s) => s.spec.nitrate.model))];
-  return [
+  const ratings = run.scenarios.filter((s) => s.spec.nitrate.model === 'rating');
+  const ratingNote = ratings.map((s) => {
+    const c = s.spec.nitrate as Extract<typeof s.spec.nitrate, { model: 'rating' }>;
+    const [lo, hi] = c.fitFlowRangeMm;
+    return (
+      `${s.spec.name}: C = ${c.a.toPrecision(3)} Q^${c.b.toPrecision(3)} for flows ${lo.toPrecision(2)} to ` +
+      `${hi.toPrecision(3)} mm/d; ${s.nitrate.outOfRangeDays} days with flow outside that range used the edge concentration`
+    );
+  });
+  const rating = ratings.length
+    ? [
+        {
+          topic: 'Nitrate rating',
+          text: ratingNote.join('. ') + '.',
+          source:
+            'Concentration-discharge rating fitted in log space (least squares, simple-statistics)',
+        },
+      ]
+    : [];
+  const methods: ReportData['methods'] = [
     {
       topic: 'Reference evapotranspiration',
       text: `${run.refEtMethod}; crop ET = Kc x ET0 with the FAO-56 single crop coefficient curve and the water-stress coefficient Ks (Eq. 84).`,
@@ -50,6 +69,9 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
       source: 'tileflux definitions (thresholds set in the field file)',
     },
   ];
+  const nitrateAt = methods.findIndex((m) => m.topic === 'Nitrate-N');
+  methods.splice(nitrateAt + 1, 0, ...rating);
+  return methods;
 }
 
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */

@@ -92,6 +92,7 @@ export function runFromFiles(
       weatherFile: basename(o.weather),
       weatherSha256: sha256(o.weather),
       fieldName: field.base.name,
+      ratingFits: field.ratingFits,
     },
   };
 }
