@@ -61,7 +61,7 @@ export function extraterrestrialRadiation(latitudeDeg: number, dayOfYear: number
 /**
  * Daylight hours N (FAO-56 Eq. 34).
  *
- * @example daylightHours(50.8, 187) // about 16.1 (FAO-56 Example 18, Brussels, 6 July)
+ * @example daylightHours(50.8, 187) // about 16.1 (FAO-56 Example 18, 50 deg 48 min N, 6 July)
  */
 export function daylightHours(latitudeDeg: number, dayOfYear: number): number {
   const phi = (latitudeDeg * Math.PI) / 180;

@@ -122,7 +122,7 @@ export interface PenmanMonteithDay {
  * albedo 0.23 (Eq. 38-40) and Rso from Eq. 37. The result is floored at zero.
  *
  * @example penmanMonteithEt0({ tmaxC: 21.5, tminC: 12.3, eaKPa: 1.409, rsMJm2: 22.07,
- *   raMJm2: 41.09, u2Ms: 2.078, elevationM: 100 }) // 3.9 (FAO-56 Example 18, Brussels, 6 July)
+ *   raMJm2: 41.09, u2Ms: 2.078, elevationM: 100 }) // 3.9 (FAO-56 Example 18, 50 deg 48 min N, 6 July)
  */
 export function penmanMonteithEt0(d: PenmanMonteithDay): number {
   const t = 0.5 * (d.tmaxC + d.tminC);

@@ -32,8 +32,9 @@ export const DEFAULT_POOL_PARAMS: PoolParams = {
   // paths to the drains (assumption).
   mobileWaterMm: 300,
   // Spring pre-plant N for corn after soybean: about 140-150 kg N/ha, the maximum-return-to-N
-  // rate of the regional guidelines (Sawyer et al. 2006, Iowa State Univ. Extension PM 2015
-  // (from memory)); a week before the corn planting date (common practice). None on soybean.
+  // rate of regional corn-belt N-rate guidelines (Sawyer et al. 2006, university extension
+  // guidelines on corn N rates (from memory)); a week before the corn planting date (common
+  // practice). None on soybean.
   fertilizer: [{ date: '04-25', amountKgHa: 150, crops: ['corn'] }],
   // Net mineralization of 100-150 kg N/ha per year in Midwest mollisols (Dinnes et al. 2002
   // (from memory)): 150 at 20 degC gives about 100 a year in a corn-belt temperature regime.
@@ -58,12 +59,12 @@ export const DEFAULT_POOL_PARAMS: PoolParams = {
   uptakeSteepness: 10,
   // 5 % of the pool per day with the drained profile saturated at 20 degC (assumption), so that
   // a freely drained field loses of the order of 10-20 kg N/ha a year to denitrification
-  // (David et al. 2009, Biogeochemistry 93: 7-30, for a drained Illinois field (from memory)).
+  // (David et al. 2009, Biogeochemistry 93: 7-30, for a drained corn-belt field (from memory)).
   denitrificationMaxPerDay: 0.05,
   // Q10 of 2 (Heinen 2006, Geoderma 133: 444-463, reviews values near 2 (from memory)).
   denitrificationQ10: 2,
-  // No threshold: the saturated fraction is already that of the drained profile (above the
-  // drains), which is aerated when drained. Exponent 2: organic carbon, and with it
+  // No threshold: the saturated fraction is that of the top metre of the profile (the engine's
+  // active zone), which is aerated when drained. Exponent 2: organic carbon, and with it
   // denitrification, concentrates near the surface, so saturation of the upper profile counts
   // more than the lower (assumption).
   saturationThreshold: 0,

@@ -29,7 +29,7 @@ describe('referenceEt: method choice', () => {
   });
 
   it('uses FAO Penman-Monteith with solar, humidity and wind: FAO-56 Example 18 as a record', () => {
-    // FAO-56 Example 18 (Brussels, 50 deg 48 min N, 100 m, 6 July; from memory): Tmax 21.5,
+    // FAO-56 Example 18 (50 deg 48 min N, 100 m, 6 July; from memory): Tmax 21.5,
     // Tmin 12.3 degC, Rs 22.07 MJ m-2 d-1, u2 2.078 m/s, ea 1.409 kPa -> ET0 = 3.9 mm/d.
     // The file form carries RHmean, so ea is given as RHmean = 100 ea / es with es = 1.997 kPa
     // (Example 18), and Ra comes from the latitude and date.
