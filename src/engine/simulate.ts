@@ -52,7 +52,9 @@ interface OutletLevel {
   /** Hooghoudt coefficients: q (m/d) = a h + b h^2. */
   a: number;
   b: number;
-  kirkhamG: number;
+  /** Kirkham's ponded rate is linear in the pond depth t (m): q (m/d) = k0 + k1 t. */
+  kirkham0: number;
+  kirkham1: number;
 }
 
 /**
@@ -123,6 +125,23 @@ export function simulate(
   const table = porosityTable(p.porosity, p.barrierDepthM);
   const L2 = p.spacingM * p.spacingM;
 
+  // Kirkham's geometry factor depends on the pipe layout only: one series for the whole run.
+  const kirkhamG = kirkhamGeometryFactor({
+    drainDepthM: p.drainDepthM,
+    layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
+    drainRadiusM: p.drainRadiusM,
+    spacingM: p.spacingM,
+  });
+  const kirkhamAt = (depth: number, pondM: number) =>
+    kirkhamFlux({
+      kMPerDay: p.kAboveMPerDay,
+      pondedDepthM: pondM,
+      drainDepthM: depth,
+      drainRadiusM: p.drainRadiusM,
+      spacingM: p.spacingM,
+      geometryFactor: kirkhamG,
+    });
+
   const levels = new Map<number, OutletLevel>();
   const levelFor = (depth: number): OutletLevel => {
     let lv = levels.get(depth);
@@ -136,12 +155,8 @@ export function simulate(
         depthM: depth,
         a: (8 * p.kBelowMPerDay * d) / L2,
         b: (4 * p.kAboveMPerDay) / L2,
-        kirkhamG: kirkhamGeometryFactor({
-          drainDepthM: p.drainDepthM,
-          layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
-          drainRadiusM: p.drainRadiusM,
-          spacingM: p.spacingM,
-        }),
+        kirkham0: kirkhamAt(depth, 0),
+        kirkham1: kirkhamAt(depth, 1) - kirkhamAt(depth, 0),
       };
       levels.set(depth, lv);
     }
@@ -250,14 +265,7 @@ export function simulate(
           // Saturated to the surface and ponded: Hooghoudt at full head or Kirkham, if larger.
           const h = lv.depthM;
           let q = lv.a * h + lv.b * h * h;
-          const qk = kirkhamFlux({
-            kMPerDay: p.kAboveMPerDay,
-            pondedDepthM: surface / 1000,
-            drainDepthM: lv.depthM,
-            drainRadiusM: p.drainRadiusM,
-            spacingM: p.spacingM,
-            geometryFactor: lv.kirkhamG,
-          });
+          const qk = lv.kirkham0 + (lv.kirkham1 * surface) / 1000;
           if (qk > q) q = qk;
           air -= recharge;
           dq = Math.min(q * 1000 * dt, capacityMm, outletAir - air);

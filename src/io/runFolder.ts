@@ -5,7 +5,9 @@
  */
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import type { RatingFit } from '../nitrate/types.js';
+import type { ComparisonRow } from '../scenarios/compare.js';
 import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
@@ -65,28 +67,25 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
   return cols;
 }
 
-/** All scenarios' daily columns stacked (scenarios one after another), in the order of the run. */
-export function dailyTable(run: RunOutput): Column[] {
+/**
+ * daily.csv: every scenario's daily columns, one scenario after another. Pool columns exist only
+ * for the pool model, so the columns every scenario has are kept, in the first one's order.
+ */
+export function dailyCsv(run: RunOutput, units: UnitSystem): string {
   const per = run.scenarios.map((s) => dailyColumns(run, s));
-  if (per.length === 0) return [];
-  // Pool columns exist only for the pool model: keep the columns every scenario has, by name.
+  if (per.length === 0) return '';
   const names = per[0]
     .map((c) => c.name)
     .filter((name) => per.every((cols) => cols.some((c) => c.name === name)));
-  return names.map((name) => {
-    const parts = per.map((cols) => cols.find((c) => c.name === name)!.values);
-    if (typeof parts[0][0] === 'number') {
-      const total = parts.reduce((k, p) => k + p.length, 0);
-      const out = new Float64Array(total);
-      let k = 0;
-      for (const p of parts) {
-        out.set(p as ArrayLike<number>, k);
-        k += p.length;
-      }
-      return { name, values: out };
-    }
-    return { name, values: parts.flatMap((p) => Array.from(p as ReadonlyArray<string>)) };
-  });
+  return per
+    .map((cols, k) =>
+      columnsToCsv(
+        names.map((n) => cols.find((c) => c.name === n)!),
+        units,
+        k === 0,
+      ),
+    )
+    .join('');
 }
 
 /** Mean of every numeric measure over the annual rows of one scenario. */
@@ -102,13 +101,8 @@ export function annualMean(rows: AnnualRow[]): Record<string, number> {
   // Flow-weighted over the whole period, not the mean of yearly ratios.
   const flow = rows.reduce((s, r) => s + r.drainflow_mm, 0);
   const load = rows.reduce((s, r) => s + r.no3_load_kg_ha, 0);
-  out.fwmc_mg_l = flow > 0 ? (100 * load) / flow : 0;
+  out.fwmc_mg_l = flowWeightedMeanMgL(load, flow);
   return out;
-}
-
-/** Percent change of b against a (null when a is zero). */
-export function percentChange(a: number, b: number): number | null {
-  return a === 0 ? null : (100 * (b - a)) / Math.abs(a);
 }
 
 /** The summary document: inputs, period, resolved parameters and annual means per scenario. */
@@ -116,10 +110,8 @@ export function buildSummary(
   run: RunOutput,
   meta: RunMeta,
   units: UnitSystem,
-  extra: Record<string, unknown> = {},
+  comparison: readonly ComparisonRow[],
 ) {
-  const base = run.scenarios.find((s) => s.spec.name === run.baseline);
-  const baseMean = base ? annualMean(base.annual) : {};
   return {
     tool: { name: 'tileflux', version: VERSION },
     units: units === 'si' ? 'SI (m, mm, kg/ha, mg/L)' : 'US customary (ft, in, lb/ac, mg/L)',
@@ -147,21 +139,11 @@ export function buildSummary(
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => {
       const mean = annualMean(s.annual);
-      const change: Record<string, number | null> = {};
-      for (const k of [
-        'drainflow_mm',
-        'runoff_mm',
-        'et_mm',
-        'seepage_mm',
-        'no3_load_kg_ha',
-        'fwmc_mg_l',
-        'wet_days',
-      ]) {
-        change[`${k.replace(/_(mm|kg_ha|mg_l)$/, '')}_change_percent`] = percentChange(
-          baseMean[k] ?? 0,
-          mean[k] ?? 0,
-        );
-      }
+      // Percent changes against the baseline, as in comparison.csv.
+      const row = comparison.find((r) => r.scenario === s.spec.name);
+      const change = Object.fromEntries(
+        Object.entries(row ?? {}).filter(([k]) => k.endsWith('_change_percent')),
+      );
       return {
         name: s.spec.name,
         description: s.spec.description,
@@ -190,7 +172,7 @@ export function buildSummary(
         ),
       };
     }),
-    ...extra,
+    comparison: comparison.map((r) => recordIn(r as unknown as Record<string, unknown>, units)),
   };
 }
 
@@ -201,7 +183,7 @@ export function writeRunFiles(
   summary: unknown,
   units: UnitSystem,
 ): void {
-  writeFileSync(join(dir, 'daily.csv'), columnsToCsv(dailyTable(run), units));
+  writeFileSync(join(dir, 'daily.csv'), dailyCsv(run, units));
   const annual = run.scenarios.flatMap((s) => s.annual) as unknown as Array<
     Record<string, string | number>
   >;

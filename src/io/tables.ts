@@ -88,11 +88,16 @@ function field(text: string): string {
 }
 
 /**
- * CSV text for a columnar table (all columns the same length), converted to the unit system.
+ * CSV text for a columnar table (all columns the same length), converted to the unit system,
+ * with or without the header line (to append tables with the same columns).
  * Built line by line from typed arrays: the daily table of a 30-year, three-scenario run has
  * about a million cells, and one object per row would cost more in garbage than in formatting.
  */
-export function columnsToCsv(columns: ReadonlyArray<Column>, units: UnitSystem): string {
+export function columnsToCsv(
+  columns: ReadonlyArray<Column>,
+  units: UnitSystem,
+  header = true,
+): string {
   if (columns.length === 0) return '';
   const conv = columns.map((c) => {
     const u = columnIn(c.name, units);
@@ -104,7 +109,9 @@ export function columnsToCsv(columns: ReadonlyArray<Column>, units: UnitSystem):
     };
   });
   const n = columns[0].values.length;
-  const lines: string[] = [stringify([conv.map((c) => c.name)]).replace(/\r?\n$/, '')];
+  const lines: string[] = header
+    ? [stringify([conv.map((c) => c.name)]).replace(/\r?\n$/, '')]
+    : [];
   const cache = new Map<string, string>();
   const cell = new Array<string>(conv.length);
   for (let i = 0; i < n; i++) {

@@ -8,6 +8,7 @@
  * - stress_days: growing-season days with the FAO-56 water-stress coefficient Ks below 1.
  */
 import type { EngineForcing, EngineResult } from '../engine/types.js';
+import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import type { NitrateResult } from '../nitrate/types.js';
 import type { Field } from './fieldSchema.js';
 import type { AnnualRow } from './types.js';
@@ -39,7 +40,7 @@ export function annualRows(
   const close = () => {
     if (!row) return;
     row.wt_mean_depth_m = wtSum / row.days;
-    row.fwmc_mg_l = row.drainflow_mm > 0 ? (100 * row.no3_load_kg_ha) / row.drainflow_mm : 0;
+    row.fwmc_mg_l = flowWeightedMeanMgL(row.no3_load_kg_ha, row.drainflow_mm);
     rows.push(row);
   };
   for (let i = start; i < end; i++) {

@@ -45,22 +45,11 @@ describe('tileflux run', () => {
   it('writes daily.csv, annual.csv and summary.json; same inputs give byte-identical files', () => {
     const a = join(dir, 'a');
     const b = join(dir, 'b');
-    const args = [
-      FIELD,
-      '--weather',
-      WEATHER,
-      '--from',
-      '2001-01-01',
-      '--to',
-      '2005-12-31',
-      '--no-charts',
-      '--no-report',
-    ];
-    const r1 = tileflux('run', ...args, '--out', a);
+    const r1 = quickRun(2001, 2005, a);
     expect(r1.stderr).toBe('');
     expect(r1.code).toBe(0);
     expect(r1.stdout).toMatch(/conventional/);
-    expect(tileflux('run', ...args, '--out', b).code).toBe(0);
+    expect(quickRun(2001, 2005, b).code).toBe(0);
     for (const f of ['daily.csv', 'annual.csv', 'summary.json']) {
       expect(readFileSync(join(a, f)).equals(readFileSync(join(b, f)))).toBe(true);
     }
@@ -86,21 +75,7 @@ describe('tileflux run', () => {
   });
 
   it('--json prints the summary alone on stdout', () => {
-    const r = tileflux(
-      'run',
-      FIELD,
-      '--weather',
-      WEATHER,
-      '--from',
-      '2001-01-01',
-      '--to',
-      '2002-12-31',
-      '--out',
-      join(dir, 'j'),
-      '--json',
-      '--no-charts',
-      '--no-report',
-    );
+    const r = quickRun(2001, 2002, join(dir, 'j'), '--json');
     expect(r.code).toBe(0);
     const s = JSON.parse(r.stdout);
     expect(s.scenarios.map((x: { name: string }) => x.name)).toEqual([

@@ -11,8 +11,8 @@ import { TilefluxError } from '../../errors.js';
 import { readFieldFile } from '../../io/field.js';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { buildSummary, writeRunFiles, annualMean, type RunMeta } from '../../io/runFolder.js';
-import { recordIn, toCsv } from '../../io/tables.js';
+import { buildSummary, writeRunFiles, type RunMeta } from '../../io/runFolder.js';
+import { columnIn, toCsv } from '../../io/tables.js';
 import { buildChartSpecs } from '../../report/charts.js';
 import { writeCharts, writeReport } from '../../report/index.js';
 import { wetnessChangeLines } from '../../report/summary.js';
@@ -98,23 +98,18 @@ export function runFromFiles(
 }
 
 /** Human summary table: one line per scenario with flow, load and wetness against the baseline. */
-export function headline(run: RunOutput, units: UnitSystem): string {
-  const us = units === 'us';
-  const base = run.scenarios.find((s) => s.spec.name === run.baseline);
-  const bm = base ? annualMean(base.annual) : undefined;
-  const flowU = us ? 'in/yr' : 'mm/yr';
-  const loadU = us ? 'lb N/ac/yr' : 'kg N/ha/yr';
+export function headline(comparison: readonly ComparisonRow[], units: UnitSystem): string {
+  const flow = columnIn('drainflow_mm', units);
+  const load = columnIn('no3_load_kg_ha', units);
+  const flowU = units === 'us' ? 'in/yr' : 'mm/yr';
+  const loadU = units === 'us' ? 'lb N/ac/yr' : 'kg N/ha/yr';
+  const pct = (x: number | null) => (x === null ? '' : `${x >= 0 ? '+' : ''}${fmt(x, 0)}%`);
   const lines = [
     `${'scenario'.padEnd(16)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'wet days/yr'.padStart(12)}`,
   ];
-  for (const s of run.scenarios) {
-    const m = annualMean(s.annual);
-    const flow = us ? m.drainflow_mm / 25.4 : m.drainflow_mm;
-    const load = us ? m.no3_load_kg_ha * 0.892179 : m.no3_load_kg_ha;
-    const pct = (a: number | undefined, b: number) =>
-      a === undefined || a === 0 ? '' : `${b >= a ? '+' : ''}${fmt((100 * (b - a)) / a, 0)}%`;
+  for (const r of comparison) {
     lines.push(
-      `${s.spec.name.slice(0, 16).padEnd(16)} ${fmt(flow, us ? 2 : 0).padStart(18)} ${pct(bm?.drainflow_mm, m.drainflow_mm).padStart(8)} ${fmt(load, 1).padStart(22)} ${pct(bm?.no3_load_kg_ha, m.no3_load_kg_ha).padStart(8)} ${fmt(m.wet_days, 1).padStart(12)}`,
+      `${r.scenario.slice(0, 16).padEnd(16)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.wet_days, 1).padStart(12)}`,
     );
   }
   return lines.join('\n');
@@ -132,7 +127,7 @@ export function runReport(
   const lines = [
     `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
     '',
-    headline(run, units),
+    headline(comparison, units),
     '',
     ...wetnessChangeLines(comparison, units),
     '',
@@ -172,9 +167,7 @@ export async function writeRunFolder(
 }> {
   const comparison = comparisonOf(run);
   const chartYear = chartYearOf(run, o.year);
-  const summary = buildSummary(run, meta, units, {
-    comparison: comparison.map((r) => recordIn(r as unknown as Record<string, unknown>, units)),
-  });
+  const summary = buildSummary(run, meta, units, comparison);
   const written = ['daily.csv', 'annual.csv', 'comparison.csv', 'summary.json'];
   await writeDirAtomic(out, Boolean(o.force), async (dir) => {
     writeRunFiles(dir, run, summary, units);
