@@ -299,6 +299,21 @@ export const fieldSchema = z
         'Named overrides of the base field (soil, drains, outlet, crops, initial, nitrate); the first is the baseline. Without it: conventional, shallow and controlled are derived',
       ),
   })
+  .superRefine((f, ctx) => {
+    // Hooghoudt's and Kirkham's equations need flow below the drains: the pipe must lie above
+    // the restrictive layer by more than its radius.
+    const below = f.soil.restrictiveLayerDepth - f.drains.depth;
+    if (below <= f.drains.radius) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['drains', 'depth'],
+        message:
+          `must lie above the restrictive layer (soil.restrictiveLayerDepth, ` +
+          `${f.soil.restrictiveLayerDepth} m) by more than the drain radius (${f.drains.radius} m); ` +
+          `got ${f.drains.depth} m`,
+      });
+    }
+  })
   .describe('A drained field');
 
 export type FieldInput = z.input<typeof fieldSchema>;

@@ -124,3 +124,11 @@ describe('scenario nitrate overrides', () => {
     expect(f.scenarios[2].field.nitrate).toMatchObject({ model: 'fixed', concentrationMgL: 8 });
   });
 });
+
+describe('layout checks across keys', () => {
+  it('drains below the restrictive layer are located at drains.depth', () => {
+    expect(messageOf(GOOD.replace('2.5 m', '1.0 m'))).toMatch(
+      /line 6, column \d+: drains\.depth must lie above the restrictive layer \(soil\.restrictiveLayerDepth, 1 m\)/,
+    );
+  });
+});
