@@ -1,5 +1,5 @@
 /**
- * Drain design equations (DESIGN.md section 4): equivalent depth, Hooghoudt steady-state flux
+ * Drain design equations: equivalent depth, Hooghoudt steady-state flux
  * and spacing, drainage intensity, Kirkham's ponded-surface rate, Glover-Dumm drawdown and
  * spacing, Manning pipe capacity and commercial pipe sizes. Pure functions, SI units (m, m/d,
  * m3/s), no Node imports.
@@ -53,3 +53,17 @@ export {
   type SelectedPipe,
 } from './pipeSizes.js';
 export { solveSpacing, type SpacingRoot } from './spacingRoot.js';
+export {
+  drainageCoefficient,
+  parseCoefficientPreset,
+  DEFAULT_COEFFICIENT_PRESET,
+  DRAINAGE_COEFFICIENT_SOURCE,
+  COEFFICIENT_SOILS,
+  COEFFICIENT_CROPS,
+  COEFFICIENT_INLETS,
+  type CoefficientPreset,
+  type CoefficientSoil,
+  type CoefficientCrop,
+  type CoefficientInlets,
+  type DrainageCoefficient,
+} from './drainageCoefficient.js';

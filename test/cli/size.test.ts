@@ -9,6 +9,7 @@ beforeAll(() => {
     'src/cli/commands/spacing.ts',
     'src/drainage/manning.ts',
     'src/drainage/pipeSizes.ts',
+    'src/drainage/drainageCoefficient.ts',
   ]);
 }, 180_000);
 
@@ -86,6 +87,25 @@ describe('tileflux size', () => {
     expect([6, 8, 10, 12, 14]).toContain(out.selected_diameter_in);
   });
 
+  it('--coefficient uses the middle of the tabulated range: mineral field none = 7/16 in/d (common practice, from memory)', () => {
+    const out = json([...LATERAL, '--coefficient', 'mineral field none']);
+    const byRate = json([...LATERAL, '--rate', `${7 / 16} in/d`]);
+    expect(out.rate_mm_d).toBeCloseTo((7 / 16) * 25.4, 12);
+    expect(out.flow_m3_s).toBeCloseTo(byRate.flow_m3_s, 15);
+    expect(out.selected_diameter_in).toBe(byRate.selected_diameter_in);
+    expect(out.coefficient).toMatchObject({
+      soil: 'mineral',
+      crop: 'field',
+      inlets: 'none',
+      low_mm_d: expect.closeTo(9.525, 9),
+      high_mm_d: expect.closeTo(12.7, 9),
+    });
+    const r = cli([...LATERAL, '--coefficient', 'organic truck open']);
+    expect(r.stdout).toMatch(
+      /2\.7500 in\/d = 69\.85 mm\/d \(organic soil, truck crops, inlets open/,
+    );
+  });
+
   it('human output: inputs as given, result, method and caution; --units us', () => {
     const r = cli([...LATERAL, '--rate', '0.375 in/d']);
     expect(r.status).toBe(0);
@@ -128,6 +148,17 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
       /--length needs --spacing/,
     ],
     ['no area', ['size', '--rate', '10', '--slope', '0.001'], /give the drained area/],
+    ['no rate', ['size', '--area', '1', '--slope', '0.001'], /give the drainage rate: --rate/],
+    [
+      'rate and coefficient',
+      ['size', '--area', '1', '--slope', '0.001', '--rate', '10', '--coefficient', 'organic'],
+      /--rate or --coefficient, not both/,
+    ],
+    [
+      'unknown coefficient word',
+      ['size', '--area', '1', '--slope', '0.001', '--coefficient', 'sandy'],
+      /--coefficient: does not know "sandy"/,
+    ],
     [
       'roughness and material',
       [

@@ -13,6 +13,12 @@ import {
   pipeSizeList,
   ROUGHNESS,
   selectPipeSize,
+  drainageCoefficient,
+  parseCoefficientPreset,
+  COEFFICIENT_CROPS,
+  COEFFICIENT_INLETS,
+  COEFFICIENT_SOILS,
+  type DrainageCoefficient,
   type PipeMaterial,
 } from '../../drainage/index.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
@@ -32,6 +38,7 @@ interface SizeFlags {
   length?: string;
   spacing?: string;
   rate?: string;
+  coefficient?: string;
   slope?: string;
   roughness?: string;
   material?: string;
@@ -116,11 +123,37 @@ function drainedArea(o: SizeFlags): {
   };
 }
 
+/** The design rate in mm/d from --rate, or from the --coefficient preset's tabulated value. */
+function designRate(o: SizeFlags): { mmPerDay: number; text: string; table?: DrainageCoefficient } {
+  if (o.rate !== undefined && o.coefficient !== undefined) {
+    throw new TilefluxError('give --rate or --coefficient, not both');
+  }
+  if (o.coefficient !== undefined) {
+    const c = drainageCoefficient(parseCoefficientPreset(o.coefficient, '--coefficient'));
+    const p = c.preset;
+    return {
+      mmPerDay: c.mmPerDay,
+      table: c,
+      text:
+        `${fmt(c.inPerDay, 4)} in/d = ${fmt(c.mmPerDay, 2)} mm/d (${p.soil} soil, ${p.crop} crops, ` +
+        `inlets ${p.inlets}: tabulated ${fmt(c.lowInPerDay, 3)}-${fmt(c.highInPerDay, 3)} in/d, middle used)`,
+    };
+  }
+  if (o.rate === undefined) {
+    throw new TilefluxError(
+      'give the drainage rate: --rate (e.g. "0.5 in/d") or --coefficient (e.g. "mineral field none")',
+    );
+  }
+  const mmPerDay = requiredQuantity(o.rate, 'rate', '--rate');
+  if (!(mmPerDay > 0)) throw new TilefluxError(`--rate must be greater than 0; got ${o.rate}`);
+  return { mmPerDay, text: echo(o.rate, mmPerDay, 'mm/d', 2) };
+}
+
 function run(o: SizeFlags): void {
   const units: UnitSystem = parseUnits(o.units);
   const area = drainedArea(o);
-  const rateMmPerDay = requiredQuantity(o.rate, 'rate', '--rate');
-  if (!(rateMmPerDay > 0)) throw new TilefluxError(`--rate must be greater than 0; got ${o.rate}`);
+  const rate = designRate(o);
+  const rateMmPerDay = rate.mmPerDay;
   const slope = requiredQuantity(o.slope, 'slope', '--slope');
   if (!(slope > 0)) {
     throw new TilefluxError(
@@ -143,6 +176,16 @@ function run(o: SizeFlags): void {
     area_ha: area.m2 / 10000,
     ...(area.lengthM !== undefined ? { length_m: area.lengthM, spacing_m: area.spacingM } : {}),
     rate_mm_d: rateMmPerDay,
+    ...(rate.table !== undefined
+      ? {
+          coefficient: {
+            ...rate.table.preset,
+            low_mm_d: rate.table.lowMmPerDay,
+            high_mm_d: rate.table.highMmPerDay,
+            source: rate.table.source,
+          },
+        }
+      : {}),
     slope_m_m: slope,
     roughness: rough.n,
     flow_m3_s: flowM3s,
@@ -175,7 +218,7 @@ function run(o: SizeFlags): void {
           'Inputs',
           [
             ['drained area', area.text],
-            ['drainage rate', echo(o.rate, rateMmPerDay, 'mm/d', 2)],
+            ['drainage rate', rate.text],
             ['grade', `${echo(o.slope, slope, 'm/m', 4)}`],
             ['roughness n', rough.label],
             ['sizes', `${sizes.nominal.join(', ')} ${sizes.unit}; ${sizes.source}`],
@@ -213,19 +256,38 @@ function run(o: SizeFlags): void {
   );
 }
 
+/** The drainage-coefficient table, one line per soil and crop, for --help. */
+function coefficientTable(): string {
+  return COEFFICIENT_SOILS.flatMap((soil) =>
+    COEFFICIENT_CROPS.map(
+      (crop) =>
+        `  ${`${soil} ${crop}`.padEnd(14)}` +
+        COEFFICIENT_INLETS.map((inlets) => {
+          const c = drainageCoefficient({ soil, crop, inlets });
+          return `${inlets} ${fmt(c.lowInPerDay, 3)}-${fmt(c.highInPerDay, 3)}`;
+        }).join(', '),
+    ),
+  ).join('\n');
+}
+
 const HELP = `
 Examples:
   A lateral 400 m long draining a 20 m strip at 3/8 inch per day on a 0.2 % grade:
     tileflux size --length 400 --spacing 20 --rate "0.375 in/d" --slope "0.2 %"
   A main serving 16 ha at 12 mm/d, smooth pipe, metric sizes:
     tileflux size --area 16 --rate 12 --slope 0.001 --material smooth --sizes mm
+  The same lateral at the tabulated coefficient for vegetables on an organic soil with blind inlets:
+    tileflux size --length 400 --spacing 20 --coefficient "organic truck blind" --slope "0.2 %"
   Your own list of inside diameters:
     tileflux size --area "40 ac" --rate "0.5 in/d" --slope "0.1 %" --sizes "6,8,10,12 in" --units us
 
 The design flow is the drained area times the drainage rate (drainage coefficient); common
 practice for field crops on mineral soils without surface inlets is 3/8 to 1/2 inch per day,
-more for organic soils, vegetables and fields with surface inlets. Nominal sizes are taken as
-inside diameters.
+more for organic soils, vegetables and fields with surface inlets. --coefficient takes words for
+the soil (mineral|organic), crop (field|truck) and surface inlets (none|blind|open) and uses the
+middle of the tabulated range (in/d; common practice, from memory; field files use the same table):
+${coefficientTable()}
+Nominal sizes are taken as inside diameters.
 
 ${CAUTION}`;
 
@@ -243,6 +305,10 @@ export function registerSize(program: Command): void {
     .option('--length <length>', 'length of the lateral, m')
     .option('--spacing <length>', 'drain spacing (width drained by the lateral), m')
     .option('--rate <rate>', 'drainage rate (drainage coefficient), mm/d')
+    .option(
+      '--coefficient <words>',
+      'tabulated drainage coefficient instead of --rate: soil, crop, inlets (e.g. "mineral field none")',
+    )
     .option('--slope <slope>', 'pipe grade, m/m (e.g. 0.002 or "0.2 %")')
     .option('--roughness <n>', 'Manning n (overrides --material)')
     .option('--material <kind>', 'corrugated (n 0.015) or smooth (n 0.012); default corrugated')
