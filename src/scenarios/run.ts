@@ -10,7 +10,7 @@ import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { cropCalendar } from '../engine/cropCalendar.js';
 import { outletSeries } from '../engine/outletSchedule.js';
 import { simulate } from '../engine/simulate.js';
-import type { CropCalendar, EngineForcing, EngineResult } from '../engine/types.js';
+import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from '../engine/types.js';
 import { simulateNitrate } from '../nitrate/index.js';
 import type { NitrateResult } from '../nitrate/types.js';
 import { annualRows } from './annual.js';
@@ -158,6 +158,125 @@ export function reportPeriod(
 }
 
 /**
+ * The forcing of one weather record over one simulated period, computed once (snow, reference
+ * ET, mean temperature) and shared by every engine run on it: the scenarios of a run, or the
+ * candidate parameter sets of a fit or a sweep.
+ */
+export interface PreparedPeriod {
+  /** Forcing over the whole simulated period (warm-up included). */
+  forcing: EngineForcing;
+  refEtMethod: EtMethod;
+  from: string;
+  to: string;
+  warmupYears: number;
+  /** Index of `from` in `forcing.dates` (the first reported day). */
+  reportStart: number;
+}
+
+/** A scenario on a prepared period: its crop calendar and outlet series, computed once. */
+export interface PreparedScenario {
+  spec: ScenarioSpec;
+  calendar: CropCalendar;
+  outlet: Float64Array;
+}
+
+/**
+ * Prepare once: cut the weather to the simulated period (warm-up years before `from`) and
+ * compute its forcing.
+ * @example const period = preparePeriod(weather, field.base.site, { warmupYears: 1 });
+ */
+export function preparePeriod(
+  weather: WeatherSeries,
+  site: { latitude: number; elevation: number },
+  o: Pick<RunOptions, 'from' | 'to' | 'warmupYears'> = {},
+): PreparedPeriod {
+  const { from, to, warmupYears } = reportPeriod(weather.dates, o);
+  const simFrom = `${Number(from.slice(0, 4)) - warmupYears}${from.slice(4)}`;
+  const a0 = indexOf(weather.dates, simFrom);
+  const b0 = indexOf(weather.dates, to) + 1;
+  const sim = {
+    ...weather,
+    dates: weather.dates.slice(a0, b0),
+    precipMm: weather.precipMm.slice(a0, b0),
+    tmaxC: weather.tmaxC.slice(a0, b0),
+    tminC: weather.tminC.slice(a0, b0),
+    petMm: weather.petMm?.slice(a0, b0),
+    solarMJm2: weather.solarMJm2?.slice(a0, b0),
+    rhMeanPct: weather.rhMeanPct?.slice(a0, b0),
+    wind2mMs: weather.wind2mMs?.slice(a0, b0),
+  };
+  const { forcing, method } = forcingOf(sim, site.latitude, site.elevation);
+  return {
+    forcing,
+    refEtMethod: method,
+    from,
+    to,
+    warmupYears,
+    reportStart: indexOf(forcing.dates, from),
+  };
+}
+
+/** The crop calendar and outlet series of a scenario on a prepared period. */
+export function prepareScenario(period: PreparedPeriod, spec: ScenarioSpec): PreparedScenario {
+  const dates = period.forcing.dates;
+  return {
+    spec,
+    calendar: cropCalendar(dates, spec.rotation, spec.crops),
+    outlet: outletSeries(dates, spec.outlet),
+  };
+}
+
+/**
+ * Run many: the engine alone over the whole simulated period (warm-up included), with the
+ * scenario's parameters or changed ones.
+ * @example runEngine(period, prepared, { ...prepared.spec.params, kAboveMPerDay: 0.8 }).drainflowMm
+ */
+export function runEngine(
+  period: PreparedPeriod,
+  prepared: PreparedScenario,
+  params: EngineParams = prepared.spec.params,
+): EngineResult {
+  return simulate(period.forcing, prepared.calendar, prepared.outlet, params);
+}
+
+/** A scenario's full output over the reported period: engine, nitrate model and annual table. */
+export function runPreparedScenario(
+  period: PreparedPeriod,
+  prepared: PreparedScenario,
+): ScenarioOutput {
+  const { forcing, reportStart: a } = period;
+  const { spec, calendar } = prepared;
+  const b = forcing.dates.length;
+  const engine = runEngine(period, prepared);
+  const nitrate = simulateNitrate(
+    {
+      dates: forcing.dates,
+      drainflowMm: engine.drainflowMm,
+      runoffMm: engine.runoffMm,
+      seepageMm: engine.seepageMm,
+      tmeanC: forcing.tmeanC,
+      saturatedFraction: engine.saturatedFraction,
+      waterTableDepthM: engine.waterTableDepthM,
+      calendar,
+    },
+    spec.nitrate,
+  );
+  const e = sliceColumns(engine, a, b);
+  const n = sliceColumns(nitrate, a, b);
+  const c = sliceColumns(calendar, a, b);
+  const annual = annualRows(
+    spec.name,
+    sliceForcing(forcing, a, b),
+    e,
+    n,
+    spec.field.wetness,
+    0,
+    b - a,
+  );
+  return { spec, calendar: c, engine: e, nitrate: n, annual };
+}
+
+/**
  * Run every scenario of a field over a weather record.
  * @example const out = runField(readFieldFile('field.yaml'), readWeatherFile('w.csv').series, {});
  */
@@ -177,57 +296,19 @@ export function runField(
     }
     specs = specs.filter((s) => o.only!.includes(s.name));
   }
-  const { from, to, warmupYears } = reportPeriod(weather.dates, o);
-  const simFrom = `${Number(from.slice(0, 4)) - warmupYears}${from.slice(4)}`;
-  const a0 = indexOf(weather.dates, simFrom);
-  const b0 = indexOf(weather.dates, to) + 1;
-  const sim = {
-    ...weather,
-    dates: weather.dates.slice(a0, b0),
-    precipMm: weather.precipMm.slice(a0, b0),
-    tmaxC: weather.tmaxC.slice(a0, b0),
-    tminC: weather.tminC.slice(a0, b0),
-    petMm: weather.petMm?.slice(a0, b0),
-    solarMJm2: weather.solarMJm2?.slice(a0, b0),
-    rhMeanPct: weather.rhMeanPct?.slice(a0, b0),
-    wind2mMs: weather.wind2mMs?.slice(a0, b0),
-  };
-  const { forcing, method } = forcingOf(sim, field.base.site.latitude, field.base.site.elevation);
-  const a = indexOf(forcing.dates, from);
-  const b = forcing.dates.length;
-  const reportedForcing = sliceForcing(forcing, a, b);
-
+  const period = preparePeriod(weather, field.base.site, o);
+  const { forcing, reportStart } = period;
   const scenarios: ScenarioOutput[] = specs.map((spec, k) => {
     o.onScenario?.(k, specs.length, spec.name);
-    const calendar = cropCalendar(forcing.dates, spec.rotation, spec.crops);
-    const outlet = outletSeries(forcing.dates, spec.outlet);
-    const engine = simulate(forcing, calendar, outlet, spec.params);
-    const nitrate = simulateNitrate(
-      {
-        dates: forcing.dates,
-        drainflowMm: engine.drainflowMm,
-        runoffMm: engine.runoffMm,
-        seepageMm: engine.seepageMm,
-        tmeanC: forcing.tmeanC,
-        saturatedFraction: engine.saturatedFraction,
-        waterTableDepthM: engine.waterTableDepthM,
-        calendar,
-      },
-      spec.nitrate,
-    );
-    const e = sliceColumns(engine, a, b);
-    const n = sliceColumns(nitrate, a, b);
-    const c = sliceColumns(calendar, a, b);
-    const annual = annualRows(spec.name, reportedForcing, e, n, spec.field.wetness, 0, b - a);
-    return { spec, calendar: c, engine: e, nitrate: n, annual };
+    return runPreparedScenario(period, prepareScenario(period, spec));
   });
 
   return {
-    forcing: reportedForcing,
-    refEtMethod: method,
-    from,
-    to,
-    warmupYears,
+    forcing: sliceForcing(forcing, reportStart, forcing.dates.length),
+    refEtMethod: period.refEtMethod,
+    from: period.from,
+    to: period.to,
+    warmupYears: period.warmupYears,
     simulatedFrom: forcing.dates[0],
     baseline: specs[0]?.name ?? '',
     scenarios,

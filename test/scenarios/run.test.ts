@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { parseField } from '../../src/io/field.js';
 import { readWeatherFile } from '../../src/io/weather.js';
-import { runField } from '../../src/scenarios/run.js';
+import {
+  preparePeriod,
+  prepareScenario,
+  runEngine,
+  runField,
+  scenariosOf,
+} from '../../src/scenarios/run.js';
 import { annualMean } from '../../src/io/runFolder.js';
 
 // Real daily weather: the vega-datasets package's weather.csv (Seattle and New York, 2012-2015,
@@ -117,4 +123,28 @@ describe('every nitrate model through a run', () => {
       }
     });
   }
+});
+
+describe('prepare once, run many', () => {
+  it('the prepared period and engine give the same daily results as runField', () => {
+    const w = readWeatherFile(WEATHER, {
+      columns,
+      where: { column: 'location', value: 'New York' },
+    });
+    const f = parseField(field(40.7), 'f.yaml');
+    const run = runField(f, w.series, { warmupYears: 1 });
+    const period = preparePeriod(w.series, f.base.site, { warmupYears: 1 });
+    expect(period.forcing.dates[period.reportStart]).toBe(run.from);
+    const specs = scenariosOf(f);
+    for (const [k, spec] of specs.entries()) {
+      const prepared = prepareScenario(period, spec);
+      const e = runEngine(period, prepared);
+      const reported = e.drainflowMm.slice(period.reportStart);
+      expect(Array.from(reported)).toEqual(Array.from(run.scenarios[k].engine.drainflowMm));
+      // Changed parameters change the result; the prepared inputs are not altered by a run.
+      const wetter = runEngine(period, prepared, { ...spec.params, kAboveMPerDay: 0.2 });
+      expect(wetter.drainflowMm).not.toEqual(e.drainflowMm);
+      expect(runEngine(period, prepared).drainflowMm).toEqual(e.drainflowMm);
+    }
+  });
 });
