@@ -21,6 +21,13 @@ export * from './scenarios/fieldSchema.js';
 export * from './scenarios/resolve.js';
 export * from './scenarios/annual.js';
 export * from './scenarios/run.js';
+export {
+  prepareField,
+  runDesign,
+  type PreparedField,
+  type DesignSpec,
+  type DesignRun,
+} from './scenarios/prepared.js';
 export * from './scenarios/compare.js';
 export * from './scenarios/starter.js';
 export * from './report/charts.js';

@@ -102,3 +102,54 @@ export function dayOfYearSeries(dates: readonly string[]): Uint16Array {
   }
   return out;
 }
+
+/**
+ * Integer calendar fields of every day of a series, read once from the ISO text so that daily
+ * loops never touch strings: the year, the month (1-12), the day of the month and the month-day
+ * key `month * 100 + day` (e.g. 1025 for 25 October), which orders like "MM-DD" text.
+ */
+export interface DayIndex {
+  year: Int32Array;
+  month: Uint8Array;
+  dayOfMonth: Uint8Array;
+  monthDay: Uint16Array;
+}
+
+/** Two ASCII digits at `at` as a number. */
+function digits2(s: string, at: number): number {
+  return (s.charCodeAt(at) - 48) * 10 + (s.charCodeAt(at + 1) - 48);
+}
+
+/**
+ * The integer calendar fields of ISO dates `YYYY-MM-DD` (four-digit years).
+ *
+ * @example dayIndexOf(['2024-10-25']).monthDay // Uint16Array [1025]
+ */
+export function dayIndexOf(dates: readonly string[]): DayIndex {
+  const n = dates.length;
+  const out: DayIndex = {
+    year: new Int32Array(n),
+    month: new Uint8Array(n),
+    dayOfMonth: new Uint8Array(n),
+    monthDay: new Uint16Array(n),
+  };
+  for (let i = 0; i < n; i++) {
+    const s = dates[i];
+    out.year[i] = digits2(s, 0) * 100 + digits2(s, 2);
+    const m = digits2(s, 5);
+    const d = digits2(s, 8);
+    out.month[i] = m;
+    out.dayOfMonth[i] = d;
+    out.monthDay[i] = m * 100 + d;
+  }
+  return out;
+}
+
+/**
+ * The month-day key (`month * 100 + day`) of "MM-DD" text.
+ *
+ * @example monthDayKey('04-05') // 405
+ */
+export function monthDayKey(mmdd: string): number {
+  return digits2(mmdd, 0) * 100 + digits2(mmdd, 3);
+}

@@ -4,6 +4,7 @@
  * to Kc mid over the development stage, Kc mid in mid-season, a straight line to Kc end over the
  * late season, Kc end from maturity to harvest, and bare soil between harvest and planting.
  */
+import { dayIndexOf, type DayIndex } from '../climate/calendar.js';
 import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, type CropParams } from './crops.js';
 import type { CropCalendar } from './types.js';
 
@@ -38,11 +39,13 @@ export function kcOnDay(c: CropParams, t: number): number {
  * @param dates    ISO dates of the run
  * @param rotation crop names in order, e.g. ['corn', 'soybean']
  * @param crops    parameters of every crop named in the rotation
+ * @param days     `dayIndexOf(dates)`, when the caller has it already
  */
 export function cropCalendar(
-  dates: string[],
-  rotation: string[],
+  dates: readonly string[],
+  rotation: readonly string[],
   crops: Record<string, CropParams>,
+  days: DayIndex = dayIndexOf(dates),
 ): CropCalendar {
   const n = dates.length;
   const kc = new Float64Array(n);
@@ -51,14 +54,14 @@ export function cropCalendar(
   const seasonFraction = new Float64Array(n);
   const names = [...new Set(rotation)];
   if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names };
-  const firstYear = Number(dates[0].slice(0, 4));
+  const firstYear = days.year[0];
   let cachedYear = NaN;
   let plant = 0;
   let harvest = 0;
   let params: CropParams = crops[rotation[0]];
   let code = 0;
   for (let i = 0; i < n; i++) {
-    const year = Number(dates[i].slice(0, 4));
+    const year = days.year[i];
     if (year !== cachedYear) {
       cachedYear = year;
       const name =
@@ -68,7 +71,9 @@ export function cropCalendar(
       plant = monthDayOfYear(year, params.planting);
       harvest = monthDayOfYear(year, params.harvest);
     }
-    const doy = monthDayOfYear(year, dates[i].substring(5, 10));
+    const m = days.month[i];
+    const leap = (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+    const doy = CUMULATIVE_DAYS[m - 1] + days.dayOfMonth[i] + (leap && m > 2 ? 1 : 0);
     if (doy >= plant && doy < harvest) {
       kc[i] = kcOnDay(params, doy - plant);
       depletionFraction[i] = params.depletionFraction;

@@ -9,6 +9,8 @@
  * the drains).
  */
 
+import { dayIndexOf, monthDayKey, type DayIndex } from '../climate/calendar.js';
+
 export interface OutletStep {
   /** "MM-DD" for a yearly schedule, "YYYY-MM-DD" for a dated list. */
   from: string;
@@ -18,26 +20,38 @@ export interface OutletStep {
 
 export type OutletSchedule = 'free' | { steps: OutletStep[] };
 
+/** A sortable integer key of a step date: MMDD for "MM-DD", YYYYMMDD for "YYYY-MM-DD". */
+function stepKey(from: string): number {
+  return from.length === 5
+    ? monthDayKey(from)
+    : Number(from.slice(0, 4)) * 10000 + monthDayKey(from.slice(5));
+}
+
 /**
  * Daily outlet level for a schedule; NaN where the outlet is free.
+ * @param days `dayIndexOf(dates)`, when the caller has it already
  * @example outletSeries(['2020-11-01'], { steps: [{ from: '10-25', depthM: 0.3 }] }) // [0.3]
  */
-export function outletSeries(dates: string[], schedule: OutletSchedule): Float64Array {
+export function outletSeries(
+  dates: readonly string[],
+  schedule: OutletSchedule,
+  days: DayIndex = dayIndexOf(dates),
+): Float64Array {
   const out = new Float64Array(dates.length).fill(NaN);
   if (schedule === 'free' || schedule.steps.length === 0) return out;
   const yearly = schedule.steps[0].from.length === 5;
-  const steps = [...schedule.steps].sort((a, b) =>
-    a.from < b.from ? -1 : a.from > b.from ? 1 : 0,
-  );
+  const steps = schedule.steps
+    .map((s) => ({ key: stepKey(s.from), depth: s.depthM === null ? NaN : s.depthM }))
+    .sort((a, b) => a.key - b.key);
   for (let i = 0; i < dates.length; i++) {
-    const key = yearly ? dates[i].slice(5) : dates[i];
+    const key = yearly ? days.monthDay[i] : days.year[i] * 10000 + days.monthDay[i];
     // Latest step at or before the day; for a yearly schedule wrap to the last step of the year.
-    let active: OutletStep | undefined = yearly ? steps[steps.length - 1] : undefined;
+    let depth = yearly ? steps[steps.length - 1].depth : NaN;
     for (const s of steps) {
-      if (s.from <= key) active = s;
+      if (s.key <= key) depth = s.depth;
       else break;
     }
-    if (active && active.depthM !== null) out[i] = active.depthM;
+    out[i] = depth;
   }
   return out;
 }

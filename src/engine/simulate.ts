@@ -25,6 +25,7 @@
  * surface, snow) is computed from the states and its residual returned; a residual above
  * 1e-6 mm in any year is a defect and throws.
  */
+import { dayIndexOf } from '../climate/calendar.js';
 import { equivalentDepth } from '../drainage/equivalentDepth.js';
 import { kirkhamFlux, kirkhamGeometryFactor } from '../drainage/kirkham.js';
 import {
@@ -197,7 +198,8 @@ export function simulate(
   let swePrev = forcing.sweMm[0] - forcing.snowfallMm[0] + forcing.snowmeltMm[0];
 
   let yearError = 0;
-  let year = forcing.dates[0]?.slice(0, 4);
+  const years = (forcing.days ?? dayIndexOf(forcing.dates)).year;
+  let year = years[0];
 
   for (let i = 0; i < n; i++) {
     const waterIn = forcing.rainMm[i] + forcing.snowmeltMm[i];
@@ -319,7 +321,7 @@ export function simulate(
     out.saturatedFraction[i] = sat < 0 ? 0 : sat > 1 ? 1 : sat;
     out.balanceErrorMm[i] = err;
 
-    const y = forcing.dates[i].slice(0, 4);
+    const y = years[i];
     if (y !== year) {
       yearError = 0;
       year = y;

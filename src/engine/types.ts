@@ -4,10 +4,17 @@
  * day, aligned with `dates`.
  */
 
+import type { DayIndex } from '../climate/calendar.js';
+
 /** Daily forcing for one run, shared by every scenario over the same weather. */
 export interface EngineForcing {
   /** ISO dates YYYY-MM-DD, consecutive. */
   dates: string[];
+  /**
+   * The same dates as integer calendar fields (`dayIndexOf(dates)`), computed once and shared by
+   * every run over this forcing; computed by the engine when absent.
+   */
+  days?: DayIndex;
   /** Precipitation, mm/d (rain + snowfall). */
   precipMm: Float64Array;
   /** Rain reaching the surface, mm/d. */

@@ -7,6 +7,7 @@
  * DESIGN.md section 4). A year without drain flow has no drain water to weigh, and gets 0, the
  * convention of the annual table (src/scenarios/annual.ts).
  */
+import { dayIndexOf } from '../climate/calendar.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { NitrateResult } from './types.js';
 
@@ -46,8 +47,9 @@ export function annualNitrate(
 ): AnnualNitrate[] {
   const rows: AnnualNitrate[] = [];
   let row: AnnualNitrate | undefined;
+  const years = dayIndexOf(dates).year;
   for (let i = 0; i < dates.length; i++) {
-    const year = Number(dates[i].slice(0, 4));
+    const year = years[i];
     if (!row || row.year !== year) {
       row = {
         year,

@@ -13,7 +13,7 @@ export type {
   RatingPairs,
 } from './types.js';
 export { simulateNitrate } from './simulate.js';
-export { simulatePool } from './pool.js';
+export { simulatePool, poolForcingOf, type PoolForcing } from './pool.js';
 export { fitRating } from './fitRating.js';
 export { readRatingPairsCsv } from './ratingCsv.js';
 export { ratingConcentration } from './rating.js';

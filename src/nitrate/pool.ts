@@ -54,43 +54,43 @@ function uptakeByCode(crops: readonly string[], uptakeKgHa: Record<string, numbe
 }
 
 /**
- * Run the pool model over the daily series.
- *
- * @example
- * const r = simulatePool(input, DEFAULT_POOL_PARAMS);
- * r.pool.balanceErrorKgHa // ~1e-15 each day
+ * The terms of the pool model that depend only on the weather, the crop calendar and the
+ * parameters, not on the water regime: fertilizer, mineralization and uptake demand per day and
+ * the temperature factor of denitrification. Computed once, they serve every design run over the
+ * same forcing and calendar (a sweep, a fit); `simulatePool` computes them when not given.
+ * Every array is read only once handed out (results share them).
  */
-export function simulatePool(
-  input: NitrateInput,
+export interface PoolForcing {
+  /** Fertilizer and manure N applied, kg N/ha per day. */
+  fertilizerKgHa: Float64Array;
+  /** Net mineralization, M20 / 365.25 x Q10m^((T - 20)/10), kg N/ha per day. */
+  mineralizationKgHa: Float64Array;
+  /** Crop demand on the pool before the supply limit P / (P + K), kg N/ha per day. */
+  uptakeDemandKgHa: Float64Array;
+  /** Q10d^((T - 20)/10) of denitrification (0 in frozen soil). */
+  denitrificationTemperatureFactor: Float64Array;
+}
+
+/**
+ * The weather- and calendar-only terms of the pool model for a run.
+ *
+ * @example const f = poolForcingOf(input, DEFAULT_POOL_PARAMS); simulatePool(input, DEFAULT_POOL_PARAMS, f)
+ */
+export function poolForcingOf(
+  input: Pick<NitrateInput, 'dates' | 'tmeanC' | 'calendar' | 'days'>,
   p: PoolParams,
-): NitrateResult & { pool: NonNullable<NitrateResult['pool']> } {
+): PoolForcing {
   const n = input.dates.length;
-  const { drainflowMm, runoffMm, seepageMm, tmeanC, saturatedFraction, calendar } = input;
-  const W = p.mobileWaterMm;
-  const r = p.runoffExtractionRatio;
-  const K = p.uptakeHalfSaturationKgHa;
+  const { tmeanC, calendar } = input;
   const uptakeOf = uptakeByCode(calendar.crops, p.uptakeKgHa);
-  const fertilizerKgHa = dailyFertilizer(input.dates, p.fertilizer, calendar);
-
-  const concMgL = new Float64Array(n);
-  const loadKgHa = new Float64Array(n);
-  const runoffLoadKgHa = new Float64Array(n);
-  const seepageLoadKgHa = new Float64Array(n);
-  const poolKgHa = new Float64Array(n);
-  const profileConcMgL = new Float64Array(n);
   const mineralizationKgHa = new Float64Array(n);
-  const uptakeKgHa = new Float64Array(n);
-  const denitrificationKgHa = new Float64Array(n);
-  const balanceErrorKgHa = new Float64Array(n);
-
+  const uptakeDemandKgHa = new Float64Array(n);
+  const denitrificationTemperatureFactor = new Float64Array(n);
   const m20PerDay = p.mineralizationKgHaPerYear / DAYS_PER_YEAR;
-  let pool = p.initialPoolKgHa;
   for (let i = 0; i < n; i++) {
-    const start = pool;
     const t = tmeanC[i];
-    const mineral = m20PerDay * q10Factor(t, p.mineralizationQ10);
-    pool += fertilizerKgHa[i] + mineral;
-
+    mineralizationKgHa[i] = m20PerDay * q10Factor(t, p.mineralizationQ10);
+    denitrificationTemperatureFactor[i] = q10Factor(t, p.denitrificationQ10);
     // Uptake: this day's step along the crop's logistic curve (none on the first day of a run
     // that starts mid-season: that part of the season lies before the run).
     let demand = 0;
@@ -106,6 +106,54 @@ export function simulatePool(
           cumulativeUptakeFraction(sPrev, p.uptakeMidpoint, p.uptakeSteepness));
       if (demand < 0) demand = 0;
     }
+    uptakeDemandKgHa[i] = demand;
+  }
+  return {
+    fertilizerKgHa: dailyFertilizer(input.dates, p.fertilizer, calendar, input.days),
+    mineralizationKgHa,
+    uptakeDemandKgHa,
+    denitrificationTemperatureFactor,
+  };
+}
+
+/**
+ * Run the pool model over the daily series.
+ *
+ * @param forcing the weather- and calendar-only terms (`poolForcingOf`), when already computed
+ * @example
+ * const r = simulatePool(input, DEFAULT_POOL_PARAMS);
+ * r.pool.balanceErrorKgHa // ~1e-15 each day
+ */
+export function simulatePool(
+  input: NitrateInput,
+  p: PoolParams,
+  forcing: PoolForcing = poolForcingOf(input, p),
+): NitrateResult & { pool: NonNullable<NitrateResult['pool']> } {
+  const n = input.dates.length;
+  const { drainflowMm, runoffMm, seepageMm, saturatedFraction } = input;
+  const W = p.mobileWaterMm;
+  const r = p.runoffExtractionRatio;
+  const K = p.uptakeHalfSaturationKgHa;
+  const { fertilizerKgHa, mineralizationKgHa, uptakeDemandKgHa } = forcing;
+  const tempFactor = forcing.denitrificationTemperatureFactor;
+
+  const concMgL = new Float64Array(n);
+  const loadKgHa = new Float64Array(n);
+  const runoffLoadKgHa = new Float64Array(n);
+  const seepageLoadKgHa = new Float64Array(n);
+  const poolKgHa = new Float64Array(n);
+  const profileConcMgL = new Float64Array(n);
+  const uptakeKgHa = new Float64Array(n);
+  const denitrificationKgHa = new Float64Array(n);
+  const balanceErrorKgHa = new Float64Array(n);
+
+  let pool = p.initialPoolKgHa;
+  for (let i = 0; i < n; i++) {
+    const start = pool;
+    const mineral = mineralizationKgHa[i];
+    pool += fertilizerKgHa[i] + mineral;
+
+    const demand = uptakeDemandKgHa[i];
     const supplied = K > 0 ? (demand * pool) / (pool + K) : demand;
     const uptake = supplied < pool ? supplied : pool;
     pool -= uptake;
@@ -114,7 +162,7 @@ export function simulatePool(
     const kd =
       p.denitrificationMaxPerDay *
       saturationFactor(saturatedFraction[i], p.saturationThreshold, p.saturationExponent) *
-      q10Factor(t, p.denitrificationQ10);
+      tempFactor[i];
     const qd = drainflowMm[i] > 0 ? drainflowMm[i] : 0;
     const qs = seepageMm[i] > 0 ? seepageMm[i] : 0;
     const qr = runoffMm[i] > 0 ? r * runoffMm[i] : 0;
@@ -135,7 +183,6 @@ export function simulatePool(
     seepageLoadKgHa[i] = seepLoss;
     poolKgHa[i] = pool;
     profileConcMgL[i] = (pool / W) * 100;
-    mineralizationKgHa[i] = mineral;
     uptakeKgHa[i] = uptake;
     denitrificationKgHa[i] = denit;
     balanceErrorKgHa[i] =

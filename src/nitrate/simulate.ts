@@ -5,7 +5,7 @@
  */
 import { loadsFromConcentration } from './concentrationLoads.js';
 import { DEFAULT_RUNOFF_EXTRACTION_RATIO } from './defaults.js';
-import { simulatePool } from './pool.js';
+import { simulatePool, type PoolForcing } from './pool.js';
 import { ratingConcentration } from './rating.js';
 import { seasonalConcentration } from './seasonal.js';
 import type { NitrateConfig, NitrateInput, NitrateResult } from './types.js';
@@ -35,18 +35,23 @@ function checkInput(input: NitrateInput): void {
 }
 
 /**
- * Daily nitrate-N concentrations and loads of one run.
+ * Daily nitrate-N concentrations and loads of one run. `poolForcing` (pool model only) are the
+ * weather- and calendar-only terms from `poolForcingOf`, when the caller keeps them across runs.
  *
  * @example
  * const r = simulateNitrate(input, { model: 'fixed', concentrationMgL: 12 });
  * r.loadKgHa[i] === (input.drainflowMm[i] * 12) / 100
  */
-export function simulateNitrate(input: NitrateInput, config: NitrateConfig): NitrateResult {
+export function simulateNitrate(
+  input: NitrateInput,
+  config: NitrateConfig,
+  poolForcing?: PoolForcing,
+): NitrateResult {
   checkInput(input);
   const n = input.dates.length;
   switch (config.model) {
     case 'pool':
-      return simulatePool(input, config);
+      return simulatePool(input, config, poolForcing);
     case 'fixed':
       return loadsFromConcentration(
         input,

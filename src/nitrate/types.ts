@@ -3,6 +3,7 @@
  * mg N/L for concentrations, kg N/ha for masses, degC for temperature. Daily series are columnar
  * Float64Arrays aligned with `dates` (DESIGN.md section 3).
  */
+import type { DayIndex } from '../climate/calendar.js';
 import type { CropCalendar } from '../engine/types.js';
 
 /**
@@ -85,6 +86,8 @@ export interface NitrateInput {
    * saturated fraction). */
   waterTableDepthM: Float64Array;
   calendar: CropCalendar;
+  /** `dayIndexOf(dates)`, when the caller has it already. */
+  days?: DayIndex;
 }
 
 /** Daily terms of the `pool` model, kg N/ha per day (pool: end-of-day state). */

@@ -7,6 +7,7 @@
  *   `readyDepth` deep, no ponded water and less rain than `readyRain` that day;
  * - stress_days: growing-season days with the FAO-56 water-stress coefficient Ks below 1.
  */
+import { dayIndexOf, monthDayKey } from '../climate/calendar.js';
 import type { EngineForcing, EngineResult } from '../engine/types.js';
 import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import type { NitrateResult } from '../nitrate/types.js';
@@ -20,8 +21,24 @@ export function inWindow(key: string, w: { from: string; to: string }): boolean 
   return w.from <= w.to ? key >= w.from && key <= w.to : key >= w.from || key <= w.to;
 }
 
+/** A window as month-day keys (`monthDayKey`), for daily loops. */
+interface WindowKeys {
+  from: number;
+  to: number;
+}
+
+function windowKeys(w: { from: string; to: string }): WindowKeys {
+  return { from: monthDayKey(w.from), to: monthDayKey(w.to) };
+}
+
+/** Whether month-day key `md` lies in the inclusive window (same rule as `inWindow`). */
+function inWindowKeys(md: number, w: WindowKeys): boolean {
+  return w.from <= w.to ? md >= w.from && md <= w.to : md >= w.from || md <= w.to;
+}
+
 /**
- * Aggregate a scenario's daily results by calendar year over days [start, end).
+ * Aggregate a scenario's daily results by calendar year over days [start, end). The calendar
+ * fields come from `forcing.days` (computed from the dates when absent).
  * @example annualRows('conventional', forcing, engine, nitrate, wetness, 365, 730)
  */
 export function annualRows(
@@ -37,6 +54,10 @@ export function annualRows(
   let row: AnnualRow | undefined;
   let storagePrev = 0;
   let wtSum = 0;
+  const days = forcing.days ?? dayIndexOf(r.dates);
+  const growing = windowKeys(w.growingSeason);
+  const planting = windowKeys(w.plantingWindow);
+  const harvest = windowKeys(w.harvestWindow);
   const close = () => {
     if (!row) return;
     row.wt_mean_depth_m = wtSum / row.days;
@@ -44,8 +65,7 @@ export function annualRows(
     rows.push(row);
   };
   for (let i = start; i < end; i++) {
-    const date = r.dates[i];
-    const year = Number(date.slice(0, 4));
+    const year = days.year[i];
     if (!row || row.year !== year) {
       close();
       // Storage at the start of the year: soil + ponded water + snow at the end of the day before.
@@ -89,7 +109,7 @@ export function annualRows(
         n_balance_error_kg_ha: 0,
       };
     }
-    const key = date.slice(5);
+    const md = days.monthDay[i];
     const wtd = r.waterTableDepthM[i];
     row.days++;
     row.precip_mm += forcing.precipMm[i];
@@ -104,7 +124,7 @@ export function annualRows(
     row.storage_change_mm = storage - storagePrev;
     wtSum += wtd;
     if (wtd < row.wt_shallowest_depth_m) row.wt_shallowest_depth_m = wtd;
-    if (inWindow(key, w.growingSeason)) {
+    if (inWindowKeys(md, growing)) {
       if (wtd < w.threshold) {
         row.wet_days++;
         row.excess_wetness_cm_days += (w.threshold - wtd) * 100;
@@ -112,8 +132,8 @@ export function annualRows(
       if (r.ks[i] < 1 - 1e-9) row.stress_days++;
     }
     const ready = wtd >= w.readyDepth && r.pondedMm[i] <= 0 && forcing.precipMm[i] < w.readyRain;
-    if (ready && inWindow(key, w.plantingWindow)) row.planting_ready_days++;
-    if (ready && inWindow(key, w.harvestWindow)) row.harvest_ready_days++;
+    if (ready && inWindowKeys(md, planting)) row.planting_ready_days++;
+    if (ready && inWindowKeys(md, harvest)) row.harvest_ready_days++;
     row.no3_load_kg_ha += no3.loadKgHa[i];
     row.runoff_n_kg_ha += no3.runoffLoadKgHa[i];
     row.seepage_n_kg_ha += no3.seepageLoadKgHa[i];

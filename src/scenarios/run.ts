@@ -4,26 +4,17 @@
  * the annual table. Pure: the caller reads files and writes outputs.
  */
 import { TilefluxError } from '../errors.js';
-import { referenceEt, type EtMethod } from '../climate/referenceEt.js';
-import { snowModel } from '../climate/snow.js';
+import type { EtMethod } from '../climate/referenceEt.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
-import { cropCalendar } from '../engine/cropCalendar.js';
-import { outletSeries } from '../engine/outletSchedule.js';
 import { simulate } from '../engine/simulate.js';
 import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from '../engine/types.js';
-import { simulateNitrate } from '../nitrate/index.js';
 import type { NitrateResult } from '../nitrate/types.js';
-import { annualRows } from './annual.js';
 import type { Field } from './fieldSchema.js';
+import { prepareField, runDesign, type PeriodOptions, type PreparedField } from './prepared.js';
 import { scenarioOf, standardScenarios, type ScenarioSpec } from './resolve.js';
 import type { AnnualRow } from './types.js';
 
-export interface RunOptions {
-  /** First and last reported day (ISO); default: the first and last complete years after warm-up. */
-  from?: string;
-  to?: string;
-  /** Years simulated before `from` and not reported, so the start state does not matter. */
-  warmupYears?: number;
+export interface RunOptions extends PeriodOptions {
   /** Run only these scenarios (by name). */
   only?: string[];
   /** Called before each scenario starts. */
@@ -64,6 +55,8 @@ export function scenariosOf(f: FieldWithScenarios): ScenarioSpec[] {
   return f.scenarios.map((s) => scenarioOf(s.name, s.description ?? '', s.field));
 }
 
+export { forcingOf, reportPeriod, type PeriodOptions } from './prepared.js';
+
 function sliceForcing(f: EngineForcing, a: number, b: number): EngineForcing {
   return {
     dates: f.dates.slice(a, b),
@@ -89,89 +82,12 @@ function sliceColumns<T extends object>(obj: T, a: number, b: number): T {
   return out as T;
 }
 
-/** Daily forcing for a weather record: snow, reference ET and mean temperature. */
-export function forcingOf(
-  w: WeatherSeries,
-  latitudeDeg: number,
-  elevationM: number,
-): { forcing: EngineForcing; method: EtMethod } {
-  const snow = snowModel(w.precipMm, w.tmaxC, w.tminC);
-  const et = referenceEt(w, latitudeDeg, elevationM);
-  const tmean = new Float64Array(w.dates.length);
-  for (let i = 0; i < tmean.length; i++) tmean[i] = (w.tmaxC[i] + w.tminC[i]) / 2;
-  return {
-    forcing: {
-      dates: w.dates,
-      precipMm: w.precipMm,
-      rainMm: snow.rainMm,
-      snowfallMm: snow.snowfallMm,
-      snowmeltMm: snow.meltMm,
-      sweMm: snow.sweMm,
-      refEtMm: et.etMm,
-      tmeanC: tmean,
-    },
-    method: et.method,
-  };
-}
-
-/** Index of the first date >= iso (binary search on ISO strings). */
-function indexOf(dates: string[], iso: string): number {
-  let lo = 0;
-  let hi = dates.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (dates[mid] < iso) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
-/** The reported period: explicit dates, or whole calendar years after the warm-up. */
-export function reportPeriod(
-  dates: string[],
-  o: RunOptions,
-): { from: string; to: string; warmupYears: number } {
-  if (dates.length === 0) throw new TilefluxError('the weather record has no days');
-  const first = dates[0];
-  const last = dates[dates.length - 1];
-  const firstFull =
-    first.slice(5) === '01-01' ? Number(first.slice(0, 4)) : Number(first.slice(0, 4)) + 1;
-  const lastFull =
-    last.slice(5) === '12-31' ? Number(last.slice(0, 4)) : Number(last.slice(0, 4)) - 1;
-  const fullYears = lastFull - firstFull + 1;
-  const warmupYears = o.warmupYears ?? (fullYears >= 3 ? 1 : 0);
-  let from = o.from ?? `${firstFull + warmupYears}-01-01`;
-  let to = o.to ?? `${lastFull}-12-31`;
-  if (!o.from && !o.to && fullYears - warmupYears < 1) {
-    from = first;
-    to = last;
-  }
-  if (from < first || from > last) {
-    throw new TilefluxError(`--from ${from} lies outside the weather record (${first} to ${last})`);
-  }
-  if (to < from || to > last) {
-    throw new TilefluxError(
-      `--to ${to} must lie between --from ${from} and the record's last day ${last}`,
-    );
-  }
-  return { from, to, warmupYears };
-}
-
 /**
- * The forcing of one weather record over one simulated period, computed once (snow, reference
- * ET, mean temperature) and shared by every engine run on it: the scenarios of a run, or the
- * candidate parameter sets of a fit or a sweep.
+ * The forcing of one weather record over one simulated period, computed once and shared by every
+ * engine run on it: the scenarios of a run, or the candidate parameter sets of a fit or a sweep
+ * (a prepared field; see `prepareField`).
  */
-export interface PreparedPeriod {
-  /** Forcing over the whole simulated period (warm-up included). */
-  forcing: EngineForcing;
-  refEtMethod: EtMethod;
-  from: string;
-  to: string;
-  warmupYears: number;
-  /** Index of `from` in `forcing.dates` (the first reported day). */
-  reportStart: number;
-}
+export type PreparedPeriod = PreparedField;
 
 /** A scenario on a prepared period: its crop calendar and outlet series, computed once. */
 export interface PreparedScenario {
@@ -188,41 +104,17 @@ export interface PreparedScenario {
 export function preparePeriod(
   weather: WeatherSeries,
   site: { latitude: number; elevation: number },
-  o: Pick<RunOptions, 'from' | 'to' | 'warmupYears'> = {},
+  o: PeriodOptions = {},
 ): PreparedPeriod {
-  const { from, to, warmupYears } = reportPeriod(weather.dates, o);
-  const simFrom = `${Number(from.slice(0, 4)) - warmupYears}${from.slice(4)}`;
-  const a0 = indexOf(weather.dates, simFrom);
-  const b0 = indexOf(weather.dates, to) + 1;
-  const sim = {
-    ...weather,
-    dates: weather.dates.slice(a0, b0),
-    precipMm: weather.precipMm.slice(a0, b0),
-    tmaxC: weather.tmaxC.slice(a0, b0),
-    tminC: weather.tminC.slice(a0, b0),
-    petMm: weather.petMm?.slice(a0, b0),
-    solarMJm2: weather.solarMJm2?.slice(a0, b0),
-    rhMeanPct: weather.rhMeanPct?.slice(a0, b0),
-    wind2mMs: weather.wind2mMs?.slice(a0, b0),
-  };
-  const { forcing, method } = forcingOf(sim, site.latitude, site.elevation);
-  return {
-    forcing,
-    refEtMethod: method,
-    from,
-    to,
-    warmupYears,
-    reportStart: indexOf(forcing.dates, from),
-  };
+  return prepareField({ site }, weather, o);
 }
 
 /** The crop calendar and outlet series of a scenario on a prepared period. */
 export function prepareScenario(period: PreparedPeriod, spec: ScenarioSpec): PreparedScenario {
-  const dates = period.forcing.dates;
   return {
     spec,
-    calendar: cropCalendar(dates, spec.rotation, spec.crops),
-    outlet: outletSeries(dates, spec.outlet),
+    calendar: period.calendarOf(spec.rotation, spec.crops),
+    outlet: period.outletOf(spec.outlet),
   };
 }
 
@@ -244,36 +136,16 @@ export function runPreparedScenario(
   period: PreparedPeriod,
   prepared: PreparedScenario,
 ): ScenarioOutput {
-  const { forcing, reportStart: a } = period;
-  const { spec, calendar } = prepared;
-  const b = forcing.dates.length;
-  const engine = runEngine(period, prepared);
-  const nitrate = simulateNitrate(
-    {
-      dates: forcing.dates,
-      drainflowMm: engine.drainflowMm,
-      runoffMm: engine.runoffMm,
-      seepageMm: engine.seepageMm,
-      tmeanC: forcing.tmeanC,
-      saturatedFraction: engine.saturatedFraction,
-      waterTableDepthM: engine.waterTableDepthM,
-      calendar,
-    },
-    spec.nitrate,
-  );
-  const e = sliceColumns(engine, a, b);
-  const n = sliceColumns(nitrate, a, b);
-  const c = sliceColumns(calendar, a, b);
-  const annual = annualRows(
-    spec.name,
-    sliceForcing(forcing, a, b),
-    e,
-    n,
-    spec.field.wetness,
-    0,
-    b - a,
-  );
-  return { spec, calendar: c, engine: e, nitrate: n, annual };
+  const a = period.reportStart;
+  const b = period.forcing.dates.length;
+  const { calendar, engine, nitrate, annual } = runDesign(period, prepared.spec);
+  return {
+    spec: prepared.spec,
+    calendar: sliceColumns(calendar, a, b),
+    engine: sliceColumns(engine, a, b),
+    nitrate: sliceColumns(nitrate, a, b),
+    annual,
+  };
 }
 
 /**
@@ -297,18 +169,19 @@ export function runField(
     specs = specs.filter((s) => o.only!.includes(s.name));
   }
   const period = preparePeriod(weather, field.base.site, o);
-  const { forcing, reportStart } = period;
+  const { forcing, from, to, warmupYears } = period;
+  const reportedForcing = sliceForcing(forcing, period.reportStart, forcing.dates.length);
   const scenarios: ScenarioOutput[] = specs.map((spec, k) => {
     o.onScenario?.(k, specs.length, spec.name);
     return runPreparedScenario(period, prepareScenario(period, spec));
   });
 
   return {
-    forcing: sliceForcing(forcing, reportStart, forcing.dates.length),
+    forcing: reportedForcing,
     refEtMethod: period.refEtMethod,
-    from: period.from,
-    to: period.to,
-    warmupYears: period.warmupYears,
+    from,
+    to,
+    warmupYears,
     simulatedFrom: forcing.dates[0],
     baseline: specs[0]?.name ?? '',
     scenarios,
