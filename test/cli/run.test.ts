@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-// The CLI as a user runs it: the built dist/ (npm test builds before running vitest).
+// The CLI as a user runs it: the built dist/ (built once per test run by test/support/buildOnce.ts).
 const CLI = join(process.cwd(), 'dist/cli/main.js');
 const FIELD = 'data-demo/field.yaml';
 const WEATHER = 'data-demo/weather.csv';

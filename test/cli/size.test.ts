@@ -1,17 +1,6 @@
-import { beforeAll, describe, expect, it } from 'vitest';
-import { cli, cliJson as json, ensureBuilt, expectUserError } from './spacing.build.js';
+import { describe, expect, it } from 'vitest';
+import { cli, cliJson as json, expectUserError } from './harness.js';
 import { inchD, M3S_PER_CFS as CFS, manningQ } from '../drainage/reference.js';
-
-beforeAll(() => {
-  ensureBuilt('dist/cli/commands/size.js', [
-    'src/cli/main.ts',
-    'src/cli/commands/size.ts',
-    'src/cli/commands/spacing.ts',
-    'src/drainage/manning.ts',
-    'src/drainage/pipeSizes.ts',
-    'src/drainage/drainageCoefficient.ts',
-  ]);
-}, 180_000);
 
 // Manning's SI form and the inch design formula, evaluated independently: ../drainage/reference.ts.
 

@@ -1,17 +1,6 @@
-import { beforeAll, describe, expect, it } from 'vitest';
-import { cli, cliJson as json, ensureBuilt, expectUserError } from './spacing.build.js';
+import { describe, expect, it } from 'vitest';
+import { cli, cliJson as json, expectUserError } from './harness.js';
 import { gloverSeriesRatio, hooghoudtQ, vdmwDepth as vdmwD } from '../drainage/reference.js';
-
-beforeAll(() => {
-  ensureBuilt('dist/cli/commands/spacing.js', [
-    'src/cli/main.ts',
-    'src/cli/commands/spacing.ts',
-    'src/drainage/hooghoudt.ts',
-    'src/drainage/equivalentDepth.ts',
-    'src/drainage/glover.ts',
-    'src/drainage/spacingRoot.ts',
-  ]);
-}, 180_000);
 
 // Hooghoudt's equation, the vdMW series and the Glover-Dumm series, evaluated independently:
 // ../drainage/reference.ts.

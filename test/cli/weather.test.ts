@@ -1,40 +1,15 @@
-import { describe, it, expect, beforeAll } from 'vitest';
+import { describe, it, expect } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import {
-  existsSync,
-  mkdtempSync,
-  readFileSync,
-  readdirSync,
-  statSync,
-  writeFileSync,
-} from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-// The built CLI (dist/cli/main.js), run as a user would. `npm test` builds first; when run alone,
-// this file rebuilds if any source is newer than the built weather command.
+// The built CLI (dist/cli/main.js), run as a user would; the global setup builds dist/ once per
+// test run (test/support/buildOnce.ts).
 const root = join(import.meta.dirname, '..', '..');
 const main = join(root, 'dist', 'cli', 'main.js');
 const vega = join(root, 'node_modules', 'vega-datasets', 'data', 'weather.csv');
 const demo = join(root, 'data-demo', 'weather.csv');
-
-function newestSource(dir: string): number {
-  let t = 0;
-  for (const e of readdirSync(dir, { withFileTypes: true })) {
-    const p = join(dir, e.name);
-    t = Math.max(t, e.isDirectory() ? newestSource(p) : statSync(p).mtimeMs);
-  }
-  return t;
-}
-
-beforeAll(() => {
-  const built = join(root, 'dist', 'cli', 'commands', 'weather.js');
-  if (!existsSync(built) || statSync(built).mtimeMs < newestSource(join(root, 'src'))) {
-    // tsc emits even when files of other work in progress fail to typecheck; the run below
-    // then tells whether the weather command itself works.
-    spawnSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: root, stdio: 'ignore' });
-  }
-}, 180_000);
 
 function tileflux(...args: string[]) {
   const r = spawnSync(process.execPath, [main, ...args], { cwd: root, encoding: 'utf8' });

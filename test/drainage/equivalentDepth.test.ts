@@ -1,23 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { equivalentDepth, equivalentDepthAndSlope } from '../../src/drainage/equivalentDepth.js';
 import { TilefluxError } from '../../src/errors.js';
-import { vdmwDepth, vdmwDepthRaw } from './reference.js';
+import { moodyDepthRaw, vdmwDepth, vdmwDepthRaw } from './reference.js';
 
 // van der Molen & Wesseling (1991) evaluated term by term (./reference.ts), independently of
 // the theta-function summation in the module; the published small-x form (x <= 0.5) is
 // F(x) = pi^2 / (4x) + ln(x / (2 pi)).
 const smallXF = (x: number) => (Math.PI * Math.PI) / (4 * x) + Math.log(x / (2 * Math.PI));
 
-// Moody (1966, J. Irrig. Drain. Div. ASCE 92(IR2)), as quoted in drainage texts (from memory):
-//   D/L <= 0.3: d = D / (1 + D/L (8/pi ln(D/r0) - a)), a = 3.55 - 1.6 D/L + 2 (D/L)^2
-//   D/L >  0.3: d = pi L / (8 (ln(L/r0) - 1.15))
-function moodyD(L: number, D: number, r0: number): number {
-  const u = D / L;
-  if (u <= 0.3) {
-    return D / (1 + u * ((8 / Math.PI) * Math.log(D / r0) - (3.55 - 1.6 * u + 2 * u * u)));
-  }
-  return (Math.PI * L) / (8 * (Math.log(L / r0) - 1.15));
-}
+// Moody (1966) evaluated directly: ./reference.ts (moodyDepthRaw).
+const moodyD = moodyDepthRaw;
 
 describe('equivalentDepth (van der Molen & Wesseling)', () => {
   const cases: Array<[number, number, number]> = [];

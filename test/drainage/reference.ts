@@ -27,6 +27,25 @@ export function vdmwDepth(L: number, D: number, r0: number): number {
   return Math.min(vdmwDepthRaw(L, D, r0), D);
 }
 
+/**
+ * Moody (1966, J. Irrig. Drain. Div. ASCE 92(IR2)), as quoted in drainage texts (from memory):
+ *   D/L <= 0.3: d = D / (1 + D/L (8/pi ln(D/r0) - a)), a = 3.55 - 1.6 D/L + 2 (D/L)^2
+ *   D/L >  0.3: d = pi L / (8 (ln(L/r0) - 1.15))
+ * uncapped.
+ */
+export function moodyDepthRaw(L: number, D: number, r0: number): number {
+  const u = D / L;
+  if (u <= 0.3) {
+    return D / (1 + u * ((8 / Math.PI) * Math.log(D / r0) - (3.55 - 1.6 * u + 2 * u * u)));
+  }
+  return (Math.PI * L) / (8 * (Math.log(L / r0) - 1.15));
+}
+
+/** Moody's equivalent depth, never more than the layer thickness D. */
+export function moodyDepth(L: number, D: number, r0: number): number {
+  return Math.min(moodyDepthRaw(L, D, r0), D);
+}
+
 /** Hooghoudt (1940), as in Ritzema (1994) ch. 8: q = (8 K2 d h + 4 K1 h^2) / L^2. */
 export const hooghoudtQ = (k1: number, k2: number, d: number, h: number, L: number) =>
   (8 * k2 * d * h + 4 * k1 * h * h) / (L * L);

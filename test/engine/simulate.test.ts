@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/engine/simulate.js';
-import { equivalentDepth } from '../../src/drainage/equivalentDepth.js';
 import { constantForcing, flatCalendar, free, params } from './fixtures.js';
+import { vdmwDepth } from '../drainage/reference.js';
 
 /**
  * Glover-Dumm midpoint head ratio for an initially flat water table (linearised Boussinesq,
@@ -34,7 +34,7 @@ describe('engine: falling water table against Glover-Dumm', () => {
     [30, 0.5, 0.04],
     [15, 0.4, 0.08],
   ]) {
-    it(`L=${L} m, K=${K} m/d, mu=${mu}: time for the head to halve within 10 %`, () => {
+    it(`L=${L} m, K=${K} m/d, mu=${mu}: time for the head to halve within 5 %`, () => {
       const n = 400;
       const f = constantForcing(n, 0, 0);
       const p = params({
@@ -54,9 +54,12 @@ describe('engine: falling water table against Glover-Dumm', () => {
       const hPrev = k === 0 ? h0 : p.drainDepthM - r.waterTableDepthM[k - 1];
       const hNow = p.drainDepthM - r.waterTableDepthM[k];
       const tEngine = k + Math.log(hPrev / (h0 / 2)) / Math.log(hPrev / hNow);
-      const d = equivalentDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+      const d = vdmwDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
       const tGlover = timeToHalve((t) => gloverRatio(t, K, d + h0 / 2, mu, L));
-      expect(Math.abs(tEngine - tGlover) / tGlover).toBeLessThan(0.1);
+      // The engine drains by Hooghoudt's steady-state flux at each step (quasi-steady), Glover-Dumm
+      // solves the transient equation: they differ by the model, not by rounding. Achieved 2.2 to
+      // 3.7 % on these layouts; 5 % allowed.
+      expect(Math.abs(tEngine - tGlover) / tGlover).toBeLessThan(0.05);
     });
   }
 });
@@ -69,19 +72,21 @@ describe('engine: steady recharge against Hooghoudt', () => {
     [3, 30, 0.6],
     [8, 15, 1.5],
   ]) {
-    it(`R=${R} mm/d, L=${L} m, K=${K} m/d: head within 5 % of Hooghoudt`, () => {
+    it(`R=${R} mm/d, L=${L} m, K=${K} m/d: steady head is Hooghoudt's to 1e-9`, () => {
       const n = 300;
       const p = params({ spacingM: L, kAboveMPerDay: K, kBelowMPerDay: K, surfaceStorageMm: 1000 });
       const r = simulate(constantForcing(n, R, 0), flatCalendar(n, 0), free(n), p);
-      const d = equivalentDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+      const d = vdmwDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
       const q = R / 1000;
       const a = 4 * K;
       const b = 8 * K * d;
       const h = (-b + Math.sqrt(b * b + 4 * a * q * L * L)) / (2 * a);
       const hEngine = p.drainDepthM - r.waterTableDepthM[n - 1];
-      expect(Math.abs(hEngine - h) / h).toBeLessThan(0.05);
-      // and at steady state outflow equals recharge (mass balance)
-      expect(r.drainflowMm[n - 1]).toBeCloseTo(R, 3);
+      // After 300 days the head has settled to rounding error (achieved ~1e-14 relative); 1e-9
+      // allowed. A 5 % change of one Hooghoudt term moves the head by ~1e-2.
+      expect(Math.abs(hEngine - h) / h).toBeLessThan(1e-9);
+      // and at steady state outflow equals recharge (mass balance; achieved ~1e-14 relative)
+      expect(Math.abs(r.drainflowMm[n - 1] / R - 1)).toBeLessThan(1e-9);
     });
   }
 });
@@ -129,9 +134,26 @@ describe('engine: outlet, capacity, balance, time step', () => {
       kAboveMPerDay: 0.08,
     });
     const r = simulate(f, flatCalendar(n, 1.1), free(n), p);
-    let total = 0;
-    for (let i = 0; i < n; i++) total += Math.abs(r.balanceErrorMm[i]);
-    expect(total).toBeLessThan(1e-6);
+    // The engine throws on its own residual column, so the closure is checked here from the
+    // fluxes and the states instead: storage is the drained pore space above the water table
+    // (uniform drainable porosity 0.05: 50 mm per m of depth), the root-zone depletion and the
+    // ponded water; no snow. Achieved ~3e-14 mm per day; 1e-9 mm allowed.
+    const storage = (i: number) =>
+      i < 0
+        ? -50 * p.initialWaterTableDepthM
+        : -50 * r.waterTableDepthM[i] - r.rootZoneDepletionMm[i] + r.pondedMm[i];
+    let worst = 0;
+    for (let i = 0; i < n; i++) {
+      const residual =
+        f.precipMm[i] -
+        r.etMm[i] -
+        r.runoffMm[i] -
+        r.drainflowMm[i] -
+        r.seepageMm[i] -
+        (storage(i) - storage(i - 1));
+      worst = Math.max(worst, Math.abs(residual));
+    }
+    expect(worst).toBeLessThan(1e-9);
     const sum = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
     expect(sum(r.runoffMm)).toBeGreaterThan(0);
     expect(sum(r.seepageMm)).toBeGreaterThan(0);

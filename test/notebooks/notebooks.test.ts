@@ -1,7 +1,7 @@
 // The notebooks in notebooks/: committed without outputs, type-correct against the built library,
 // and executed headlessly as a user would run them (Debian's nbconvert/nbclient driving the Deno
 // kernel from the project's `deno` package), with every expected Vega-Lite chart displayed.
-import { execFile, execFileSync } from 'node:child_process';
+import { execFile } from 'node:child_process';
 import {
   existsSync,
   mkdirSync,
@@ -56,10 +56,7 @@ const readNotebook = (path: string) => JSON.parse(readFileSync(path, 'utf8')) as
 
 let tmp: string;
 beforeAll(() => {
-  // The notebooks import the built library; `npm test` builds first, this covers running alone.
-  if (!existsSync(join(root, 'dist', 'index.js'))) {
-    execFileSync('npm', ['run', 'build'], { cwd: root, stdio: 'ignore' });
-  }
+  // The notebooks import the built library, which the global setup builds once per test run.
   tmp = mkdtempSync(join(tmpdir(), 'tileflux-notebooks-'));
 });
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
