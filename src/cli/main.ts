@@ -10,6 +10,7 @@ import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
 import { registerSpacing } from './commands/spacing.js';
 import { registerSize } from './commands/size.js';
+import { registerSystem } from './commands/system.js';
 
 const program = new Command();
 program
@@ -37,6 +38,7 @@ const registrations: Array<(p: Command) => void> = [
   registerWeather,
   registerSpacing,
   registerSize,
+  registerSystem,
 ];
 for (const register of registrations) register(program);
 

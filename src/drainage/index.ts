@@ -40,6 +40,7 @@ export {
   manningDiameterInches,
   fullFlowVelocity,
   minimumGrade,
+  SEDIMENT_VELOCITY_MS,
 } from './manning.js';
 export {
   selectPipeSize,

@@ -11,6 +11,13 @@
  */
 import { requirePositive } from './checks.js';
 
+/**
+ * Full-flow velocity that keeps fine sediment moving in a drain, 1.4 ft/s (0.427 m/s): the figure
+ * US conservation practice standards for subsurface drains give where sediment can settle in the
+ * line (from memory; 0.5 ft/s is quoted where it cannot). The default target of the minimum grade.
+ */
+export const SEDIMENT_VELOCITY_MS = 1.4 * 0.3048;
+
 /** 4^(5/3) / pi: Q = D^(8/3) S^(1/2) / (n 4^(5/3) / pi). */
 const K_CIRCLE = Math.pow(4, 5 / 3) / Math.PI;
 

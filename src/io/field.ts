@@ -26,7 +26,7 @@ export interface LoadedField {
   ratingFits: Record<string, RatingFit>;
 }
 
-type Path = Array<string | number>;
+export type Path = Array<string | number>;
 
 /** Levenshtein distance, for "did you mean". */
 function distance(a: string, b: string): number {
@@ -114,7 +114,7 @@ function startOf(node: unknown): number | undefined {
  * scalar points at its value, a mapping or list at the key that holds it, and `key` (an unknown
  * key inside the mapping at `path`) at that key.
  */
-function locate(doc: Document, lc: LineCounter, path: Path, key?: string): string {
+export function locate(doc: Document, lc: LineCounter, path: Path, key?: string): string {
   const at = (offset: number) => {
     const pos = lc.linePos(offset);
     return `line ${pos.line}, column ${pos.col}`;
@@ -213,12 +213,18 @@ export function mergeOverrides(base: unknown, over: unknown): unknown {
   return out;
 }
 
+/** A YAML mapping read for validation: its plain value and what locates its keys. */
+export interface YamlSource {
+  doc: Document;
+  lc: LineCounter;
+  raw: Record<string, unknown>;
+}
+
 /**
- * Parse and validate a field file's text.
- * @param text the YAML text
- * @param file the name used in messages
+ * Parse YAML text whose top level must be a mapping; a syntax error is located by line and
+ * column. `topKeys` names a few expected keys for the message when the top level is not a mapping.
  */
-export function parseField(text: string, file = 'field file'): LoadedField {
+export function readYamlMapping(text: string, file: string, topKeys: string): YamlSource {
   const lc = new LineCounter();
   const doc = parseDocument(text.replace(/^\uFEFF/, ''), { lineCounter: lc, prettyErrors: false });
   if (doc.errors.length > 0) {
@@ -231,18 +237,39 @@ export function parseField(text: string, file = 'field file'): LoadedField {
   }
   const raw = doc.toJS() as unknown;
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
-    throw new TilefluxError(
-      'expects a mapping of keys (name, soil, drains, ...) at the top level',
-      file,
-    );
+    throw new TilefluxError(`expects a mapping of keys (${topKeys}) at the top level`, file);
   }
+  return { doc, lc, raw: raw as Record<string, unknown> };
+}
+
+/**
+ * The located one-line error of a validation issue: "line L, column C: key message", with
+ * "did you mean" for a misspelt key. `prefix` is the path of the validated part in the file;
+ * `note` goes between the location and the message.
+ */
+export function locatedIssue(
+  src: YamlSource,
+  schema: z.ZodType,
+  issues: z.core.$ZodIssue[],
+  input: unknown,
+  prefix: Path = [],
+  note = '',
+): string {
+  const d = describeIssue(firstIssue(issues), schema, input);
+  return `${locate(src.doc, src.lc, [...prefix, ...d.path], d.key)}: ${note}${d.message}`;
+}
+
+/**
+ * Parse and validate a field file's text.
+ * @param text the YAML text
+ * @param file the name used in messages
+ */
+export function parseField(text: string, file = 'field file'): LoadedField {
+  const src = readYamlMapping(text, file, 'name, soil, drains, ...');
+  const { doc, lc, raw } = src;
   const fail = (issue: z.core.$ZodIssue, input: unknown, prefix: Path): never => {
-    const d = describeIssue(issue, fieldSchema, input);
-    const at = locate(doc, lc, [...prefix, ...d.path], d.key);
-    throw new TilefluxError(
-      `${at}: ${prefix.length ? `in scenario ${prefix[1]}: ` : ''}${d.message}`,
-      file,
-    );
+    const note = prefix.length ? `in scenario ${prefix[1]}: ` : '';
+    throw new TilefluxError(locatedIssue(src, fieldSchema, [issue], input, prefix, note), file);
   };
 
   const baseRaw = raw as Record<string, unknown>;

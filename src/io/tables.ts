@@ -17,6 +17,9 @@ const US_SUFFIXES: ReadonlyArray<[string, string, number]> = [
   ['_m_ha', '_ft_ac', (1 / US.mPerFt) * US.haPerAc],
   ['_kg_ha', '_lb_ac', US.lbAcPerKgHa],
   ['_m', '_ft', 1 / US.mPerFt],
+  ['_ha', '_ac', 1 / US.haPerAc],
+  ['_l_s', '_cfs', US.cfsPerM3s / 1000],
+  ['_m_s', '_ft_s', 1 / US.mPerFt],
 ];
 
 /** Column name and factor for a column in the chosen unit system. */

@@ -68,7 +68,7 @@ const WIDTH = 640;
 type Config = NonNullable<TopLevelSpec['config']>;
 
 /** Shared look: DejaVu Sans first (installed with the tests; used for PNG rendering). */
-const CONFIG: Config = {
+export const CONFIG: Config = {
   background: 'white',
   font: 'DejaVu Sans, Verdana, Arial, sans-serif',
   padding: 10,

@@ -336,11 +336,17 @@ function balanceTable(data: ReportData): string {
   );
 }
 
-function chartFigures(data: ReportData, names: string[]): string {
+/**
+ * Figure containers for charts drawn in the page, numbered in order, each with its caption
+ * (the chart's name when `captions` has none).
+ */
+export function chartFigures(
+  names: string[],
+  captions: Readonly<Record<string, string | undefined>> = CHART_CAPTIONS,
+): string {
   return names
     .map((name, i) => {
-      const caption =
-        (CHART_CAPTIONS as Record<string, string | undefined>)[name as ChartName] ?? name;
+      const caption = captions[name as ChartName] ?? name;
       return (
         `<figure id="figure-${escapeHtml(name)}"><div class="chart" data-chart="${escapeHtml(name)}" role="img" ` +
         `aria-label="${escapeHtml(caption)}"></div>` +
@@ -350,15 +356,33 @@ function chartFigures(data: ReportData, names: string[]): string {
     .join('\n');
 }
 
+/** What the page says when JavaScript is off: the charts are in the folder beside it. */
+export const NOSCRIPT_CHARTS =
+  '<noscript><p>The charts need JavaScript. SVG and PNG copies are in the charts folder ' +
+  'beside this report.</p></noscript>';
+
+/**
+ * Cautions of every design output (DESIGN.md section 8): codes, standards and a licensed
+ * professional decide; trenching is dangerous.
+ */
+export const DESIGN_CAUTIONS = [
+  'Drain design, outlet works and any wetland or water-quality determination follow local ' +
+    'drainage guides, conservation practice standards and permits, and need a licensed professional.',
+  'Trenching is dangerous work with its own safety rules: locate buried utilities before digging ' +
+    'and follow the excavation safety rules that apply where the work is done.',
+];
+
+/** The cautions as the page's list. */
+export function cautionList(items: readonly string[]): string {
+  return `<ul class="cautions">${items.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>`;
+}
+
 const CAUTIONS = [
   'The figures are planning estimates from simplified physics: a daily water balance with a ' +
     'single water table midway between the drains, quasi-steady drain equations and simple ' +
     'nitrate models. They compare alternatives under the same assumptions and the same weather; ' +
     'they do not predict what a particular field will do in a particular year.',
-  'Drain design, outlet works and any wetland or water-quality determination follow local ' +
-    'drainage guides, conservation practice standards and permits, and need a licensed professional.',
-  'Trenching is dangerous work with its own safety rules: locate buried utilities before digging ' +
-    'and follow the excavation safety rules that apply where the work is done.',
+  ...DESIGN_CAUTIONS,
 ];
 
 /** Browser side: draw every chart container with its spec, then mark the page as ready. */
@@ -403,7 +427,6 @@ export function buildReportHtml(
   const wetness = wetnessChangeLines(data.comparison, data.units);
   const list = (lines: string[]) =>
     lines.length ? `<ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : '';
-  const title = escapeHtml(data.title);
   const sections: Array<[id: string, heading: string, body: string]> = [
     [
       'question',
@@ -439,9 +462,7 @@ export function buildReportHtml(
     [
       'charts',
       'Charts',
-      chartFigures(data, names) +
-        '<noscript><p>The charts need JavaScript. SVG and PNG copies are in the charts folder ' +
-        'beside this report.</p></noscript>',
+      chartFigures(names) + NOSCRIPT_CHARTS,
     ],
     ['yearly', 'Year by year', yearlyTable(data)],
     ['methods', 'Methods and assumptions', methodsTable(data)],
@@ -457,9 +478,43 @@ export function buildReportHtml(
     [
       'cautions',
       'Cautions',
-      `<ul class="cautions">${CAUTIONS.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>`,
+      cautionList(CAUTIONS),
     ],
   ];
+  return buildHtmlPage({
+    title: data.title,
+    meta: `${data.fieldName} \u00b7 ${data.period.from} to ${data.period.to} \u00b7 ${data.generatedBy}`,
+    generatedBy: data.generatedBy,
+    sections,
+    specs,
+    bundles,
+  });
+}
+
+/** A page of the report: title, one line under it, sections of markup and the chart specs. */
+export interface HtmlPage {
+  title: string;
+  /** Plain text under the title (escaped here). */
+  meta: string;
+  generatedBy: string;
+  /** [id, heading, body markup] in page order; listed in the contents. */
+  sections: Array<[id: string, heading: string, body: string]>;
+  /** Chart specs drawn into the `.chart[data-chart]` containers by name. */
+  specs: Record<string, object>;
+  bundles?: VegaBundles;
+}
+
+/**
+ * The self-contained page around report sections: Content-Security-Policy, style, contents,
+ * the inlined vega libraries, the chart specs as JSON and the script that draws them. Every
+ * report of tileflux goes through it, so they open offline and look alike.
+ *
+ * @example buildHtmlPage({ title: 'Plan', meta: 'a plan', generatedBy: 'tileflux', sections: [], specs: {} })
+ */
+export function buildHtmlPage(page: HtmlPage): string {
+  const bundles = page.bundles ?? loadVegaBundles();
+  const { sections, specs } = page;
+  const title = escapeHtml(page.title);
   const scripts = [bundles.vega, bundles.vegaLite, bundles.vegaEmbed, EMBED_SCRIPT];
   const nav = sections.map(([id, h]) => `<li><a href="#${id}">${h}</a></li>`).join('');
   const body = sections
@@ -471,7 +526,7 @@ export function buildReportHtml(
 <meta charset="utf-8">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="${contentSecurityPolicy(scripts)}">
-<meta name="generator" content="${escapeHtml(data.generatedBy)}">
+<meta name="generator" content="${escapeHtml(page.generatedBy)}">
 <title>${title}</title>
 <link rel="icon" href="data:,">
 <style>${CSS}</style>
@@ -479,11 +534,11 @@ export function buildReportHtml(
 <body>
 <header>
 <h1>${title}</h1>
-<p class="meta">${escapeHtml(data.fieldName)} &middot; ${escapeHtml(data.period.from)} to ${escapeHtml(data.period.to)} &middot; ${escapeHtml(data.generatedBy)}</p>
+<p class="meta">${escapeHtml(page.meta)}</p>
 </header>
 <nav aria-label="Contents"><ol>${nav}</ol></nav>
 ${body}
-<footer>Generated by ${escapeHtml(data.generatedBy)}. Planning estimate; see the cautions above.</footer>
+<footer>Generated by ${escapeHtml(page.generatedBy)}. Planning estimate; see the cautions above.</footer>
 ${inlineScript(bundles.vega, 'vega')}
 ${inlineScript(bundles.vegaLite, 'vega-lite')}
 ${inlineScript(bundles.vegaEmbed, 'vega-embed')}

@@ -22,7 +22,8 @@ export type QuantityKind =
   | 'flow'
   | 'duration'
   | 'latitude'
-  | 'diameter';
+  | 'diameter'
+  | 'velocity';
 
 interface KindSpec {
   /** js-quantities unit the result is expressed in. */
@@ -64,6 +65,7 @@ export const KINDS: Readonly<Record<QuantityKind, KindSpec>> = {
   flow: { target: 'm^3/s', unit: 'm3/s', examples: '0.05 m3/s, 1.5 cfs or 50 L/s', noun: 'a flow' },
   duration: { target: 'day', unit: 'd', examples: '5 d, 48 h or 2 days', noun: 'a duration' },
   latitude: { target: 'deg', unit: 'degrees', examples: '42.1 or 42.1 deg', noun: 'a latitude' },
+  velocity: { target: 'm/s', unit: 'm/s', examples: '0.45 m/s or 1.4 ft/s', noun: 'a velocity' },
 };
 
 /** Trade spellings js-quantities does not know, rewritten before parsing. */

@@ -19,6 +19,7 @@ import {
   COEFFICIENT_INLETS,
   COEFFICIENT_SOILS,
   type DrainageCoefficient,
+  SEDIMENT_VELOCITY_MS,
   type PipeMaterial,
 } from '../../drainage/index.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
@@ -26,12 +27,8 @@ import { action, CAUTION, emit, fmt, requiredQuantity } from '../common.js';
 import { parseUnits } from './run.js';
 import { blocks, echo } from './spacing.js';
 
-/**
- * Full-flow velocity target for the minimum grade when --velocity is not given: 1.4 ft/s, the
- * figure US conservation practice standards give where sediment can settle in the line (from
- * memory; 0.5 ft/s is quoted where it cannot).
- */
-export const DEFAULT_VELOCITY_MS = 1.4 * US.mPerFt;
+/** Full-flow velocity target for the minimum grade when --velocity is not given (1.4 ft/s). */
+export const DEFAULT_VELOCITY_MS = SEDIMENT_VELOCITY_MS;
 
 interface SizeFlags {
   area?: string;
@@ -51,16 +48,13 @@ interface SizeFlags {
 /** A velocity option: bare numbers are m/s, unit strings such as "1.4 ft/s" are converted. */
 function velocityOption(value: string | undefined): number | undefined {
   if (value === undefined) return undefined;
-  const text = value.trim();
-  const r = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text)
-    ? { ok: true as const, value: Number(text) * 86400 }
-    : tryParseQuantity(text, 'conductivity');
+  const r = tryParseQuantity(value, 'velocity');
   if (!r.ok || !(r.value > 0)) {
     throw new TilefluxError(
       `--velocity expects a velocity greater than 0 such as 0.45 m/s or 1.4 ft/s; got ${value}`,
     );
   }
-  return r.value / 86400;
+  return r.value;
 }
 
 function roughnessOf(o: SizeFlags): { n: number; label: string } {

@@ -1,0 +1,167 @@
+/**
+ * `tileflux system SYSTEM.yaml [--profile PROFILE.csv] --out DIR`: design a whole drain system
+ * (mains reach by reach, laterals), lay the grades on a ground profile from the outlet upward,
+ * check the depth of cut, and write reaches.csv, laterals.csv, profile.csv, charts/ and
+ * report.html into an output folder, atomically.
+ */
+import { writeFileSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import type { Command } from 'commander';
+import { TilefluxError } from '../../errors.js';
+import { designSystem, type SystemDesign } from '../../drainage/systemDesign.js';
+import { readProfileFile, readSystemFile } from '../../io/system.js';
+import { lateralRows, reachRows, systemSummary, writeSystemTables } from '../../io/systemFolder.js';
+import { writeCharts } from '../../report/index.js';
+import { profileChartSpecs } from '../../report/systemCharts.js';
+import { buildSystemReportHtml } from '../../report/systemHtml.js';
+import { US, type UnitSystem } from '../../units/quantity.js';
+import { VERSION } from '../../version.js';
+import { action, CAUTION, emit, fmt, writeDirAtomic } from '../common.js';
+import { parseUnits } from './run.js';
+
+interface SystemFlags {
+  profile?: string;
+  out?: string;
+  units?: string;
+  round?: string;
+  force?: boolean;
+  charts?: boolean;
+  report?: boolean;
+  json?: boolean;
+}
+
+/** The printed table: one line per reach and lateral group. */
+function table(design: SystemDesign, units: UnitSystem): string {
+  const us = units === 'us';
+  const flowU = us ? 'ft3/s' : 'L/s';
+  const flow = (m3s: number) => (us ? fmt(m3s * US.cfsPerM3s, 3) : fmt(m3s * 1000, 2));
+  const dc = (mmD: number) => (us ? fmt(mmD / US.mmPerIn, 3) : fmt(mmD, 1));
+  const dcU = us ? 'in/d' : 'mm/d';
+  const area = (m2: number) => (us ? fmt(m2 / 10000 / US.haPerAc, 2) : fmt(m2 / 10000, 2));
+  const areaU = us ? 'ac' : 'ha';
+  const head =
+    `${'pipe'.padEnd(14)} ${`area ${areaU}`.padStart(9)} ${`flow ${flowU}`.padStart(11)} ` +
+    `${'needs'.padStart(8)} ${'size'.padStart(7)} ${'used'.padStart(5)} ${'grade %'.padStart(8)} ` +
+    `${'min %'.padStart(6)} ${`eff. ${dcU}`.padStart(10)} ${'cut max'.padStart(8)}`;
+  const needs = (d: number) => (us ? `${fmt((d * 1000) / US.mmPerIn, 2)}in` : `${fmt(d * 1000, 0)}mm`);
+  const cut = (m: number | undefined) =>
+    m === undefined ? '' : us ? `${fmt(m / US.mPerFt, 1)}ft` : `${fmt(m, 2)}m`;
+  const line = (
+    id: string,
+    areaM2: number,
+    p: SystemDesign['laterals'][number] | SystemDesign['reaches'][number],
+    maxCut?: number,
+  ) =>
+    `${id.slice(0, 14).padEnd(14)} ${area(areaM2).padStart(9)} ${flow(p.designFlowM3s).padStart(11)} ` +
+    `${needs(p.requiredDiameterM).padStart(8)} ${`${p.selected.nominal} ${p.selected.unit}`.padStart(7)} ` +
+    `${`${fmt(p.sharePercent, 0)}%`.padStart(5)} ${fmt(p.grade * 100, 3).padStart(8)} ` +
+    `${fmt(p.minimumGrade * 100, 3).padStart(6)} ${dc(p.effectiveCoefficientMmD).padStart(10)} ${cut(maxCut).padStart(8)}`;
+  return [
+    head,
+    ...design.reaches.map((r) => line(r.reach.id, r.reach.areaAboveM2, r, r.maxCutM)),
+    ...design.laterals.map((l) => line(`${l.id} x${l.count}`, l.areaEachM2, l)),
+  ].join('\n');
+}
+
+async function run(systemPath: string, o: SystemFlags): Promise<void> {
+  const units = parseUnits(o.units);
+  if (o.out === undefined) throw new TilefluxError('--out is required (the output folder)');
+  const loaded = readSystemFile(systemPath);
+  if (o.round !== undefined) {
+    if (o.round !== 'up' && o.round !== 'down') {
+      throw new TilefluxError(`--round expects up or down; got ${o.round}`);
+    }
+    loaded.settings.round = o.round;
+  }
+  const profiles = o.profile === undefined ? undefined : readProfileFile(o.profile);
+  const design = designSystem(loaded.tree, loaded.settings, profiles);
+  const planName = loaded.file.name;
+  const { specs, captions } = profileChartSpecs(design, loaded.settings, units, planName);
+  const written: string[] = [];
+  await writeDirAtomic(o.out, Boolean(o.force), async (dir) => {
+    written.push(...writeSystemTables(dir, design, units));
+    if (Object.keys(specs).length > 0 && o.charts !== false) {
+      await writeCharts(dir, specs);
+      written.push('charts/');
+    }
+    if (o.report !== false) {
+      writeFileSync(
+        join(dir, 'report.html'),
+        buildSystemReportHtml({
+          planName,
+          systemFile: basename(systemPath),
+          profileFile: o.profile === undefined ? undefined : basename(o.profile),
+          generatedBy: `tileflux ${VERSION}`,
+          units,
+          design,
+          settings: loaded.settings,
+          reachRows: reachRows(design),
+          lateralRows: lateralRows(design),
+          specs,
+          captions,
+        }),
+      );
+      written.push('report.html');
+    }
+    const summary = systemSummary(planName, design, loaded.settings, units, written);
+    writeFileSync(join(dir, 'system.json'), JSON.stringify(summary, null, 2) + '\n');
+  });
+  written.push('system.json');
+  emit(o.json, systemSummary(planName, design, loaded.settings, units, written), () =>
+    [
+      `${planName}: ${design.reaches.length} reaches on ${design.mains.length} mains, ` +
+        `${design.laterals.length} lateral groups; coefficient ${
+          units === 'us'
+            ? `${fmt(loaded.settings.coefficientMmD / US.mmPerIn, 3)} in/d`
+            : `${fmt(loaded.settings.coefficientMmD, 1)} mm/d`
+        }, sizes rounded ${loaded.settings.round}`,
+      '',
+      table(design, units),
+      '',
+      ...(design.notes.length ? [...design.notes.map((n) => `- ${n}`), ''] : []),
+      `Wrote ${o.out}/ (${written.join(', ')}).`,
+      CAUTION + ' Trenching is dangerous: locate utilities and follow the excavation safety rules.',
+    ].join('\n'),
+  );
+}
+
+const HELP = `
+Examples:
+  The demo field's plan, grades laid on its surveyed profile:
+    tileflux system data-demo/system.yaml --profile data-demo/profile.csv --out plan
+  The same with sizes rounded down (shows the smaller coefficient each pipe then delivers):
+    tileflux system data-demo/system.yaml --profile data-demo/profile.csv --out plan-down --round down
+  Fixed grades only (every reach gives grade:), feet and inches:
+    tileflux system my-system.yaml --out plan --units us
+
+SYSTEM.yaml lists mains as reaches from the downstream end upward (length, optional grade,
+laterals {count, length, spacing, grade}, area, inletFlow); a main that is not at the outlet
+names the main and station it joins. PROFILE.csv has main,station_m,elevation_m (or _ft).
+See the README section "Drain systems".
+
+${CAUTION}
+Trenching is dangerous: locate buried utilities and follow the excavation safety rules.`;
+
+/** Register `tileflux system`. */
+export function registerSystem(program: Command): void {
+  program
+    .command('system')
+    .summary('design a drain system: mains and laterals sized, grades and depth of cut')
+    .description(
+      'Size every reach of every main and every lateral group of a drain system for the area ' +
+        'above it times the drainage coefficient (Manning, full pipe), lay the grades on a ' +
+        'ground profile from the outlet upward between the minimum (flushing) grade and the ' +
+        'ground, report the depth of cut and flag stations outside the cover and depth limits.',
+    )
+    .argument('<system>', 'system file (YAML)')
+    .option('-p, --profile <csv>', 'ground profile: main,station_m,elevation_m (or _ft)')
+    .option('-o, --out <dir>', 'output folder (required)')
+    .option('--round <rule>', 'round sizes up (default, common practice) or down; overrides the file')
+    .option('--units <system>', 'units of written and printed figures: si or us', 'si')
+    .option('--no-charts', 'skip the charts/ folder')
+    .option('--no-report', 'skip report.html')
+    .option('-f, --force', 'replace the output folder if it exists')
+    .option('--json', 'print the design summary as JSON')
+    .addHelpText('after', HELP)
+    .action(action((systemPath: string, o: SystemFlags) => run(systemPath, o)));
+}
