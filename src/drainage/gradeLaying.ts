@@ -53,11 +53,7 @@ export function groundAt(profile: GroundProfile, stationM: number, main: string)
 
 /** What a reach's grade is held to. */
 export type GradeLimit =
-  | 'design depth'
-  | 'minimum grade'
-  | 'minimum cover'
-  | 'maximum depth'
-  | 'fixed';
+  'design depth' | 'minimum grade' | 'minimum cover' | 'maximum depth' | 'fixed';
 
 export interface LayReachInput {
   /** Invert elevation at the lower end, m. */
@@ -104,7 +100,8 @@ export function layReach(p: LayReachInput): { grade: number; limit: GradeLimit }
   }
   const lo = Math.max(p.minimumGrade, machineLo);
   if (lo <= coverHi) {
-    if (aim < lo) return { grade: lo, limit: lo === p.minimumGrade ? 'minimum grade' : 'maximum depth' };
+    if (aim < lo)
+      return { grade: lo, limit: lo === p.minimumGrade ? 'minimum grade' : 'maximum depth' };
     if (aim > coverHi) return { grade: coverHi, limit: 'minimum cover' };
     return { grade: aim, limit: 'design depth' };
   }

@@ -22,10 +22,21 @@
  * Tributary mains start at the invert of the main they join, at the junction station.
  */
 import { TilefluxError } from '../errors.js';
-import { layReach, groundAt, reachStations, type GradeLimit, type GroundProfile } from './gradeLaying.js';
+import {
+  layReach,
+  groundAt,
+  reachStations,
+  type GradeLimit,
+  type GroundProfile,
+} from './gradeLaying.js';
 import { fullFlowVelocity, manningDiameter, manningFullCapacity } from './manning.js';
 import { materialMinimumGrade, roughnessFor, type PipeMaterialName } from './pipeMaterials.js';
-import { pipeDiameterM, selectPipeSize, type PipeSizeList, type SelectedPipe } from './pipeSizes.js';
+import {
+  pipeDiameterM,
+  selectPipeSize,
+  type PipeSizeList,
+  type SelectedPipe,
+} from './pipeSizes.js';
 import type { Main, Reach, SystemTree } from './systemTree.js';
 
 /** Settings of a system design, SI units. */
@@ -162,7 +173,8 @@ function sizePipe(
   let pick = -1;
   if (s.round === 'up') pick = tries.findIndex((t) => t.diameterM >= t.required * SAME);
   else {
-    for (let i = 0; i < tries.length; i++) if (tries[i].diameterM <= tries[i].required / SAME) pick = i;
+    for (let i = 0; i < tries.length; i++)
+      if (tries[i].diameterM <= tries[i].required / SAME) pick = i;
     if (pick < 0) pick = 0;
   }
   if (pick < 0) {
@@ -306,25 +318,46 @@ export function designSystem(
           areaEachM2: area,
           pathCoefficientMmD: NaN,
         });
-        if (lat.grade < lat.minimumGrade) {
-          notes.push(
-            `Laterals ${g.id}: the grade ${(lat.grade * 100).toFixed(3)} % is flatter than the ` +
-              `minimum ${(lat.minimumGrade * 100).toFixed(3)} % for this size.`,
-          );
-        }
       }
     }
     const invert = (stationM: number): number => {
-      const d = designs.find((x) => stationM <= x.reach.toStationM + 1e-6) ?? designs[designs.length - 1];
+      const d =
+        designs.find((x) => stationM <= x.reach.toStationM + 1e-6) ?? designs[designs.length - 1];
       return d.invertFromM + d.grade * (stationM - d.reach.fromStationM);
     };
     invertAt.set(m.name, invert);
-    const summary: MainSummary = { name: m.name, lengthM: m.lengthM, shallowStations: 0, deepStations: 0 };
+    const summary: MainSummary = {
+      name: m.name,
+      lengthM: m.lengthM,
+      shallowStations: 0,
+      deepStations: 0,
+    };
     if (ground) profileOf(m, designs, ground, s, profile, summary);
     mains.push(summary);
     reaches.push(...designs);
   }
 
+  const flat = laterals.filter((l) => l.grade < l.minimumGrade);
+  if (flat.length > 0) {
+    const pct = (x: number) => `${(x * 100).toFixed(3)} %`;
+    const pairs = new Set(flat.map((l) => `${pct(l.grade)} < ${pct(l.minimumGrade)}`));
+    notes.push(
+      `Laterals ${flat.map((l) => l.id).join(', ')}: grades flatter than the minimum for their ` +
+        `size (${[...pairs].join('; ')}); sediment may settle where the soil holds fine sand or silt.`,
+    );
+  }
+  for (const m of tree.mains) {
+    const d = reaches.filter((r) => r.reach.main === m.name);
+    for (let i = 0; i + 1 < d.length; i++) {
+      if (d[i].selected.diameterM < d[i + 1].selected.diameterM) {
+        notes.push(
+          `Reach ${d[i].reach.id} (${d[i].selected.nominal} ${d[i].selected.unit}) is smaller than ` +
+            `${d[i + 1].reach.id} above it (${d[i + 1].selected.nominal} ${d[i + 1].selected.unit}), ` +
+            'carried by its steeper grade; many guides never let a main get smaller downstream.',
+        );
+      }
+    }
+  }
   for (const m of mains) {
     if (m.shallowStations > 0) {
       notes.push(
@@ -398,14 +431,16 @@ function profileOf(
   const tol = 1e-9;
   const points: Array<[number, ReachDesign]> = [[0, designs[0]]];
   for (const d of designs) {
-    for (const st of reachStations(ground, d.reach.fromStationM, d.reach.toStationM)) points.push([st, d]);
+    for (const st of reachStations(ground, d.reach.fromStationM, d.reach.toStationM))
+      points.push([st, d]);
   }
   for (const [stationM, d] of points) {
     const groundM = groundAt(ground, stationM, m.name);
     const invertM = d.invertFromM + d.grade * (stationM - d.reach.fromStationM);
     const cutM = groundM - invertM;
     const coverM = cutM - d.selected.diameterM;
-    const flag = coverM < s.minimumCoverM - tol ? 'shallow' : cutM > s.maximumDepthM + tol ? 'deep' : '';
+    const flag =
+      coverM < s.minimumCoverM - tol ? 'shallow' : cutM > s.maximumDepthM + tol ? 'deep' : '';
     if (flag === 'shallow') summary.shallowStations++;
     if (flag === 'deep') summary.deepStations++;
     out.push({ main: m.name, reachId: d.reach.id, stationM, groundM, invertM, cutM, coverM, flag });

@@ -10,6 +10,13 @@
  */
 import { z } from 'zod';
 import { zQuantity } from '../units/zodQuantity.js';
+import {
+  COEFFICIENT_CROPS,
+  COEFFICIENT_INLETS,
+  COEFFICIENT_SOILS,
+  DEFAULT_COEFFICIENT_PRESET,
+} from './drainageCoefficient.js';
+import { SEDIMENT_VELOCITY_MS } from './manning.js';
 import { PIPE_MATERIALS } from './pipeMaterials.js';
 
 const material = z.enum(PIPE_MATERIALS).describe(`Pipe material: ${PIPE_MATERIALS.join(', ')}`);
@@ -68,21 +75,36 @@ export const mainSchema = z.strictObject({
 export const systemSchema = z.strictObject({
   name: z.string().min(1).describe('Name of the plan'),
   description: z.string().optional(),
-  coefficient: zQuantity(
-    'rate',
-    'Drainage coefficient: the depth of water the system removes per day from the drained area',
-    { min: 0, exclusiveMin: true, max: 200 },
-  ),
+  coefficient: z
+    .union([
+      zQuantity('rate', 'Drainage coefficient', { min: 0, exclusiveMin: true, max: 200 }),
+      z.strictObject({
+        soil: z.enum(COEFFICIENT_SOILS).default(DEFAULT_COEFFICIENT_PRESET.soil),
+        crop: z.enum(COEFFICIENT_CROPS).default(DEFAULT_COEFFICIENT_PRESET.crop),
+        inlets: z.enum(COEFFICIENT_INLETS).default(DEFAULT_COEFFICIENT_PRESET.inlets),
+      }),
+    ])
+    .describe(
+      'Drainage coefficient: the depth of water removed per day from the drained area, as a ' +
+        'rate [mm/d; e.g. 12 mm/d or 0.5 in/d] or a preset {soil, crop, inlets} from the table ' +
+        'of drainage coefficients',
+    ),
+  profile: z
+    .string()
+    .min(1)
+    .optional()
+    .describe('Ground profile CSV, relative to this file (--profile overrides it)'),
   material: material.default('corrugated'),
   sizes: z
     .string()
     .default('in')
     .describe('Pipe sizes: in, mm or a list of inside diameters such as "4,5,6,8 in"'),
+  // 1.4 ft/s keeps fine sediment moving (SEDIMENT_VELOCITY_MS, manning.ts).
   velocity: zQuantity('velocity', 'Full-flow velocity of the minimum (flushing) grade', {
     min: 0,
     exclusiveMin: true,
     max: 5,
-  }).default(1.4 * 0.3048),
+  }).default(SEDIMENT_VELOCITY_MS),
   round: z
     .enum(['up', 'down'])
     .default('up')
@@ -98,6 +120,10 @@ export const systemSchema = z.strictObject({
     })
     .default({})
     .describe('The outlet: invert elevation, or depth below the ground at station 0'),
+  // Trench defaults: design depth 1.2 m (field drains lie 0.9-1.5 m deep in humid-region
+  // practice, common practice); minimum cover 0.6 m (2 ft, the least cover conservation practice
+  // standards for subsurface drains ask in mineral soils, from memory); maximum depth 2.5 m
+  // (assumption: about what drainage plows and trenchers reach; give the machine's figure).
   trench: z
     .strictObject({
       depth: zQuantity('length', 'Design depth of cut to the invert of the mains', {

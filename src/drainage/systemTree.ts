@@ -75,8 +75,9 @@ export interface SystemTree {
 /** Stations closer than this (m) are the same point. */
 const STATION_TOLERANCE_M = 1e-6;
 
+/** A problem at a key of the file; the reader of the file turns the key into a line. */
 function fail(key: string, message: string): never {
-  throw new TilefluxError(`${key}: ${message}`);
+  throw new TilefluxError(message, key);
 }
 
 /**

@@ -14,6 +14,8 @@ import { TilefluxError } from '../errors.js';
 import { fieldSchema, OVERRIDABLE, type Field } from '../scenarios/fieldSchema.js';
 import { ratingFromObservations, type RatingObservationsSection } from '../nitrate/schema.js';
 import type { RatingFit } from '../nitrate/types.js';
+// io/system.ts uses this module's YAML helpers in turn; both only call each other at run time.
+import { systemCapacityMmD } from './system.js';
 
 /** A validated field with its scenarios merged and validated. */
 export interface LoadedField {
@@ -373,5 +375,19 @@ export function readFieldFile(path: string): LoadedField {
     (f as { nitrate: unknown }).nitrate = config;
     loaded.ratingFits[section.observations] = fit;
   }
+  // A drain system named by the field file gives the capacity its selected sizes deliver.
+  fields.forEach((f, i) => {
+    if (f.drains.system === undefined) return;
+    const where =
+      i === 0 ? 'drains.system' : `scenario ${loaded.scenarios[i - 1].name}: drains.system`;
+    if (f.drains.capacity !== undefined || f.drains.pipe !== undefined) {
+      throw new TilefluxError(
+        `${where}: give drains.system, drains.capacity or drains.pipe, not more than one`,
+        path,
+      );
+    }
+    const systemPath = resolve(dirname(path), f.drains.system);
+    f.drains.capacity = systemCapacityMmD(systemPath, f.drains.spacing, where, path);
+  });
   return loaded;
 }

@@ -4,11 +4,13 @@
  * elevations along each main, `main,station_m,elevation_m` or with `_ft` columns).
  */
 import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
 import { CsvError, parse } from 'csv-parse/sync';
 import { TilefluxError } from '../errors.js';
+import { drainageCoefficient } from '../drainage/drainageCoefficient.js';
 import type { GroundProfile } from '../drainage/gradeLaying.js';
 import { pipeSizeList } from '../drainage/pipeSizes.js';
-import type { SystemSettings } from '../drainage/systemDesign.js';
+import { designSystem, type SystemSettings } from '../drainage/systemDesign.js';
 import { systemSchema, type SystemFile } from '../drainage/systemSchema.js';
 import { buildSystemTree, type SystemTree } from '../drainage/systemTree.js';
 import { US } from '../units/quantity.js';
@@ -19,7 +21,22 @@ export interface LoadedSystem {
   file: SystemFile;
   tree: SystemTree;
   settings: SystemSettings;
+  /** How the drainage coefficient was chosen, for people. */
+  coefficientText: string;
   text: string;
+}
+
+/** The coefficient in mm/d and how it was chosen: a given rate or a preset of the table. */
+function coefficientOf(c: SystemFile['coefficient']): { mmD: number; text: string } {
+  if (typeof c === 'number') return { mmD: c, text: 'given' };
+  const dc = drainageCoefficient(c);
+  const inD = (x: number) => +x.toFixed(3);
+  return {
+    mmD: dc.mmPerDay,
+    text:
+      `preset ${c.soil} soil, ${c.crop} crops, ${c.inlets} inlets: ${inD(dc.lowInPerDay)}-` +
+      `${inD(dc.highInPerDay)} in/d tabulated, middle taken; ${dc.source}`,
+  };
 }
 
 function readText(path: string): string {
@@ -65,8 +82,9 @@ export function parseSystem(text: string, file = 'system file'): LoadedSystem {
     }
     throw err;
   }
+  const coefficient = coefficientOf(f.coefficient);
   const settings: SystemSettings = {
-    coefficientMmD: f.coefficient,
+    coefficientMmD: coefficient.mmD,
     sizes: pipeSizeList(f.sizes, 'sizes'),
     velocityMs: f.velocity,
     round: f.round,
@@ -76,7 +94,7 @@ export function parseSystem(text: string, file = 'system file'): LoadedSystem {
     minimumCoverM: f.trench.minimumCover,
     maximumDepthM: f.trench.maximumDepth,
   };
-  return { file: f, tree, settings, text };
+  return { file: f, tree, settings, coefficientText: coefficient.text, text };
 }
 
 /** Read, validate and check a system file from disk. */
@@ -104,7 +122,10 @@ export function parseProfile(text: string, file = 'profile'): Map<string, Ground
     }) as unknown as CsvRecord[];
   } catch (err) {
     if (err instanceof CsvError) {
-      throw new TilefluxError(`the file is not valid CSV: ${err.message.replace(/\s+/g, ' ')}`, file);
+      throw new TilefluxError(
+        `the file is not valid CSV: ${err.message.replace(/\s+/g, ' ')}`,
+        file,
+      );
     }
     throw err;
   }
@@ -141,10 +162,16 @@ export function parseProfile(text: string, file = 'profile'): Map<string, Ground
       const text = record[c.index] ?? '';
       const x = Number(text);
       if (text === '' || !Number.isFinite(x)) {
-        throw new TilefluxError(`line ${line}: ${header[c.index]} expects a number; got "${text}"`, file);
+        throw new TilefluxError(
+          `line ${line}: ${header[c.index]} expects a number; got "${text}"`,
+          file,
+        );
       }
       if (name === 'station' && x < 0) {
-        throw new TilefluxError(`line ${line}: ${header[c.index]} must be at least 0; got ${text}`, file);
+        throw new TilefluxError(
+          `line ${line}: ${header[c.index]} must be at least 0; got ${text}`,
+          file,
+        );
       }
       return x * c.factor;
     };
@@ -177,4 +204,53 @@ export function parseProfile(text: string, file = 'profile'): Map<string, Ground
 /** Read ground profiles from a CSV file. */
 export function readProfileFile(path: string): Map<string, GroundProfile> {
   return parseProfile(readText(path), path);
+}
+
+/**
+ * The drain capacity (mm/d) a field's drains have when the field file names a system
+ * (`drains.system`): the smallest coefficient from a lateral to the outlet, with the grades laid
+ * on the system's own profile if it names one. The field's spacing must be the laterals'.
+ *
+ * @param systemPath  the system file, resolved
+ * @param spacingM    the field's drains.spacing
+ * @param where       the key for messages ("drains.system" or with the scenario)
+ * @param file        the field file, for messages
+ */
+export function systemCapacityMmD(
+  systemPath: string,
+  spacingM: number,
+  where: string,
+  file: string,
+): number {
+  let loaded: LoadedSystem;
+  try {
+    loaded = readSystemFile(systemPath);
+  } catch (err) {
+    if (err instanceof TilefluxError) {
+      throw new TilefluxError(`${where}: ${err.message}`, file);
+    }
+    throw err;
+  }
+  const profile =
+    loaded.file.profile === undefined
+      ? undefined
+      : readProfileFile(resolve(dirname(systemPath), loaded.file.profile));
+  const design = designSystem(loaded.tree, loaded.settings, profile);
+  const spacings = [...new Set(design.laterals.map((l) => l.spacingM))];
+  if (spacings.length === 0) {
+    throw new TilefluxError(
+      `${where}: ${systemPath} has no laterals to take the capacity from`,
+      file,
+    );
+  }
+  const off = spacings.filter((x) => Math.abs(x / spacingM - 1) > 0.01);
+  if (off.length > 0) {
+    throw new TilefluxError(
+      `${where}: the laterals of ${systemPath} are ${spacings.join(', ')} m apart and ` +
+        `drains.spacing is ${spacingM} m; give this field (or scenario) a system with its own ` +
+        'spacing, or drains.capacity',
+      file,
+    );
+  }
+  return design.fieldCoefficientMmD;
 }

@@ -362,7 +362,7 @@ export const NOSCRIPT_CHARTS =
   'beside this report.</p></noscript>';
 
 /**
- * Cautions of every design output (DESIGN.md section 8): codes, standards and a licensed
+ * Cautions of every design output (README, Cautions): codes, standards and a licensed
  * professional decide; trenching is dangerous.
  */
 export const DESIGN_CAUTIONS = [
@@ -459,11 +459,7 @@ export function buildReportHtml(
         scenarioTable(data),
     ],
     ['comparison', 'Comparison', comparisonTable(data)],
-    [
-      'charts',
-      'Charts',
-      chartFigures(names) + NOSCRIPT_CHARTS,
-    ],
+    ['charts', 'Charts', chartFigures(names) + NOSCRIPT_CHARTS],
     ['yearly', 'Year by year', yearlyTable(data)],
     ['methods', 'Methods and assumptions', methodsTable(data)],
     [
@@ -475,11 +471,7 @@ export function buildReportHtml(
         `(${BALANCE_TOLERANCE.nitrogenKgHa.toExponential(0)} kg N/ha for nitrogen) counts as closed.</p>` +
         balanceTable(data),
     ],
-    [
-      'cautions',
-      'Cautions',
-      cautionList(CAUTIONS),
-    ],
+    ['cautions', 'Cautions', cautionList(CAUTIONS)],
   ];
   return buildHtmlPage({
     title: data.title,

@@ -57,6 +57,7 @@ export function profileChartSpecs(
       field: 'station',
       type: 'quantitative' as const,
       title: `Station from the downstream end (${du.label})`,
+      scale: { domain: [0, r(m.lengthM)], nice: false },
     };
     const y = (field: string) => ({
       field,
@@ -71,7 +72,9 @@ export function profileChartSpecs(
           `${((m.maxCutStationM ?? 0) * du.factor).toFixed(0)} ${du.label}`;
     const name = profileChartName(m.name);
     if (name in out) {
-      throw new TilefluxError(`mains ${m.name} and another give the same chart name ${name}; rename one`);
+      throw new TilefluxError(
+        `mains ${m.name} and another give the same chart name ${name}; rename one`,
+      );
     }
     captions[name] =
       `Profile of main ${m.name}: ground line, pipe invert and the band between the minimum ` +
@@ -80,9 +83,10 @@ export function profileChartSpecs(
       $schema: VEGA_LITE_SCHEMA,
       title: {
         text: `Profile of main ${m.name}`,
-        subtitle:
-          `${planName}: ground (brown), pipe invert (blue); shaded: between the minimum cover ` +
-          `and the maximum depth${deepest}`,
+        subtitle: [
+          `${planName}: ground (brown) and pipe invert (blue)`,
+          `shaded: between the minimum cover and the maximum depth${deepest}`,
+        ],
       },
       width: 640,
       height: 280,
@@ -102,12 +106,23 @@ export function profileChartSpecs(
           encoding: {
             x,
             y: y('invert'),
-            tooltip: [{ field: 'station' }, { field: 'invert' }, { field: 'cut' }, { field: 'reach' }],
+            tooltip: [
+              { field: 'station' },
+              { field: 'invert' },
+              { field: 'cut' },
+              { field: 'reach' },
+            ],
           },
         },
         {
           transform: [{ filter: "datum.flag != ''" }],
-          mark: { type: 'point', shape: 'triangle-down', size: 90, color: FLAG_COLOUR, filled: true },
+          mark: {
+            type: 'point',
+            shape: 'triangle-down',
+            size: 90,
+            color: FLAG_COLOUR,
+            filled: true,
+          },
           encoding: { x, y: y('invert'), tooltip: [{ field: 'station' }, { field: 'flag' }] },
         },
       ],

@@ -8,7 +8,14 @@ import type { SystemDesign, SystemSettings } from '../drainage/systemDesign.js';
 import { MATERIAL_ROUGHNESS, PIPE_MATERIALS } from '../drainage/pipeMaterials.js';
 import { columnIn } from '../io/tables.js';
 import type { UnitSystem } from '../units/quantity.js';
-import { buildHtmlPage, cautionList, chartFigures, DESIGN_CAUTIONS, escapeHtml, NOSCRIPT_CHARTS } from './html.js';
+import {
+  buildHtmlPage,
+  cautionList,
+  chartFigures,
+  DESIGN_CAUTIONS,
+  escapeHtml,
+  NOSCRIPT_CHARTS,
+} from './html.js';
 import { fixed } from './format.js';
 import type { VegaBundles } from './vegaBundles.js';
 
@@ -16,6 +23,8 @@ export interface SystemReportInput {
   planName: string;
   systemFile: string;
   profileFile?: string;
+  /** How the drainage coefficient was chosen. */
+  coefficientText: string;
   generatedBy: string;
   units: UnitSystem;
   design: SystemDesign;
@@ -30,12 +39,28 @@ export interface SystemReportInput {
 
 /** Unit suffixes shown as the header's unit. */
 const UNIT_TEXT: Readonly<Record<string, string>> = {
-  m: 'm', ft: 'ft', mm: 'mm', in: 'in', ha: 'ha', ac: 'ac', l_s: 'L/s', cfs: 'ft3/s', m_s: 'm/s',
-  ft_s: 'ft/s', mm_d: 'mm/d', in_d: 'in/d', percent: '%', n: '-',
+  m: 'm',
+  ft: 'ft',
+  mm: 'mm',
+  in: 'in',
+  ha: 'ha',
+  ac: 'ac',
+  l_s: 'L/s',
+  cfs: 'ft3/s',
+  m_s: 'm/s',
+  ft_s: 'ft/s',
+  mm_d: 'mm/d',
+  in_d: 'in/d',
+  percent: '%',
+  n: '-',
 };
 
 /** Table of rows with headers from the column names ("design_flow_l_s" -> "design flow (L/s)"). */
-function rowsTable(rows: Array<Record<string, string | number>>, units: UnitSystem, id: string): string {
+function rowsTable(
+  rows: Array<Record<string, string | number>>,
+  units: UnitSystem,
+  id: string,
+): string {
   if (rows.length === 0) return '<p>None.</p>';
   const cols = Object.keys(rows[0]).map((key) => {
     const c = columnIn(key, units);
@@ -46,7 +71,10 @@ function rowsTable(rows: Array<Record<string, string | number>>, units: UnitSyst
   const decimals = (unit: string, x: number) =>
     unit === 'L/s' || unit === 'ft3/s' ? (Math.abs(x) < 10 ? 3 : 1) : unit === '%' ? 3 : 2;
   const head = cols
-    .map((c) => `<th scope="col">${escapeHtml(c.label)}${c.unit ? ` <span class="unit">(${escapeHtml(c.unit)})</span>` : ''}</th>`)
+    .map(
+      (c) =>
+        `<th scope="col">${escapeHtml(c.label)}${c.unit ? ` <span class="unit">(${escapeHtml(c.unit)})</span>` : ''}</th>`,
+    )
     .join('');
   const body = rows
     .map(
@@ -55,8 +83,13 @@ function rowsTable(rows: Array<Record<string, string | number>>, units: UnitSyst
         cols
           .map((c, i) => {
             const v = r[c.key];
-            const text = typeof v === 'number' ? fixed(v * c.factor, decimals(c.unit, v * c.factor)) : escapeHtml(String(v));
-            return i === 0 ? `<th scope="row">${text}</th>` : `<td${typeof v === 'number' ? '' : ' class="text"'}>${text}</td>`;
+            const text =
+              typeof v === 'number'
+                ? fixed(v * c.factor, decimals(c.unit, v * c.factor))
+                : escapeHtml(String(v));
+            return i === 0
+              ? `<th scope="row">${text}</th>`
+              : `<td${typeof v === 'number' ? '' : ' class="text"'}>${text}</td>`;
           })
           .join('') +
         '</tr>',
@@ -82,15 +115,22 @@ export const SYSTEM_CAUTIONS = [
 export function buildSystemReportHtml(p: SystemReportInput): string {
   const s = p.settings;
   const len = (m: number) => (p.units === 'us' ? `${fixed(m / 0.3048, 2)} ft` : `${fixed(m, 2)} m`);
-  const rate = (mmD: number) => (p.units === 'us' ? `${fixed(mmD / 25.4, 3)} in/d` : `${fixed(mmD, 2)} mm/d`);
-  const speed = (ms: number) => (p.units === 'us' ? `${fixed(ms / 0.3048, 2)} ft/s` : `${fixed(ms, 3)} m/s`);
+  const rate = (mmD: number) =>
+    p.units === 'us' ? `${fixed(mmD / 25.4, 3)} in/d` : `${fixed(mmD, 2)} mm/d`;
+  const speed = (ms: number) =>
+    p.units === 'us' ? `${fixed(ms / 0.3048, 2)} ft/s` : `${fixed(ms, 3)} m/s`;
   const settingRows: Array<[string, string]> = [
     ['System file', p.systemFile],
     ['Profile', p.profileFile ?? 'none: fixed grades only, no depth of cut'],
-    ['Drainage coefficient', rate(s.coefficientMmD)],
+    ['Drainage coefficient', `${rate(s.coefficientMmD)} (${p.coefficientText})`],
     ['Pipe sizes', `${s.sizes.nominal.join(', ')} ${s.sizes.unit} (${s.sizes.source})`],
     ['Flushing velocity (minimum grade)', speed(s.velocityMs)],
-    ['Rounding', s.round === 'up' ? 'up to the next size' : 'down to the next size (less than the chosen coefficient)'],
+    [
+      'Rounding',
+      s.round === 'up'
+        ? 'up to the next size'
+        : 'down to the next size (less than the chosen coefficient)',
+    ],
     ['Design depth of cut', len(s.depthM)],
     ['Minimum cover over the pipe', len(s.minimumCoverM)],
     ['Maximum depth of cut', len(s.maximumDepthM)],
@@ -103,7 +143,12 @@ export function buildSystemReportHtml(p: SystemReportInput): string {
   ];
   const settings =
     `<table class="keep" id="settings-table"><tbody>` +
-    settingRows.map(([k, v]) => `<tr><th scope="row">${escapeHtml(k)}</th><td class="text">${escapeHtml(v)}</td></tr>`).join('') +
+    settingRows
+      .map(
+        ([k, v]) =>
+          `<tr><th scope="row">${escapeHtml(k)}</th><td class="text">${escapeHtml(v)}</td></tr>`,
+      )
+      .join('') +
     `</tbody></table>`;
   const notes = p.design.notes.length
     ? `<ul id="notes">${p.design.notes.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>`
@@ -112,7 +157,9 @@ export function buildSystemReportHtml(p: SystemReportInput): string {
     .map(
       (m) =>
         `<li>Main ${escapeHtml(m.name)}: ${len(m.lengthM)}` +
-        (m.maxCutM === undefined ? '' : `, deepest cut ${len(m.maxCutM)} at station ${len(m.maxCutStationM ?? 0)}`) +
+        (m.maxCutM === undefined
+          ? ''
+          : `, deepest cut ${len(m.maxCutM)} at station ${len(m.maxCutStationM ?? 0)}`) +
         '</li>',
     )
     .join('');
@@ -123,7 +170,7 @@ export function buildSystemReportHtml(p: SystemReportInput): string {
   }).join('');
   const methods =
     '<p>Design flow of a reach = drained area above its lower end x drainage coefficient + ' +
-    'surface-inlet flow above it (common practice). Required diameter by Manning\'s equation for ' +
+    "surface-inlet flow above it (common practice). Required diameter by Manning's equation for " +
     'a full circular pipe, Q = (1/n) A R^(2/3) S^(1/2) (Chow 1959), rounded to the size list. ' +
     'Minimum grade: the grade at which the selected size reaches the flushing velocity flowing full. ' +
     'With a profile, each reach is laid at one grade from its lower invert toward the design depth ' +
@@ -140,7 +187,13 @@ export function buildSystemReportHtml(p: SystemReportInput): string {
     ['reaches', 'Mains, reach by reach', rowsTable(p.reachRows, p.units, 'reach-table')],
     ['laterals', 'Laterals', rowsTable(p.lateralRows, p.units, 'lateral-table')],
     ...(names.length
-      ? [['profiles', 'Profiles', chartFigures(names, p.captions) + NOSCRIPT_CHARTS] as [string, string, string]]
+      ? [
+          ['profiles', 'Profiles', chartFigures(names, p.captions) + NOSCRIPT_CHARTS] as [
+            string,
+            string,
+            string,
+          ],
+        ]
       : []),
     ['methods', 'Methods and sources', methods],
     ['cautions', 'Cautions', cautionList(SYSTEM_CAUTIONS)],

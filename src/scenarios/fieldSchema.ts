@@ -141,6 +141,13 @@ export const drainsSchema = z
     pipe: pipeSchema
       .optional()
       .describe('Lateral pipe, to compute the capacity by Manning (instead of capacity)'),
+    system: z
+      .string()
+      .min(1)
+      .optional()
+      .describe(
+        'Drain-system file (YAML, relative to this file; see `tileflux system`): its selected sizes set the capacity (instead of capacity or pipe)',
+      ),
     equivalentDepth: z
       .enum(['vdmw', 'moody'])
       .default('vdmw')

@@ -5,11 +5,11 @@
  * report.html into an output folder, atomically.
  */
 import { writeFileSync } from 'node:fs';
-import { basename, join } from 'node:path';
+import { basename, dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import { designSystem, type SystemDesign } from '../../drainage/systemDesign.js';
-import { readProfileFile, readSystemFile } from '../../io/system.js';
+import { readProfileFile, readSystemFile, type LoadedSystem } from '../../io/system.js';
 import { lateralRows, reachRows, systemSummary, writeSystemTables } from '../../io/systemFolder.js';
 import { writeCharts } from '../../report/index.js';
 import { profileChartSpecs } from '../../report/systemCharts.js';
@@ -43,7 +43,8 @@ function table(design: SystemDesign, units: UnitSystem): string {
     `${'pipe'.padEnd(14)} ${`area ${areaU}`.padStart(9)} ${`flow ${flowU}`.padStart(11)} ` +
     `${'needs'.padStart(8)} ${'size'.padStart(7)} ${'used'.padStart(5)} ${'grade %'.padStart(8)} ` +
     `${'min %'.padStart(6)} ${`eff. ${dcU}`.padStart(10)} ${'cut max'.padStart(8)}`;
-  const needs = (d: number) => (us ? `${fmt((d * 1000) / US.mmPerIn, 2)}in` : `${fmt(d * 1000, 0)}mm`);
+  const needs = (d: number) =>
+    us ? `${fmt((d * 1000) / US.mmPerIn, 2)}in` : `${fmt(d * 1000, 0)}mm`;
   const cut = (m: number | undefined) =>
     m === undefined ? '' : us ? `${fmt(m / US.mPerFt, 1)}ft` : `${fmt(m, 2)}m`;
   const line = (
@@ -63,6 +64,18 @@ function table(design: SystemDesign, units: UnitSystem): string {
   ].join('\n');
 }
 
+/** The profile to lay the grades on: --profile, else the system file's `profile:` (relative to it). */
+export function profileOf(
+  systemPath: string,
+  loaded: LoadedSystem,
+  option: string | undefined,
+): string | undefined {
+  if (option !== undefined) return option;
+  return loaded.file.profile === undefined
+    ? undefined
+    : resolve(dirname(systemPath), loaded.file.profile);
+}
+
 async function run(systemPath: string, o: SystemFlags): Promise<void> {
   const units = parseUnits(o.units);
   if (o.out === undefined) throw new TilefluxError('--out is required (the output folder)');
@@ -73,7 +86,8 @@ async function run(systemPath: string, o: SystemFlags): Promise<void> {
     }
     loaded.settings.round = o.round;
   }
-  const profiles = o.profile === undefined ? undefined : readProfileFile(o.profile);
+  const profilePath = profileOf(systemPath, loaded, o.profile);
+  const profiles = profilePath === undefined ? undefined : readProfileFile(profilePath);
   const design = designSystem(loaded.tree, loaded.settings, profiles);
   const planName = loaded.file.name;
   const { specs, captions } = profileChartSpecs(design, loaded.settings, units, planName);
@@ -90,7 +104,8 @@ async function run(systemPath: string, o: SystemFlags): Promise<void> {
         buildSystemReportHtml({
           planName,
           systemFile: basename(systemPath),
-          profileFile: o.profile === undefined ? undefined : basename(o.profile),
+          profileFile: profilePath === undefined ? undefined : basename(profilePath),
+          coefficientText: loaded.coefficientText,
           generatedBy: `tileflux ${VERSION}`,
           units,
           design,
@@ -114,7 +129,7 @@ async function run(systemPath: string, o: SystemFlags): Promise<void> {
           units === 'us'
             ? `${fmt(loaded.settings.coefficientMmD / US.mmPerIn, 3)} in/d`
             : `${fmt(loaded.settings.coefficientMmD, 1)} mm/d`
-        }, sizes rounded ${loaded.settings.round}`,
+        } (${loaded.coefficientText}), sizes rounded ${loaded.settings.round}`,
       '',
       table(design, units),
       '',
@@ -156,7 +171,10 @@ export function registerSystem(program: Command): void {
     .argument('<system>', 'system file (YAML)')
     .option('-p, --profile <csv>', 'ground profile: main,station_m,elevation_m (or _ft)')
     .option('-o, --out <dir>', 'output folder (required)')
-    .option('--round <rule>', 'round sizes up (default, common practice) or down; overrides the file')
+    .option(
+      '--round <rule>',
+      'round sizes up (default, common practice) or down; overrides the file',
+    )
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
     .option('--no-charts', 'skip the charts/ folder')
     .option('--no-report', 'skip report.html')
