@@ -237,7 +237,19 @@ export function readYamlMapping(text: string, file: string, topKeys: string): Ya
       file,
     );
   }
-  const raw = doc.toJS() as unknown;
+  let raw: unknown;
+  try {
+    raw = doc.toJS();
+  } catch (err) {
+    // The yaml library refuses documents whose aliases expand past a limit (an "alias bomb").
+    if (err instanceof ReferenceError && /alias/i.test(err.message)) {
+      throw new TilefluxError(
+        'YAML aliases (*name) expand to too many values (the resource guard against alias bombs); write the values out or use fewer aliases',
+        file,
+      );
+    }
+    throw err;
+  }
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     throw new TilefluxError(`expects a mapping of keys (${topKeys}) at the top level`, file);
   }

@@ -3,7 +3,7 @@
  * built from a RunOutput. Text builders are separate from the writing so that they can be tested
  * and so that the same input always gives byte-identical files.
  */
-import { writeFileSync } from 'node:fs';
+import { closeSync, openSync, writeFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
 import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import type { RatingFit } from '../nitrate/types.js';
@@ -12,7 +12,7 @@ import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
-import { columnsToCsv, recordIn, toCsv, type Column } from './tables.js';
+import { columnsToCsvChunks, recordIn, toCsv, type Column } from './tables.js';
 
 /** What the summary records about the inputs. */
 export interface RunMeta {
@@ -23,6 +23,8 @@ export interface RunMeta {
   fieldName: string;
   /** Nitrate ratings fitted to observation files named in the field file, by file name. */
   ratingFits?: Record<string, RatingFit>;
+  /** Paths of the input files, which an output folder must never hold (not in the summary). */
+  inputPaths?: string[];
 }
 
 /** Daily columns of one scenario, SI, in the column order of daily.csv. */
@@ -70,22 +72,46 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
 /**
  * daily.csv: every scenario's daily columns, one scenario after another. Pool columns exist only
  * for the pool model, so the columns every scenario has are kept, in the first one's order.
+ * Yields the text in pieces, so that a study of many scenarios and years is written to disk
+ * without ever being one string (memory does not grow with scenarios x days).
  */
-export function dailyCsv(run: RunOutput, units: UnitSystem): string {
+export function* dailyCsvChunks(run: RunOutput, units: UnitSystem): Generator<string> {
   const per = run.scenarios.map((s) => dailyColumns(run, s));
-  if (per.length === 0) return '';
+  if (per.length === 0) return;
   const names = per[0]
     .map((c) => c.name)
     .filter((name) => per.every((cols) => cols.some((c) => c.name === name)));
-  return per
-    .map((cols, k) =>
-      columnsToCsv(
-        names.map((n) => cols.find((c) => c.name === n)!),
-        units,
-        k === 0,
-      ),
-    )
-    .join('');
+  for (let k = 0; k < per.length; k++) {
+    const cols = per[k];
+    yield* columnsToCsvChunks(
+      names.map((n) => cols.find((c) => c.name === n)!),
+      units,
+      k === 0,
+    );
+  }
+}
+
+/** daily.csv as one string (small runs and tests; files are written by `writeDailyCsv`). */
+export function dailyCsv(run: RunOutput, units: UnitSystem): string {
+  return [...dailyCsvChunks(run, units)].join('');
+}
+
+/** Write daily.csv to `path` piece by piece, yielding to the event loop between pieces. */
+export async function writeDailyCsv(
+  path: string,
+  run: RunOutput,
+  units: UnitSystem,
+): Promise<void> {
+  const fd = openSync(path, 'w');
+  try {
+    for (const chunk of dailyCsvChunks(run, units)) {
+      writeSync(fd, chunk);
+      // Let a SIGINT or SIGTERM be handled (and the temporary folder removed) on long writes.
+      await new Promise((r) => setImmediate(r));
+    }
+  } finally {
+    closeSync(fd);
+  }
 }
 
 /** Mean of every numeric measure over the annual rows of one scenario. */
@@ -176,14 +202,18 @@ export function buildSummary(
   };
 }
 
-/** Write daily.csv, annual.csv and summary.json into `dir` (a fresh temporary folder). */
-export function writeRunFiles(
+/**
+ * Write daily.csv (unless `daily` is false), annual.csv and summary.json into `dir` (a fresh
+ * temporary folder).
+ */
+export async function writeRunFiles(
   dir: string,
   run: RunOutput,
   summary: unknown,
   units: UnitSystem,
-): void {
-  writeFileSync(join(dir, 'daily.csv'), dailyCsv(run, units));
+  daily = true,
+): Promise<void> {
+  if (daily) await writeDailyCsv(join(dir, 'daily.csv'), run, units);
   const annual = run.scenarios.flatMap((s) => s.annual) as unknown as Array<
     Record<string, string | number>
   >;

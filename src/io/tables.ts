@@ -72,7 +72,7 @@ export function toCsv(
         const v = r[c.key];
         return typeof v === 'number'
           ? numberText(v * c.factor, decimalsFor(c.name))
-          : String(v ?? '');
+          : safeCell(String(v ?? ''));
       }),
     );
   }
@@ -83,6 +83,16 @@ export function toCsv(
 export interface Column {
   name: string;
   values: ArrayLike<number> | ReadonlyArray<string>;
+}
+
+/**
+ * A text cell that a spreadsheet would run as a formula (it starts with =, +, -, @, a tab or a
+ * carriage return) gets a leading apostrophe, the OWASP "CSV injection" rule; other text and
+ * numbers are written unchanged.
+ * @example safeCell('=HYPERLINK("x")') // "'=HYPERLINK(\"x\")"
+ */
+export function safeCell(text: string): string {
+  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
 }
 
 /** A CSV field, quoted by csv-stringify when it needs quoting. */
@@ -101,7 +111,20 @@ export function columnsToCsv(
   units: UnitSystem,
   header = true,
 ): string {
-  if (columns.length === 0) return '';
+  return [...columnsToCsvChunks(columns, units, header, Infinity)].join('');
+}
+
+/**
+ * The same text as `columnsToCsv`, in pieces of at most `rowsPerChunk` lines, so that a large
+ * table can be written to a file without ever being one string.
+ */
+export function* columnsToCsvChunks(
+  columns: ReadonlyArray<Column>,
+  units: UnitSystem,
+  header = true,
+  rowsPerChunk = 4096,
+): Generator<string> {
+  if (columns.length === 0) return;
   const conv = columns.map((c) => {
     const u = columnIn(c.name, units);
     return {
@@ -112,9 +135,7 @@ export function columnsToCsv(
     };
   });
   const n = columns[0].values.length;
-  const lines: string[] = header
-    ? [stringify([conv.map((c) => c.name)]).replace(/\r?\n$/, '')]
-    : [];
+  let lines: string[] = header ? [stringify([conv.map((c) => c.name)]).replace(/\r?\n$/, '')] : [];
   const cache = new Map<string, string>();
   const cell = new Array<string>(conv.length);
   for (let i = 0; i < n; i++) {
@@ -125,15 +146,19 @@ export function columnsToCsv(
         const t = String(c.values[i]);
         let q = cache.get(t);
         if (q === undefined) {
-          q = field(t);
+          q = field(safeCell(t));
           cache.set(t, q);
         }
         cell[j] = q;
       }
     }
     lines.push(cell.join(','));
+    if (lines.length >= rowsPerChunk) {
+      yield lines.join('\n') + '\n';
+      lines = [];
+    }
   }
-  return lines.join('\n') + '\n';
+  if (lines.length > 0) yield lines.join('\n') + '\n';
 }
 
 /** Convert a record's numeric values and keys to the unit system (for JSON outputs). */

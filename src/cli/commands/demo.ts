@@ -26,7 +26,7 @@ export function registerDemo(program: Command): void {
     )
     .option('-o, --out <dir>', 'output folder', 'tileflux-demo')
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
-    .option('-f, --force', 'replace the output folder if it exists')
+    .option('-f, --force', 'replace the output folder if it exists and tileflux wrote it')
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(
       'after',

@@ -5,7 +5,7 @@
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { basename } from 'node:path';
+import { basename, dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import { readFieldFile } from '../../io/field.js';
@@ -38,6 +38,7 @@ export interface RunCommandOptions extends WeatherReadFlags {
   charts?: boolean;
   report?: boolean;
   year?: string;
+  daily?: string;
 }
 
 const ISO = /^\d{4}-\d{2}-\d{2}$/;
@@ -93,6 +94,11 @@ export function runFromFiles(
       weatherSha256: sha256(o.weather),
       fieldName: field.base.name,
       ratingFits: field.ratingFits,
+      inputPaths: [
+        fieldPath,
+        o.weather,
+        ...Object.keys(field.ratingFits).map((f) => resolve(dirname(fieldPath), f)),
+      ],
     },
   };
 }
@@ -104,12 +110,14 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   const flowU = units === 'us' ? 'in/yr' : 'mm/yr';
   const loadU = units === 'us' ? 'lb N/ac/yr' : 'kg N/ha/yr';
   const pct = (x: number | null) => (x === null ? '' : `${x >= 0 ? '+' : ''}${fmt(x, 0)}%`);
+  // The name column is as wide as the longest name, so different names never print the same.
+  const w = Math.max(16, ...comparison.map((r) => r.scenario.length));
   const lines = [
-    `${'scenario'.padEnd(16)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'wet days/yr'.padStart(12)}`,
+    `${'scenario'.padEnd(w)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'wet days/yr'.padStart(12)}`,
   ];
   for (const r of comparison) {
     lines.push(
-      `${r.scenario.slice(0, 16).padEnd(16)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.wet_days, 1).padStart(12)}`,
+      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.wet_days, 1).padStart(12)}`,
     );
   }
   return lines.join('\n');
@@ -138,6 +146,13 @@ export function runReport(
   return lines.join('\n');
 }
 
+/** Parse --daily: csv (the default) writes daily.csv, none skips it for large studies. */
+export function dailyOption(d: string | undefined): boolean {
+  if (d === undefined || d === 'csv') return true;
+  if (d === 'none') return false;
+  throw new TilefluxError(`--daily expects csv or none; got ${d}`);
+}
+
 /** Parse --year: a calendar year inside the reported period. */
 function chartYearOf(run: RunOutput, year: string | undefined): number | undefined {
   if (year === undefined) return undefined;
@@ -159,7 +174,7 @@ export async function writeRunFolder(
   meta: RunMeta,
   out: string,
   units: UnitSystem,
-  o: { force?: boolean; charts?: boolean; report?: boolean; year?: string },
+  o: { force?: boolean; charts?: boolean; report?: boolean; year?: string; daily?: string },
 ): Promise<{
   summary: ReturnType<typeof buildSummary>;
   written: string[];
@@ -168,36 +183,42 @@ export async function writeRunFolder(
   const comparison = comparisonOf(run);
   const chartYear = chartYearOf(run, o.year);
   const summary = buildSummary(run, meta, units, comparison);
-  const written = ['daily.csv', 'annual.csv', 'comparison.csv', 'summary.json'];
-  await writeDirAtomic(out, Boolean(o.force), async (dir) => {
-    writeRunFiles(dir, run, summary, units);
-    writeFileSync(
-      join(dir, 'comparison.csv'),
-      toCsv(
-        comparison.map((r) =>
-          Object.fromEntries(COMPARISON_COLUMNS.map((k) => [k, r[k] as string | number])),
+  const daily = dailyOption(o.daily);
+  const written = [...(daily ? ['daily.csv'] : []), 'annual.csv', 'comparison.csv', 'summary.json'];
+  await writeDirAtomic(
+    out,
+    Boolean(o.force),
+    async (dir) => {
+      await writeRunFiles(dir, run, summary, units, daily);
+      writeFileSync(
+        join(dir, 'comparison.csv'),
+        toCsv(
+          comparison.map((r) =>
+            Object.fromEntries(COMPARISON_COLUMNS.map((k) => [k, r[k] as string | number])),
+          ),
+          units,
         ),
+      );
+      if (o.charts === false && o.report === false) return;
+      const data = reportDataOf(run, {
+        fieldName: meta.fieldName,
+        weatherFile: meta.weatherFile,
         units,
-      ),
-    );
-    if (o.charts === false && o.report === false) return;
-    const data = reportDataOf(run, {
-      fieldName: meta.fieldName,
-      weatherFile: meta.weatherFile,
-      units,
-      chartYear,
-      comparison,
-    });
-    const specs = buildChartSpecs(data);
-    if (o.charts !== false) {
-      await writeCharts(dir, specs);
-      written.push('charts/');
-    }
-    if (o.report !== false) {
-      writeReport(dir, data, specs);
-      written.push('report.html');
-    }
-  });
+        chartYear,
+        comparison,
+      });
+      const specs = buildChartSpecs(data);
+      if (o.charts !== false) {
+        await writeCharts(dir, specs);
+        written.push('charts/');
+      }
+      if (o.report !== false) {
+        writeReport(dir, data, specs);
+        written.push('report.html');
+      }
+    },
+    { inputs: meta.inputPaths },
+  );
   return { summary, written, comparison };
 }
 
@@ -217,7 +238,10 @@ export function registerRun(program: Command): void {
     .requiredOption('-w, --weather <csv>', 'daily weather CSV (see `tileflux weather check`)');
   addWeatherReadOptions(cmd);
   cmd
-    .option('-o, --out <dir>', 'output folder (default: <field name>-run)')
+    .option(
+      '-o, --out <dir>',
+      'output folder (default: the field file’s name without extension, plus -run)',
+    )
     .option('-s, --scenario <name...>', 'run only these scenarios')
     .option(
       '--from <date>',
@@ -228,8 +252,9 @@ export function registerRun(program: Command): void {
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
     .option('--no-charts', 'skip the charts/ folder (faster, for scripted use)')
     .option('--no-report', 'skip report.html (faster, for scripted use)')
+    .option('--daily <what>', 'csv writes daily.csv, none skips it (large studies)', 'csv')
     .option('--year <year>', 'year shown in the water-table chart (default: the wettest year)')
-    .option('-f, --force', 'replace the output folder if it exists')
+    .option('-f, --force', 'replace the output folder if it exists and tileflux wrote it')
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(
       'after',
