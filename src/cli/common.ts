@@ -430,7 +430,7 @@ export function fmt(x: number, decimals = 1): string {
   return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
 }
 
-/** One-line caution printed under design and simulation results (DESIGN.md section 8). */
+/** One-line caution printed under design and simulation results (README, Cautions). */
 export const CAUTION =
   'Planning estimate from simplified physics. Local drainage guides, conservation practice ' +
   'standards, permits and a licensed professional decide the design.';

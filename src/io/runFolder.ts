@@ -1,5 +1,5 @@
 /**
- * The outputs of `tileflux run`: daily.csv, annual.csv and summary.json (DESIGN.md section 5),
+ * The outputs of `tileflux run`: daily.csv, annual.csv and summary.json,
  * built from a RunOutput. Text builders are separate from the writing so that they can be tested
  * and so that the same input always gives byte-identical files.
  */
