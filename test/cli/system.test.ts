@@ -3,29 +3,13 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
-import { cli, cliJson as json, ensureBuilt, expectUserError } from './spacing.build.js';
+import { cli, cliJson as json, expectUserError } from './harness.js';
 import { readFieldFile } from '../../src/io/field.js';
 import { parseProfile, parseSystem } from '../../src/io/system.js';
 
 const tmp = mkdtempSync(join(tmpdir(), 'tileflux-system-'));
 const DEMO = ['data-demo/system.yaml', '--profile', 'data-demo/profile.csv'];
 
-beforeAll(() => {
-  ensureBuilt('dist/cli/commands/system.js', [
-    'src/cli/main.ts',
-    'src/cli/commands/system.ts',
-    'src/drainage/systemDesign.ts',
-    'src/drainage/systemTree.ts',
-    'src/drainage/gradeLaying.ts',
-    'src/drainage/pipeMaterials.ts',
-    'src/drainage/systemSchema.ts',
-    'src/io/system.ts',
-    'src/io/systemFolder.ts',
-    'src/report/systemCharts.ts',
-    'src/report/systemHtml.ts',
-    'src/report/html.ts',
-  ]);
-}, 180_000);
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
 function csv(path: string): Array<Record<string, string>> {
