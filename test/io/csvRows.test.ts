@@ -11,7 +11,6 @@ import { OPTIONAL_WEATHER_FIELDS } from '../../src/climate/weatherSeries.js';
 // The record reader is checked against csv-parse (the library the weather reader used before,
 // with the options it used), numbers against Number() and dates against the Date-based calendar.
 
-
 function viaCsvParse(text: string) {
   return (
     parse(text, {
