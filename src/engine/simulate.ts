@@ -2,7 +2,8 @@
  * The daily water-balance engine: water table midway between drains, drain outflow, surface
  * runoff, crop ET and deep seepage for one field, layout and outlet schedule.
  *
- * Method (a field-scale "drainage volume" model in the line of Skaggs 1980):
+ * Method: the water balance of a drained profile, with published equations for each flux
+ * (README "Methods"):
  * - The profile above the restrictive layer holds (i) a root-zone depletion below field capacity,
  *   made by ET and refilled first by infiltration, and (ii) a drained air volume above the water
  *   table, tied to the water-table depth by the drainable porosity (see porosityProfile.ts).
@@ -10,8 +11,9 @@
  * - Drain outflow is Hooghoudt's steady-state equation applied quasi-steadily each sub-step,
  *   q = (8 K2 d h + 4 K1 h^2) / L^2, with h the midpoint head above the effective outlet level
  *   (the drain, or the control-structure level when that is shallower) and d the equivalent depth
- *   of the layer below that level (van der Molen & Wesseling 1991). When the surface is ponded
- *   and the profile saturated, Kirkham's (1957) ponded-surface rate applies if it is larger.
+ *   of the layer below that level (Hooghoudt 1940; van der Molen & Wesseling 1991). When the
+ *   surface is ponded and the profile saturated, Kirkham's (1957) ponded-surface rate applies if
+ *   it is larger.
  *   Outflow never exceeds the pipe capacity.
  * - Crop ET is Kc x ET0 (FAO-56 single crop coefficient), taken first from ponded water, then
  *   from the water table in proportion to exp(-(depth below the root zone) / decay length), the
@@ -20,7 +22,7 @@
  * - Surface water beyond the depression storage runs off. Infiltration is limited by what the
  *   profile can take (depletion + air) and by the saturated conductivity.
  * - Deep seepage leaves the saturated zone at a constant rate plus a conductance times the
- *   head above the restrictive layer.
+ *   head above the restrictive layer (Darcy leakage through a semi-pervious layer).
  * Every day the water balance P = ET + runoff + drain flow + seepage + change in storage (soil,
  * surface, snow) is computed from the states and its residual returned; a residual above
  * 1e-6 mm in any year is a defect and throws.

@@ -13,7 +13,6 @@ const US_SUFFIXES: ReadonlyArray<[string, string, number]> = [
   ['_mm_d', '_in_d', 1 / US.mmPerIn],
   ['_mm_yr', '_in_yr', 1 / US.mmPerIn],
   ['_mm', '_in', 1 / US.mmPerIn],
-  ['_cm_days', '_in_days', 10 / US.mmPerIn],
   ['_m_ha', '_ft_ac', (1 / US.mPerFt) * US.haPerAc],
   ['_kg_ha', '_lb_ac', US.lbAcPerKgHa],
   ['_m', '_ft', 1 / US.mPerFt],

@@ -197,12 +197,12 @@ const poolSchema = z
       .array(fertilizerEvent)
       .default(D.fertilizer.map((e) => ({ date: e.date, amount: e.amountKgHa, crops: e.crops })))
       .describe(
-        'Fertilizer and manure N events [list of {date, amount (kg N/ha), crops}; default 150 kg N/ha on 04-25 in corn years (regional rate guidelines, from memory)]',
+        'Fertilizer and manure N events [list of {date, amount (kg N/ha), crops}; default 150 kg N/ha on 04-25 in corn years (regional rate guidelines)]',
       ),
     mineralization: zKgHa('Net N mineralization a whole year at 20 degC would give', true)
       .default(D.mineralizationKgHaPerYear)
       .describe(
-        `Net N mineralization a whole year at 20 degC would give [kg N/ha per year; default ${D.mineralizationKgHaPerYear} (from memory)]`,
+        `Net N mineralization a whole year at 20 degC would give [kg N/ha per year; default ${D.mineralizationKgHaPerYear} (published figure; sources in src/nitrate/defaults.ts)]`,
       ),
     mineralizationQ10: z
       .number()
@@ -210,7 +210,7 @@ const poolSchema = z
       .max(5)
       .default(D.mineralizationQ10)
       .describe(
-        `Q10 of mineralization (rate ratio per 10 degC) [-; default ${D.mineralizationQ10} (from memory)]`,
+        `Q10 of mineralization (rate ratio per 10 degC) [-; default ${D.mineralizationQ10} (published figure; sources in src/nitrate/defaults.ts)]`,
       ),
     uptake: z
       .record(z.string().min(1), zKgHa('Seasonal crop N uptake from the soil'))
@@ -220,7 +220,7 @@ const poolSchema = z
           uptakeDefaults,
         )
           .map(([k, v]) => `${k} ${v}`)
-          .join(', ')} (from memory)]`,
+          .join(', ')} (published figure; sources in src/nitrate/defaults.ts)]`,
       ),
     uptakeHalfSaturation: zKgHa('Pool at which crops take half their daily demand')
       .default(D.uptakeHalfSaturationKgHa)
@@ -233,7 +233,7 @@ const poolSchema = z
     })
       .default(D.uptakeMidpoint)
       .describe(
-        `Season fraction (0 planting, 1 harvest) by which half the uptake is taken [fraction; default ${D.uptakeMidpoint} (from memory)]`,
+        `Season fraction (0 planting, 1 harvest) by which half the uptake is taken [fraction; default ${D.uptakeMidpoint} (published figure; sources in src/nitrate/defaults.ts)]`,
       ),
     uptakeSteepness: z
       .number()
@@ -253,7 +253,9 @@ const poolSchema = z
       .min(1)
       .max(5)
       .default(D.denitrificationQ10)
-      .describe(`Q10 of denitrification [-; default ${D.denitrificationQ10} (from memory)]`),
+      .describe(
+        `Q10 of denitrification [-; default ${D.denitrificationQ10} (published figure; sources in src/nitrate/defaults.ts)]`,
+      ),
     saturationThreshold: fraction('Saturated fraction below which no denitrification happens', 0.95)
       .default(D.saturationThreshold)
       .describe(

@@ -9,12 +9,12 @@ import type { ComparisonRow } from '../scenarios/compare.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import { CHART_CAPTIONS, type ChartName } from './charts.js';
 import { fixed, signed } from './format.js';
-import { headlineLines, wetnessChangeLines } from './summary.js';
+import { cropConditionLines, headlineLines } from './summary.js';
 import type { ReportData } from './types.js';
 import { displayUnits, type DisplayUnit } from './units.js';
 import { loadVegaBundles, type VegaBundles } from './vegaBundles.js';
 
-/** Largest annual balance residual reported as closed (DESIGN.md section 6: 1e-6 mm per year). */
+/** Largest annual balance residual reported as closed (the engine closes it to 1e-6 mm per year). */
 export const BALANCE_TOLERANCE = { waterMm: 1e-6, nitrogenKgHa: 1e-6 } as const;
 
 const HTML_ESCAPES: Readonly<Record<string, string>> = {
@@ -105,6 +105,10 @@ figure { margin: 1.6rem 0; }
 figcaption { color: var(--muted); font-size: 0.88rem; margin-top: 0.3rem; }
 .cautions { border-left: 4px solid var(--warn); background: #fbf3f2; padding: 0.6rem 1rem; }
 .cautions li { margin: 0.3rem 0; }
+tr.group th { text-align: left; font-weight: 600; color: var(--accent); padding-top: 0.7rem; }
+thead th.group { text-align: center; border-bottom: 1px solid var(--rule); }
+dl.glossary dt { font-weight: 600; margin-top: 0.6rem; }
+dl.glossary dd { margin: 0.1rem 0 0 1.2rem; }
 .ok { color: #2c6e2f; }
 .bad { color: var(--warn); font-weight: 600; }
 footer { margin-top: 2.5rem; color: var(--muted); font-size: 0.8rem;
@@ -129,8 +133,15 @@ function shown(x: number | null, u: Pick<DisplayUnit, 'factor' | 'decimals'>): s
 const DAYS: DisplayUnit = { factor: 1, label: 'days', decimals: 1 };
 const PERCENT_DECIMALS = 1;
 
+/** The questions the tables are grouped by. */
+const LAYOUT = 'The drains';
+const WATER = 'Water leaving the field';
+const NITRATE = 'Nitrate-N leaving the field';
+const CROP = "The crop's conditions";
+
 /** One measure row of the comparison table (measures down, scenarios across). */
 interface MeasureRow {
+  group: string;
   label: string;
   unit: string;
   value: (r: ComparisonRow) => string;
@@ -142,16 +153,34 @@ function figure(r: ComparisonRow, column: string): number | null {
   return (r as unknown as Record<string, number | null>)[column] ?? null;
 }
 
+/** Length of a window as a plain count, from the baseline's mean (the same calendar for all). */
+function windowDays(data: ReportData, column: 'spring_window_days' | 'fall_window_days'): string {
+  const base = data.comparison.find((r) => r.is_baseline) ?? data.comparison[0];
+  return fixed(base ? base[column] : null, 0);
+}
+
 function comparisonMeasures(data: ReportData): MeasureRow[] {
   const du = displayUnits(data.units);
   const perYear = (u: DisplayUnit) => `${u.label}/yr`;
   const depth = { ...du.length, decimals: 2 };
   const spacing = { ...du.length, decimals: 1 };
-  // [label, display unit, unit text, mean column, stem and unit of the change columns]
-  const compared: Array<[string, DisplayUnit, string, string, string, string]> = [
-    ['Lateral pipe length', du.pipe, du.pipe.label, 'pipe_length_m_ha', 'pipe_length', 'm_ha'],
-    ['Drain flow', du.water, perYear(du.water), 'drainflow_mm', 'drainflow', 'mm'],
+  // [group, label, display unit, unit text, mean column, stem and unit of the change columns]
+  const compared: Array<[string, string, DisplayUnit, string, string, string, string]> = [
     [
+      LAYOUT,
+      'Lateral pipe length',
+      du.pipe,
+      du.pipe.label,
+      'pipe_length_m_ha',
+      'pipe_length',
+      'm_ha',
+    ],
+    [WATER, 'Drain flow', du.water, perYear(du.water), 'drainflow_mm', 'drainflow', 'mm'],
+    [WATER, 'Surface runoff', du.water, perYear(du.water), 'runoff_mm', 'runoff', 'mm'],
+    [WATER, 'Deep seepage', du.water, perYear(du.water), 'seepage_mm', 'seepage', 'mm'],
+    [WATER, 'Evapotranspiration', du.water, perYear(du.water), 'et_mm', 'et', 'mm'],
+    [
+      NITRATE,
       'Nitrate-N load in drain flow',
       du.load,
       perYear(du.load),
@@ -159,37 +188,83 @@ function comparisonMeasures(data: ReportData): MeasureRow[] {
       'no3_load',
       'kg_ha',
     ],
-    ['Flow-weighted nitrate-N concentration', du.conc, du.conc.label, 'fwmc_mg_l', 'fwmc', 'mg_l'],
-    ['Surface runoff', du.water, perYear(du.water), 'runoff_mm', 'runoff', 'mm'],
-    ['Evapotranspiration', du.water, perYear(du.water), 'et_mm', 'et', 'mm'],
-    ['Deep seepage', du.water, perYear(du.water), 'seepage_mm', 'seepage', 'mm'],
-    ['Wet days in the growing season', DAYS, 'days/yr', 'wet_days', 'wet', 'days'],
     [
-      'Excess wetness',
-      du.wetness,
-      perYear(du.wetness),
-      'excess_wetness_cm_days',
-      'excess_wetness',
-      'cm_days',
+      NITRATE,
+      'Flow-weighted nitrate-N concentration',
+      du.conc,
+      du.conc.label,
+      'fwmc_mg_l',
+      'fwmc',
+      'mg_l',
     ],
-    ['Planting-ready days', DAYS, 'days/yr', 'planting_ready_days', 'planting_ready', 'days'],
-    ['Harvest-ready days', DAYS, 'days/yr', 'harvest_ready_days', 'harvest_ready', 'days'],
-    ['Water-stress days', DAYS, 'days/yr', 'stress_days', 'stress', 'days'],
-    ['Mean water-table depth', depth, du.length.label, 'wt_mean_depth_m', 'wt_mean_depth', 'm'],
+    [
+      CROP,
+      'Aeration-stress days',
+      DAYS,
+      'days/yr',
+      'aeration_stress_days',
+      'aeration_stress',
+      'days',
+    ],
+    [
+      CROP,
+      'Aeration deficit',
+      DAYS,
+      'days without air/yr',
+      'aeration_deficit_days',
+      'aeration_deficit',
+      'days',
+    ],
+    [CROP, 'Water-stress days', DAYS, 'days/yr', 'stress_days', 'stress', 'days'],
+    [CROP, 'Wet days', DAYS, 'days/yr', 'wet_days', 'wet', 'days'],
+    [
+      CROP,
+      `Spring fieldwork days, of ${windowDays(data, 'spring_window_days')} in the window`,
+      DAYS,
+      'days/yr',
+      'spring_fieldwork_days',
+      'spring_fieldwork',
+      'days',
+    ],
+    [
+      CROP,
+      `Fall fieldwork days, of ${windowDays(data, 'fall_window_days')} in the window`,
+      DAYS,
+      'days/yr',
+      'fall_fieldwork_days',
+      'fall_fieldwork',
+      'days',
+    ],
+    [
+      CROP,
+      'Mean water-table depth',
+      depth,
+      du.length.label,
+      'wt_mean_depth_m',
+      'wt_mean_depth',
+      'm',
+    ],
   ];
-  const spread: Array<[string, DisplayUnit, string, string]> = [
-    ['Drain flow across years', du.water, 'drainflow', 'mm'],
-    ['Nitrate-N load across years', du.load, 'no3_load', 'kg_ha'],
+  const spread: Array<[string, string, DisplayUnit, string, string]> = [
+    [WATER, 'Drain flow across years', du.water, 'drainflow', 'mm'],
+    [NITRATE, 'Nitrate-N load across years', du.load, 'no3_load', 'kg_ha'],
   ];
   const scenario = (r: ComparisonRow) => data.scenarios.find((s) => s.name === r.scenario);
-  return [
+  const rows: MeasureRow[] = [
     {
+      group: LAYOUT,
       label: 'Drain depth',
       unit: du.length.label,
       value: (r) => shown(scenario(r)?.drainDepthM ?? null, depth),
     },
-    { label: 'Lateral spacing', unit: du.length.label, value: (r) => shown(r.spacing_m, spacing) },
-    ...compared.map(([label, u, unit, column, stem, suffix]): MeasureRow => ({
+    {
+      group: LAYOUT,
+      label: 'Lateral spacing',
+      unit: du.length.label,
+      value: (r) => shown(r.spacing_m, spacing),
+    },
+    ...compared.map(([group, label, u, unit, column, stem, suffix]): MeasureRow => ({
+      group,
       label,
       unit,
       value: (r) => shown(figure(r, column), u),
@@ -199,7 +274,8 @@ function comparisonMeasures(data: ReportData): MeasureRow[] {
         return `${signed(abs === null ? null : abs * u.factor, u.decimals)} (${signed(pct, PERCENT_DECIMALS)} %)`;
       },
     })),
-    ...spread.map(([label, u, stem, suffix]): MeasureRow => ({
+    ...spread.map(([group, label, u, stem, suffix]): MeasureRow => ({
+      group,
       label,
       unit: `${perYear(u)}, min / median / max`,
       value: (r) =>
@@ -208,6 +284,8 @@ function comparisonMeasures(data: ReportData): MeasureRow[] {
           .join(' / '),
     })),
   ];
+  const order = [LAYOUT, WATER, NITRATE, CROP];
+  return rows.sort((x, y) => order.indexOf(x.group) - order.indexOf(y.group));
 }
 
 function comparisonTable(data: ReportData): string {
@@ -219,8 +297,13 @@ function comparisonTable(data: ReportData): string {
         `${r.is_baseline ? '<span class="chg">baseline</span>' : ''}</th>`,
     )
     .join('');
+  let group = '';
   const body = comparisonMeasures(data)
     .map((m) => {
+      const heading =
+        m.group === group
+          ? ''
+          : `<tr class="group"><th scope="rowgroup" colspan="${rows.length + 1}">${escapeHtml((group = m.group))}</th></tr>\n`;
       const cells = rows
         .map((r) => {
           const change =
@@ -228,7 +311,7 @@ function comparisonTable(data: ReportData): string {
           return `<td${r.is_baseline ? ' class="is-baseline"' : ''}>${m.value(r)}${change}</td>`;
         })
         .join('');
-      return `<tr><th scope="row">${m.label} <span class="unit">(${escapeHtml(m.unit)})</span></th>${cells}</tr>`;
+      return `${heading}<tr><th scope="row">${escapeHtml(m.label)} <span class="unit">(${escapeHtml(m.unit)})</span></th>${cells}</tr>`;
     })
     .join('\n');
   return (
@@ -266,19 +349,49 @@ function yearlyTable(data: ReportData): string {
   const rows: AnnualRow[] = data.annual
     .filter((r) => order.includes(r.scenario))
     .sort((a, b) => order.indexOf(a.scenario) - order.indexOf(b.scenario) || a.year - b.year);
-  const cols: Array<[string, string, (r: AnnualRow) => string]> = [
-    ['Precipitation', du.water.label, (r) => shown(r.precip_mm, du.water)],
-    ['Drain flow', du.water.label, (r) => shown(r.drainflow_mm, du.water)],
-    ['Runoff', du.water.label, (r) => shown(r.runoff_mm, du.water)],
-    ['ET', du.water.label, (r) => shown(r.et_mm, du.water)],
-    ['Seepage', du.water.label, (r) => shown(r.seepage_mm, du.water)],
-    ['Nitrate-N load', du.load.label, (r) => shown(r.no3_load_kg_ha, du.load)],
-    ['Concentration', du.conc.label, (r) => shown(r.fwmc_mg_l, du.conc)],
-    ['Wet days', 'days', (r) => fixed(r.wet_days, 0)],
-    ['Excess wetness', du.wetness.label, (r) => shown(r.excess_wetness_cm_days, du.wetness)],
-    ['Planting-ready', 'days', (r) => fixed(r.planting_ready_days, 0)],
-    ['Harvest-ready', 'days', (r) => fixed(r.harvest_ready_days, 0)],
+  const of = (n: number, of: number) => `${fixed(n, 0)} / ${fixed(of, 0)}`;
+  const groups: Array<[string, Array<[string, string, (r: AnnualRow) => string]>]> = [
+    [
+      WATER,
+      [
+        ['Drains', du.water.label, (r) => shown(r.drainflow_mm, du.water)],
+        ['Surface', du.water.label, (r) => shown(r.runoff_mm, du.water)],
+        ['Seepage', du.water.label, (r) => shown(r.seepage_mm, du.water)],
+        ['To the air (ET)', du.water.label, (r) => shown(r.et_mm, du.water)],
+      ],
+    ],
+    [
+      NITRATE,
+      [
+        ['In drain water', du.load.label, (r) => shown(r.no3_load_kg_ha, du.load)],
+        ['Concentration', du.conc.label, (r) => shown(r.fwmc_mg_l, du.conc)],
+      ],
+    ],
+    [
+      CROP,
+      [
+        ['Aeration stress', 'days', (r) => fixed(r.aeration_stress_days, 0)],
+        ['Water stress', 'days', (r) => fixed(r.stress_days, 0)],
+        ['Wet', 'days', (r) => fixed(r.wet_days, 0)],
+        [
+          'Spring fieldwork',
+          'days of window',
+          (r) => of(r.spring_fieldwork_days, r.spring_window_days),
+        ],
+        ['Fall fieldwork', 'days of window', (r) => of(r.fall_fieldwork_days, r.fall_window_days)],
+      ],
+    ],
+    [
+      "The year's weather",
+      [['Precipitation', du.water.label, (r) => shown(r.precip_mm, du.water)]],
+    ],
   ];
+  const cols = groups.flatMap(([, c]) => c);
+  const top = groups
+    .map(
+      ([g, c]) => `<th scope="colgroup" colspan="${c.length}" class="group">${escapeHtml(g)}</th>`,
+    )
+    .join('');
   const head = cols
     .map(([h, u]) => `<th scope="col">${h} <span class="unit">(${escapeHtml(u)})</span></th>`)
     .join('');
@@ -291,8 +404,95 @@ function yearlyTable(data: ReportData): string {
     )
     .join('\n');
   return (
-    `<table class="yearly" id="yearly-table"><thead><tr><th scope="col">Scenario</th>` +
-    `<th scope="col">Year</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+    `<table class="yearly" id="yearly-table"><thead>` +
+    `<tr><th scope="col" rowspan="2">Scenario</th><th scope="col" rowspan="2">Year</th>${top}</tr>` +
+    `<tr>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+const MONTHS = 'Jan Feb Mar Apr May Jun Jul Aug Sep Oct Nov Dec'.split(' ');
+
+/** "MM-DD" as "15 Apr". */
+function dayMonth(key: string): string {
+  return `${Number(key.slice(3))} ${MONTHS[Number(key.slice(0, 2)) - 1]}`;
+}
+
+function windowText(w: { from: string; to: string }): string {
+  return `${dayMonth(w.from)} to ${dayMonth(w.to)}`;
+}
+
+/** The glossary: every measure in the tables, with the windows and thresholds of this run. */
+function glossary(data: ReportData): string {
+  const du = displayUnits(data.units);
+  const m = data.measures;
+  const len = (x: number) => `${shown(x, { ...du.length, decimals: 2 })} ${du.length.label}`;
+  const pct = (x: number) => `${fixed(100 * x, 0)} %`;
+  const season = `the growing season (${windowText(m.growingSeason)})`;
+  const entries: Array<[string, string]> = [
+    [
+      'Drain flow',
+      "Water leaving through the drains, as a depth over the drained area, from Hooghoudt's " +
+        "equation (Kirkham's when the surface is ponded) and the outlet level in force.",
+    ],
+    ['Surface runoff', 'Water running off once the depression storage on the surface is full.'],
+    [
+      'Deep seepage',
+      'Water leaking down through the restrictive layer to the regional groundwater (Darcy leakage).',
+    ],
+    [
+      'Evapotranspiration (ET)',
+      'Water returned to the air by the crop and the soil surface (FAO-56 crop coefficient and ' +
+        'water-stress coefficient).',
+    ],
+    [
+      'Nitrate-N load',
+      `Nitrate-N leaving with drain water, ${du.load.label}: drain flow times its concentration.`,
+    ],
+    [
+      'Flow-weighted concentration',
+      'Total nitrate-N load divided by total drain flow over the period, mg/L.',
+    ],
+    [
+      'Aeration-stress days',
+      `Days in ${season} on which the air-filled porosity of the top ${len(m.aerationLayer)} ` +
+        `is below ${pct(m.aerationThreshold)} by volume, the usual limit below which roots lack ` +
+        'oxygen. Air-filled porosity is the pore space drained above the water table within that ' +
+        'layer (its drainable porosity) plus the water the crop has taken from it below field ' +
+        "capacity, over the layer's volume.",
+    ],
+    [
+      'Aeration deficit',
+      'How severe the aeration stress was: each aeration-stress day adds its shortfall of air as ' +
+        'a share of the limit (1 when the layer holds no air, 0.5 at half the limit), summed over ' +
+        'the season. Unit: days without air; ten days at half the limit count 5.',
+    ],
+    [
+      'Water-stress days',
+      `Days in ${season} on which the root zone is dry enough to hold transpiration below its ` +
+        'potential (FAO-56 water-stress coefficient Ks below 1).',
+    ],
+    [
+      'Wet days',
+      `Days in ${season} with the water table midway between the drains shallower than ` +
+        `${len(m.threshold)}.`,
+    ],
+    [
+      'Spring and fall fieldwork days',
+      `Days suitable for fieldwork in the spring window (${windowText(m.springWindow)}) and the ` +
+        `fall window (${windowText(m.fallWindow)}): the top ${len(m.surfaceLayer)} holds at most ` +
+        `${pct(m.trafficabilityLimit)} of its field-capacity water content, no water stands on the ` +
+        'surface and no snow covers it. Counts are given with the length of the window ' +
+        '("31 of 47 days").',
+    ],
+    [
+      'Mean water-table depth',
+      'Depth of the water table midway between the drains below the surface, averaged over the year.',
+    ],
+  ];
+  return (
+    `<dl class="glossary" id="glossary">` +
+    entries.map(([t, d]) => `<dt>${escapeHtml(t)}</dt><dd>${escapeHtml(d)}</dd>`).join('\n') +
+    `</dl>`
   );
 }
 
@@ -410,7 +610,7 @@ const EMBED_SCRIPT = `(function () {
 /**
  * The self-contained HTML report: the question, the inputs, the comparison table, the charts
  * (drawn in the page by vega-embed from `specs`), the year-by-year table, methods and sources,
- * water and nitrogen balance closure, and the cautions (DESIGN.md section 8). Opens from
+ * water and nitrogen balance closure, and the cautions (README "Cautions"). Opens from
  * file:// with no network access; `bundles` defaults to the builds in node_modules.
  *
  * @example writeFileSync('report.html', buildReportHtml(data, buildChartSpecs(data)))
@@ -424,7 +624,7 @@ export function buildReportHtml(
   const names = Object.keys(specs);
   const others = data.scenarios.filter((s) => s.name !== data.baseline).map((s) => s.name);
   const headline = headlineLines(data.comparison);
-  const wetness = wetnessChangeLines(data.comparison, data.units);
+  const wetness = cropConditionLines(data.comparison);
   const list = (lines: string[]) =>
     lines.length ? `<ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : '';
   const sections: Array<[id: string, heading: string, body: string]> = [
@@ -441,7 +641,7 @@ export function buildReportHtml(
         `sides of that trade.</p>` +
         (headline.length ? `<p>Drain flow and nitrate-N load:</p>${list(headline)}` : '') +
         (wetness.length
-          ? `<p id="wetness-summary">How wetness changed:</p>${list(wetness)}`
+          ? `<p id="wetness-summary">How the crop's conditions changed:</p>${list(wetness)}`
           : '<p>Only the baseline was simulated.</p>'),
     ],
     [
@@ -461,6 +661,7 @@ export function buildReportHtml(
     ['comparison', 'Comparison', comparisonTable(data)],
     ['charts', 'Charts', chartFigures(names) + NOSCRIPT_CHARTS],
     ['yearly', 'Year by year', yearlyTable(data)],
+    ['glossary', 'What the measures mean', glossary(data)],
     ['methods', 'Methods and assumptions', methodsTable(data)],
     [
       'balance',

@@ -12,7 +12,7 @@ export * from './charts.js';
 export * from './types.js';
 export { displayUnits, type DisplayUnit, type DisplayUnits } from './units.js';
 export { fixed, signed } from './format.js';
-export { headlineLines, wetnessChangeLines } from './summary.js';
+export { cropConditionLines, headlineLines } from './summary.js';
 export { buildReportHtml, escapeHtml, jsonForScript, BALANCE_TOLERANCE } from './html.js';
 export { loadVegaBundles, type VegaBundles } from './vegaBundles.js';
 export {

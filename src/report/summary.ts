@@ -1,37 +1,34 @@
 /**
  * Short sentences that say what changed against the baseline: the headline (drain flow and
- * nitrate-N load) and the price in field wetness. Used by the report and by the CLI.
+ * nitrate-N load) and the price in the crop's conditions. Used by the report and by the CLI.
  */
 import type { ComparisonRow } from '../scenarios/compare.js';
-import { signed } from './format.js';
-import { displayUnits } from './units.js';
+import { fixed, signed } from './format.js';
 
 function baselineOf(rows: readonly ComparisonRow[]): string {
   return rows.find((r) => r.is_baseline)?.scenario ?? '';
 }
 
 /**
- * One line per non-baseline scenario on how wetness changed against the baseline, per year on
- * average: growing-season wet days, excess wetness, planting- and harvest-ready days.
+ * One line per non-baseline scenario on how the crop's conditions changed against the
+ * baseline, per year on average: aeration-stress days, wet days, and days suitable for
+ * fieldwork in the spring and fall windows, each count beside its window's length.
  *
- * @example wetnessChangeLines(rows)
- * // ['controlled: +4.1 wet days per year, +12.0 cm-days of excess wetness, -1.3 planting-ready
- * //   days and -0.7 harvest-ready days against conventional']
+ * @example cropConditionLines(rows)
+ * // ['controlled: +1.9 aeration-stress days, +4.1 wet days, -0.4 spring fieldwork days of 47
+ * //   and -1.5 fall fieldwork days of 57 a year against conventional']
  */
-export function wetnessChangeLines(
-  rows: readonly ComparisonRow[],
-  units: 'si' | 'us' = 'si',
-): string[] {
-  const w = displayUnits(units).wetness;
+export function cropConditionLines(rows: readonly ComparisonRow[]): string[] {
   const base = baselineOf(rows);
   return rows
     .filter((r) => !r.is_baseline)
     .map(
       (r) =>
-        `${r.scenario}: ${signed(r.wet_change_days, 1)} wet days per year, ` +
-        `${signed(r.excess_wetness_change_cm_days * w.factor, 1)} ${w.label} of excess wetness, ` +
-        `${signed(r.planting_ready_change_days, 1)} planting-ready days and ` +
-        `${signed(r.harvest_ready_change_days, 1)} harvest-ready days against ${base}`,
+        `${r.scenario}: ${signed(r.aeration_stress_change_days, 1)} aeration-stress days, ` +
+        `${signed(r.wet_change_days, 1)} wet days, ` +
+        `${signed(r.spring_fieldwork_change_days, 1)} spring fieldwork days of ${fixed(r.spring_window_days, 0)} and ` +
+        `${signed(r.fall_fieldwork_change_days, 1)} fall fieldwork days of ${fixed(r.fall_window_days, 0)} ` +
+        `a year against ${base}`,
     );
 }
 

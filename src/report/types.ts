@@ -4,6 +4,7 @@
  * Everything is in the core's SI units; the report converts for display when `units` is 'us'.
  */
 import type { ComparisonRow } from '../scenarios/compare.js';
+import type { WetnessSettings } from '../scenarios/annual.js';
 import type { AnnualRow } from '../scenarios/types.js';
 
 /** Daily series of one scenario, aligned with `ReportData.daily.dates`. */
@@ -40,6 +41,8 @@ export interface ReportData {
   daily: { dates: string[]; series: ScenarioDailySeries[] };
   /** Water table shallower than this depth counts as wet, m. */
   wetThresholdM: number;
+  /** Windows and thresholds of the crop measures (the field file's `wetness` section, SI). */
+  measures: WetnessSettings;
   /** Calendar year shown in the water-table chart. */
   chartYear: number;
   balances: Array<{

@@ -22,8 +22,6 @@ export interface DisplayUnits {
   length: DisplayUnit;
   /** Lateral pipe length per area, from m/ha. */
   pipe: DisplayUnit;
-  /** Excess wetness (depth above the wet threshold summed over days), from cm-days. */
-  wetness: DisplayUnit;
   /** Concentration, mg/L in both systems. */
   conc: DisplayUnit;
 }
@@ -41,7 +39,6 @@ export function displayUnits(system: UnitSystem): DisplayUnits {
       load: { factor: US.lbAcPerKgHa, label: 'lb N/ac', decimals: 1 },
       length: { factor: 1 / US.mPerFt, label: 'ft', decimals: 1 },
       pipe: { factor: US.haPerAc / US.mPerFt, label: 'ft/ac', decimals: 0 },
-      wetness: { factor: 10 / US.mmPerIn, label: 'in-days', decimals: 1 },
       conc: { factor: 1, label: 'mg/L', decimals: 1 },
     };
   }
@@ -50,7 +47,6 @@ export function displayUnits(system: UnitSystem): DisplayUnits {
     load: { factor: 1, label: 'kg N/ha', decimals: 1 },
     length: { factor: 1, label: 'm', decimals: 2 },
     pipe: { factor: 1, label: 'm/ha', decimals: 0 },
-    wetness: { factor: 1, label: 'cm-days', decimals: 1 },
     conc: { factor: 1, label: 'mg/L', decimals: 1 },
   };
 }

@@ -1,17 +1,33 @@
 /**
- * Annual tables and the wetness measures (our own definitions, with configurable windows and
- * thresholds):
- * - wet_days: growing-season days with the midpoint water table shallower than the threshold;
- * - excess_wetness_cm_days: growing-season sum of (threshold - depth) in cm over those days;
- * - planting_ready_days / harvest_ready_days: days in the window with the water table at least
- *   `readyDepth` deep, no ponded water and less rain than `readyRain` that day;
+ * Annual tables and the crop-condition measures (README "Measures"; windows and thresholds are
+ * set in the field file's `wetness` section):
+ * - wet_days: growing-season days with the midpoint water table shallower than `threshold`;
+ * - aeration_stress_days: growing-season days on which the air-filled porosity of the top
+ *   `aerationLayer` is below `aerationThreshold` (about 10 % by volume is the usual agronomic
+ *   limit for root respiration: Grable & Siemer 1968, Soil Sci. Soc. Am. Proc. 32: 180-186;
+ *   Wesseling 1974, in Drainage for Agriculture, ASA Agronomy 17 (both from memory));
+ * - aeration_deficit_days: our intensity of that stress: each such day adds its shortfall as a
+ *   share of the threshold, (threshold - air) / threshold, so a day with no air in the layer
+ *   counts 1 and a day just under the threshold almost 0; the unit is days of a layer with no air;
+ * - spring_fieldwork_days / fall_fieldwork_days: days in the window on which the surface layer
+ *   holds at most `trafficabilityLimit` x field capacity, with no standing water or snow
+ *   (workability a little drier than field capacity: e.g. Earl 1997, Soil & Tillage Research 40:
+ *   155-168 (from memory)); spring_window_days / fall_window_days are the window lengths;
  * - stress_days: growing-season days with the FAO-56 water-stress coefficient Ks below 1.
  */
 import { dayIndexOf, monthDayKey } from '../climate/calendar.js';
+import { porosityTable } from '../engine/porosityProfile.js';
 import type { EngineForcing, EngineResult } from '../engine/types.js';
 import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import type { NitrateResult } from '../nitrate/types.js';
 import type { Field } from './fieldSchema.js';
+import {
+  airFilledPorosity,
+  layerDepletionCapacityMm,
+  surfaceWaterContent,
+  topLayerDepletionMm,
+  type SoilAirParams,
+} from './soilAir.js';
 import type { AnnualRow } from './types.js';
 
 export type WetnessSettings = Field['wetness'];
@@ -39,7 +55,7 @@ function inWindowKeys(md: number, w: WindowKeys): boolean {
 /**
  * Aggregate a scenario's daily results by calendar year over days [start, end). The calendar
  * fields come from `forcing.days` (computed from the dates when absent).
- * @example annualRows('conventional', forcing, engine, nitrate, wetness, 365, 730)
+ * @example annualRows('conventional', forcing, engine, nitrate, wetness, spec.params, 365, 730)
  */
 export function annualRows(
   scenario: string,
@@ -47,6 +63,7 @@ export function annualRows(
   r: EngineResult,
   no3: NitrateResult,
   w: WetnessSettings,
+  soil: SoilAirParams,
   start: number,
   end: number,
 ): AnnualRow[] {
@@ -56,8 +73,23 @@ export function annualRows(
   let wtSum = 0;
   const days = forcing.days ?? dayIndexOf(r.dates);
   const growing = windowKeys(w.growingSeason);
-  const planting = windowKeys(w.plantingWindow);
-  const harvest = windowKeys(w.harvestWindow);
+  const springWindow = windowKeys(w.springWindow);
+  const fallWindow = windowKeys(w.fallWindow);
+  const table = porosityTable(soil.porosity, soil.barrierDepthM);
+  const part = (a: Float64Array) => a.subarray(start, end);
+  const depletion = part(r.rootZoneDepletionMm);
+  const infiltration = part(r.infiltrationMm);
+  const aerationDepletion = topLayerDepletionMm(
+    depletion,
+    infiltration,
+    layerDepletionCapacityMm(soil, w.aerationLayer),
+  );
+  const surfaceDepletion = topLayerDepletionMm(
+    depletion,
+    infiltration,
+    layerDepletionCapacityMm(soil, w.surfaceLayer),
+  );
+  const workableAtOrBelow = w.trafficabilityLimit * soil.fieldCapacity;
   const close = () => {
     if (!row) return;
     row.wt_mean_depth_m = wtSum / row.days;
@@ -86,26 +118,29 @@ export function annualRows(
         scenario,
         year,
         days: 0,
-        precip_mm: 0,
-        snowmelt_mm: 0,
-        ref_et_mm: 0,
-        et_mm: 0,
-        runoff_mm: 0,
         drainflow_mm: 0,
+        runoff_mm: 0,
         seepage_mm: 0,
-        storage_change_mm: 0,
-        balance_error_mm: 0,
-        wt_mean_depth_m: 0,
-        wt_shallowest_depth_m: Infinity,
-        wet_days: 0,
-        excess_wetness_cm_days: 0,
-        planting_ready_days: 0,
-        harvest_ready_days: 0,
-        stress_days: 0,
+        et_mm: 0,
         no3_load_kg_ha: 0,
         fwmc_mg_l: 0,
         runoff_n_kg_ha: 0,
         seepage_n_kg_ha: 0,
+        aeration_stress_days: 0,
+        aeration_deficit_days: 0,
+        stress_days: 0,
+        wet_days: 0,
+        spring_fieldwork_days: 0,
+        spring_window_days: 0,
+        fall_fieldwork_days: 0,
+        fall_window_days: 0,
+        wt_mean_depth_m: 0,
+        wt_shallowest_depth_m: Infinity,
+        precip_mm: 0,
+        snowmelt_mm: 0,
+        ref_et_mm: 0,
+        storage_change_mm: 0,
+        balance_error_mm: 0,
         n_balance_error_kg_ha: 0,
       };
     }
@@ -124,16 +159,37 @@ export function annualRows(
     row.storage_change_mm = storage - storagePrev;
     wtSum += wtd;
     if (wtd < row.wt_shallowest_depth_m) row.wt_shallowest_depth_m = wtd;
+    const j = i - start;
     if (inWindowKeys(md, growing)) {
-      if (wtd < w.threshold) {
-        row.wet_days++;
-        row.excess_wetness_cm_days += (w.threshold - wtd) * 100;
+      if (wtd < w.threshold) row.wet_days++;
+      const air = airFilledPorosity(table, w.aerationLayer, wtd, aerationDepletion[j]);
+      if (air < w.aerationThreshold) {
+        row.aeration_stress_days++;
+        row.aeration_deficit_days += (w.aerationThreshold - air) / w.aerationThreshold;
       }
       if (r.ks[i] < 1 - 1e-9) row.stress_days++;
     }
-    const ready = wtd >= w.readyDepth && r.pondedMm[i] <= 0 && forcing.precipMm[i] < w.readyRain;
-    if (ready && inWindowKeys(md, planting)) row.planting_ready_days++;
-    if (ready && inWindowKeys(md, harvest)) row.harvest_ready_days++;
+    const spring = inWindowKeys(md, springWindow);
+    const fall = inWindowKeys(md, fallWindow);
+    if (spring || fall) {
+      const theta = surfaceWaterContent(
+        table,
+        w.surfaceLayer,
+        soil.fieldCapacity,
+        wtd,
+        surfaceDepletion[j],
+      );
+      const workable =
+        theta <= workableAtOrBelow + 1e-12 && r.pondedMm[i] <= 0 && forcing.sweMm[i] <= 0;
+      if (spring) {
+        row.spring_window_days++;
+        if (workable) row.spring_fieldwork_days++;
+      }
+      if (fall) {
+        row.fall_window_days++;
+        if (workable) row.fall_fieldwork_days++;
+      }
+    }
     row.no3_load_kg_ha += no3.loadKgHa[i];
     row.runoff_n_kg_ha += no3.runoffLoadKgHa[i];
     row.seepage_n_kg_ha += no3.seepageLoadKgHa[i];

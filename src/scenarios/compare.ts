@@ -19,19 +19,25 @@ const COMPARED = [
   ['runoff_mm', 'runoff', 'mm'],
   ['et_mm', 'et', 'mm'],
   ['seepage_mm', 'seepage', 'mm'],
-  ['wet_days', 'wet', 'days'],
-  ['excess_wetness_cm_days', 'excess_wetness', 'cm_days'],
-  ['planting_ready_days', 'planting_ready', 'days'],
-  ['harvest_ready_days', 'harvest_ready', 'days'],
+  ['aeration_stress_days', 'aeration_stress', 'days'],
+  ['aeration_deficit_days', 'aeration_deficit', 'days'],
   ['stress_days', 'stress', 'days'],
+  ['wet_days', 'wet', 'days'],
+  ['spring_fieldwork_days', 'spring_fieldwork', 'days'],
+  ['fall_fieldwork_days', 'fall_fieldwork', 'days'],
   ['wt_mean_depth_m', 'wt_mean_depth', 'm'],
 ] as const satisfies ReadonlyArray<readonly [AnnualMeasure, string, string]>;
 
-/** Annual measures averaged for context only (the same weather drives every scenario). */
+/**
+ * Annual measures averaged for context only (the same weather and calendar drive every
+ * scenario): the fieldwork window lengths let a count read as "31 of 45 days".
+ */
 const CONTEXT = [
   'precip_mm',
   'runoff_n_kg_ha',
   'seepage_n_kg_ha',
+  'spring_window_days',
+  'fall_window_days',
 ] as const satisfies ReadonlyArray<AnnualMeasure>;
 
 /** Measures whose spread across years is reported: [annual key, stem, unit]. */

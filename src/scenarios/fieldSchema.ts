@@ -231,37 +231,49 @@ export const wetnessSchema = z
   .strictObject({
     threshold: zQuantity(
       'length',
-      'A day is wet when the midpoint water table is shallower than this',
+      'A growing-season day is wet when the midpoint water table is shallower than this',
       {
         min: 0.01,
         max: 3,
       },
     ).default(0.3),
-    growingSeason: window('05-01', '09-30', 'Window counted for wet days and stress days'),
-    plantingWindow: window('04-15', '05-31', 'Window counted for planting-ready days'),
-    harvestWindow: window('09-20', '11-15', 'Window counted for harvest-ready days'),
-    readyDepth: zQuantity(
+    growingSeason: window(
+      '05-01',
+      '09-30',
+      'Window counted for wet, aeration-stress and water-stress days',
+    ),
+    aerationLayer: zQuantity(
       'length',
-      'A day is field-ready when the water table is at least this deep',
-      {
-        min: 0,
-        max: 3,
-      },
-    ).default(0.5),
-    readyRain: zQuantity('depthMm', 'and the day had less rain than this', {
-      min: 0,
-      max: 200,
-    }).default(12),
+      'Upper root-zone layer whose air-filled porosity is judged for aeration stress',
+      { min: 0.05, max: 1.5 },
+    ).default(0.3),
+    aerationThreshold: fraction(
+      'A day is aeration-stressed when the air-filled porosity of that layer is below this [volume fraction; 0.10 is the usual agronomic limit]',
+    ).default(0.1),
+    springWindow: window('04-15', '05-31', 'Spring fieldwork window (planting)'),
+    fallWindow: window('09-20', '11-15', 'Fall fieldwork window (harvest)'),
+    surfaceLayer: zQuantity(
+      'length',
+      'Surface layer whose water content decides whether the field can carry machines',
+      { min: 0.02, max: 0.5 },
+    ).default(0.1),
+    trafficabilityLimit: zQuantity(
+      'fraction',
+      'A day is suitable for fieldwork when the surface layer holds at most this fraction of field capacity, with no standing water or snow [fraction of field capacity]',
+      { min: 0.5, max: 1 },
+    ).default(0.9),
   })
   .default({
     threshold: 0.3,
     growingSeason: { from: '05-01', to: '09-30' },
-    plantingWindow: { from: '04-15', to: '05-31' },
-    harvestWindow: { from: '09-20', to: '11-15' },
-    readyDepth: 0.5,
-    readyRain: 12,
+    aerationLayer: 0.3,
+    aerationThreshold: 0.1,
+    springWindow: { from: '04-15', to: '05-31' },
+    fallWindow: { from: '09-20', to: '11-15' },
+    surfaceLayer: 0.1,
+    trafficabilityLimit: 0.9,
   })
-  .describe('How wetness is measured (our own definitions; adjust to local practice)');
+  .describe('How wetness, aeration and days suitable for fieldwork are judged (README "Measures")');
 
 export const simulationSchema = z
   .strictObject({

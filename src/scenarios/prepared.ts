@@ -224,6 +224,7 @@ export function runDesign(p: PreparedField, spec: DesignSpec): DesignRun {
     engine,
     nitrate,
     spec.field.wetness,
+    spec.params,
     p.reportStart,
     forcing.dates.length,
   );

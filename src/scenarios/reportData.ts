@@ -6,6 +6,7 @@ import type { ReportData } from '../report/types.js';
 import { ET_METHOD_SOURCE } from '../climate/referenceEt.js';
 import { VERSION } from '../version.js';
 import { compareScenarios, type ComparisonRow } from './compare.js';
+import { wetnessSchema } from './fieldSchema.js';
 import type { RunOutput } from './run.js';
 
 /** The methods behind every number in a run, with their published sources. */
@@ -42,20 +43,21 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
       source: 'Degree-day method (e.g. Martinec 1960; FAO-56 does not cover snow)',
     },
     {
-      topic: 'Drain outflow',
-      text: 'Hooghoudt steady-state equation applied each sub-step with the midpoint head above the effective outlet level (drain or control-structure level), solved exactly over each step with the recharge; equivalent depth by van der Molen & Wesseling; Kirkham rate when the surface is ponded; capped by the pipe capacity.',
+      topic: 'Water balance of the drained profile',
+      text: 'Each day precipitation = ET + surface runoff + drain flow + deep seepage + change in storage (snow, surface water, soil), closed every year. Soil storage is the root-zone depletion below field capacity plus the pore volume drained above a water table midway between the drains; the layered drainable porosity ties that volume to the water-table depth.',
       source:
-        'Hooghoudt (1940); van der Molen & Wesseling (1991); Kirkham (1957); Ritzema (1994), ILRI Publ. 16',
+        'Conservation of mass; drainable porosity (specific yield) as in Ritzema (1994), ILRI Publ. 16',
     },
     {
-      topic: 'Water table',
-      text: 'Field-average water table from stored water and drainable porosity (layered); taken as the midpoint depth (flat-water-table storage).',
-      source: 'Drainage-volume approach (Skaggs 1980)',
+      topic: 'Drain outflow',
+      text: 'Hooghoudt steady-state equation applied each sub-step with the midpoint head above the effective outlet level (drain or control-structure level), solved exactly over each step with the recharge; equivalent depth of the layer below the drains by van der Molen & Wesseling; Kirkham ponded-surface rate when the surface is ponded and the profile saturated, if larger; capped by the pipe capacity.',
+      source:
+        'Hooghoudt (1940); van der Molen & Wesseling (1991), Agric. Water Manage. 19; Kirkham (1957)',
     },
     {
       topic: 'Deep seepage',
-      text: 'A constant rate plus a conductance times the head of the water table above the restrictive layer.',
-      source: 'Darcy flow through a leaky layer',
+      text: 'Darcy leakage through the restrictive layer: a constant rate plus a conductance times the head of the water table above that layer.',
+      source: "Darcy's law (Darcy 1856) for a semi-pervious layer",
     },
     {
       topic: 'Nitrate-N',
@@ -64,9 +66,10 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
         'See README "Nitrate models" and src/nitrate/defaults.ts for the source of each default',
     },
     {
-      topic: 'Wetness measures',
-      text: 'Wet days: growing-season days with the midpoint water table shallower than the threshold; excess wetness: the sum of (threshold - depth) in cm over those days; ready days: days in the planting or harvest window with the water table at least the ready depth, no ponding and little rain.',
-      source: 'tileflux definitions (thresholds set in the field file)',
+      topic: 'Crop conditions',
+      text: 'Aeration stress from the air-filled porosity of the upper root zone; days suitable for fieldwork from the water content of the surface layer against a trafficability limit, standing water and snow; wet days from the water-table depth; water-stress days from FAO-56 Ks. The top layers dry and rewet first. Definitions, windows and thresholds are in the glossary.',
+      source:
+        'Aeration limit about 10 % air by volume: Grable & Siemer (1968), Soil Sci. Soc. Am. Proc. 32; workability a little drier than field capacity: Earl (1997), Soil Till. Res. 40; Allen et al. (1998), FAO-56 Eq. 84',
     },
   ];
   const nitrateAt = methods.findIndex((m) => m.topic === 'Nitrate-N');
@@ -110,6 +113,7 @@ export function reportDataOf(
     comparison?: ComparisonRow[];
   },
 ): ReportData {
+  const measures = run.scenarios[0]?.spec.field.wetness ?? wetnessSchema.parse(undefined);
   return {
     title: `Drainage alternatives for ${o.fieldName}`,
     generatedBy: `tileflux ${VERSION}`,
@@ -137,7 +141,8 @@ export function reportDataOf(
         no3ConcMgL: s.nitrate.concMgL,
       })),
     },
-    wetThresholdM: run.scenarios[0]?.spec.field.wetness.threshold ?? 0.3,
+    wetThresholdM: measures.threshold,
+    measures,
     chartYear: o.chartYear ?? wettestYear(run),
     balances: run.scenarios.map((s) => ({
       scenario: s.spec.name,

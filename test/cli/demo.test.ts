@@ -78,9 +78,16 @@ describe('tileflux demo', () => {
     }
   });
 
-  it('the report says how wetness changed', () => {
+  it("the report says how the crop's conditions changed, counts beside window lengths", () => {
     const html = readFileSync(join(out, 'report.html'), 'utf8');
-    expect(html).toMatch(/controlled: [+-]\d+\.\d wet days per year/);
-    expect(html).toMatch(/shallow: [+-]\d+\.\d wet days per year/);
+    for (const name of ['controlled', 'shallow']) {
+      expect(html).toMatch(
+        new RegExp(
+          `${name}: [+-]?\\d+\\.\\d aeration-stress days, [+-]?\\d+\\.\\d wet days, ` +
+            `[+-]?\\d+\\.\\d spring fieldwork days of 47 and [+-]?\\d+\\.\\d fall fieldwork days of 57`,
+        ),
+      );
+    }
+    expect(html).toContain('id="glossary"');
   });
 });

@@ -125,12 +125,12 @@ export function makeReportData(opts) {
         wt_mean_depth_m: sum(wt) / idx.length,
         wt_shallowest_depth_m: Math.min(...idx.map((i) => wt[i])),
         wet_days: grow.filter((i) => wt[i] < wetThresholdM).length,
-        excess_wetness_cm_days: grow.reduce(
-          (t, i) => t + Math.max(0, (wetThresholdM - wt[i]) * 100),
-          0,
-        ),
-        planting_ready_days: 30 - (s.controlled ? 3 : 0),
-        harvest_ready_days: 40 - (s.controlled ? 2 : 0),
+        aeration_stress_days: grow.filter((i) => wt[i] < 0.5).length,
+        aeration_deficit_days: grow.reduce((t, i) => t + Math.max(0, (0.5 - wt[i]) / 0.5), 0),
+        spring_fieldwork_days: 30 - (s.controlled ? 3 : 0),
+        spring_window_days: 36, // 20 Apr - 25 May
+        fall_fieldwork_days: 40 - (s.controlled ? 2 : 0),
+        fall_window_days: 47, // 25 Sep - 10 Nov
         stress_days: 4,
         no3_load_kg_ha: l,
         fwmc_mg_l: f > 0 ? (100 * l) / f : 0,
@@ -156,6 +156,17 @@ export function makeReportData(opts) {
     annual,
     daily: { dates, series },
     wetThresholdM,
+    // Not the field-file defaults, so a report that printed defaults instead would be caught.
+    measures: {
+      threshold: wetThresholdM,
+      growingSeason: { from: '04-01', to: '10-31' },
+      aerationLayer: 0.25,
+      aerationThreshold: 0.12,
+      springWindow: { from: '04-20', to: '05-25' },
+      fallWindow: { from: '09-25', to: '11-10' },
+      surfaceLayer: 0.08,
+      trafficabilityLimit: 0.85,
+    },
     chartYear: fromYear + Math.min(1, years - 1),
     balances: scenarios.map((s, i) => ({
       scenario: s.name,

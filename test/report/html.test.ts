@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { compareScenarios } from '../../src/scenarios/compare.js';
 import { buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
 import { buildReportHtml, escapeHtml, jsonForScript } from '../../src/report/html.js';
-import { headlineLines, wetnessChangeLines } from '../../src/report/summary.js';
+import { cropConditionLines, headlineLines } from '../../src/report/summary.js';
 import { fixed, signed } from '../../src/report/format.js';
 import { loadVegaBundles } from '../../src/report/vegaBundles.js';
 import type { ReportData } from '../../src/report/types.js';
@@ -96,6 +96,7 @@ describe('report content', () => {
       'comparison',
       'charts',
       'yearly',
+      'glossary',
       'methods',
       'balance',
       'cautions',
@@ -106,20 +107,25 @@ describe('report content', () => {
     expect(charts).toEqual([...CHART_NAMES]);
   });
 
-  it('says the cautions of DESIGN.md section 8', () => {
+  it('says the cautions of README "Cautions"', () => {
     expect(html).toMatch(/planning estimates from simplified physics/);
     expect(html).toMatch(/local drainage guides, conservation practice standards and permits/);
     expect(html).toMatch(/licensed professional/);
     expect(html).toMatch(/Trenching is dangerous work/);
   });
 
-  it('says how wetness changed against the baseline, with figures averaged here', () => {
+  it("says how the crop's conditions changed against the baseline, with figures averaged here", () => {
+    const sign = (x: number) => `${x >= 0.05 ? '+' : ''}${fixed(x, 1)}`;
     for (const name of [XSS, 'controlled']) {
-      const change = meanOf(name, 'wet_days') - meanOf('conventional', 'wet_days');
-      const text = `${escapeHtml(name)}: ${change >= 0.05 ? '+' : ''}${fixed(change, 1)} wet days per year`;
+      const change = (k: string) => meanOf(name, k) - meanOf('conventional', k);
+      const text =
+        `${escapeHtml(name)}: ${sign(change('aeration_stress_days'))} aeration-stress days, ` +
+        `${sign(change('wet_days'))} wet days, ` +
+        `${sign(change('spring_fieldwork_days'))} spring fieldwork days of 36 and ` +
+        `${sign(change('fall_fieldwork_days'))} fall fieldwork days of 47 a year`;
       expect(html).toContain(text);
     }
-    const lines = wetnessChangeLines(data.comparison);
+    const lines = cropConditionLines(data.comparison);
     expect(lines).toHaveLength(2);
     expect(lines[1]).toMatch(/against conventional$/);
     expect(headlineLines(data.comparison)[1]).toMatch(/^controlled: drain flow -\d+\.\d %/);
@@ -134,9 +140,16 @@ describe('report content', () => {
     );
     // Every cell has a figure: a misspelt column would show as n/a (no baseline value is 0 here).
     expect(table).not.toMatch(/n\/a|NaN|undefined/);
-    // One change line per compared measure (13) in each of the two non-baseline columns.
+    // One change line per compared measure (14) in each of the two non-baseline columns.
     const tbody = /<tbody>[\s\S]*<\/tbody>/.exec(table)![0];
-    expect(tbody.match(/<span class="chg">/g)).toHaveLength(2 * 13);
+    expect(tbody.match(/<span class="chg">/g)).toHaveLength(2 * 14);
+    // Rows grouped by the question they answer.
+    expect([...tbody.matchAll(/<tr class="group"><th[^>]*>([^<]+)</g)].map((m) => m[1])).toEqual([
+      'The drains',
+      'Water leaving the field',
+      'Nitrate-N leaving the field',
+      'The crop&#39;s conditions',
+    ]);
     const yearly = /<table class="yearly"[\s\S]*?<\/table>/.exec(html)![0];
     expect(yearly.match(/<tr><th scope="row">/g)).toHaveLength(data.annual.length);
     expect(html).toContain('id="scenario-table"');
@@ -144,7 +157,32 @@ describe('report content', () => {
     expect(html).toContain('FAO-56 Eq. 52');
   });
 
-  it('marks balance closure against 1e-6 (DESIGN.md section 6)', () => {
+  it("the glossary defines every measure with this run's windows and thresholds", () => {
+    const glossary = /<dl class="glossary"[\s\S]*?<\/dl>/.exec(html)![0];
+    const terms = [...glossary.matchAll(/<dt>([^<]+)<\/dt>/g)].map((m) => m[1]);
+    for (const t of [
+      'Drain flow',
+      'Aeration-stress days',
+      'Aeration deficit',
+      'Water-stress days',
+    ]) {
+      expect(terms).toContain(t);
+    }
+    expect(terms).toContain('Wet days');
+    expect(terms).toContain('Spring and fall fieldwork days');
+    expect(glossary).toContain('the growing season (1 Apr to 31 Oct)');
+    expect(glossary).toContain('the top 0.25 m is below 12 % by volume');
+    expect(glossary).toContain('spring window (20 Apr to 25 May)');
+    expect(glossary).toContain('fall window (25 Sep to 10 Nov)');
+    expect(glossary).toContain('the top 0.08 m holds at most 85 %');
+    expect(glossary).toContain('shallower than 0.30 m');
+    // The window lengths stand beside the counts in the comparison table.
+    const table = /<table class="comparison[\s\S]*?<\/table>/.exec(html)![0];
+    expect(table).toContain('Spring fieldwork days, of 36 in the window');
+    expect(table).toContain('Fall fieldwork days, of 47 in the window');
+  });
+
+  it('marks balance closure against 1e-6 mm a year', () => {
     expect(html).toMatch(/1\.0e-9<\/td><td><span class="ok">closed/);
     const open = buildReportHtml(
       {

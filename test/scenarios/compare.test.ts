@@ -25,9 +25,12 @@ function row(scenario: string, year: number, v: Partial<AnnualRow>): AnnualRow {
     wt_mean_depth_m: 0,
     wt_shallowest_depth_m: 0.2,
     wet_days: 0,
-    excess_wetness_cm_days: 0,
-    planting_ready_days: 0,
-    harvest_ready_days: 0,
+    aeration_stress_days: 0,
+    aeration_deficit_days: 0,
+    spring_fieldwork_days: 0,
+    spring_window_days: 47,
+    fall_fieldwork_days: 0,
+    fall_window_days: 57,
     stress_days: 0,
     no3_load_kg_ha: 0,
     fwmc_mg_l: 0,
@@ -51,9 +54,9 @@ const annual: AnnualRow[] = [
     et_mm: 570,
     seepage_mm: 15,
     wet_days: 6,
-    excess_wetness_cm_days: 10,
-    planting_ready_days: 31,
-    harvest_ready_days: 41,
+    aeration_deficit_days: 10,
+    spring_fieldwork_days: 31,
+    fall_fieldwork_days: 41,
     stress_days: 4,
     wt_mean_depth_m: 1.0,
     runoff_n_kg_ha: 0.4,
@@ -68,9 +71,9 @@ const annual: AnnualRow[] = [
     et_mm: 550,
     seepage_mm: 10,
     wet_days: 5,
-    excess_wetness_cm_days: 12,
-    planting_ready_days: 30,
-    harvest_ready_days: 40,
+    aeration_deficit_days: 12,
+    spring_fieldwork_days: 30,
+    fall_fieldwork_days: 40,
     stress_days: 3,
     wt_mean_depth_m: 1.1,
     runoff_n_kg_ha: 0.5,
@@ -85,9 +88,9 @@ const annual: AnnualRow[] = [
     et_mm: 540,
     seepage_mm: 8,
     wet_days: 7,
-    excess_wetness_cm_days: 15,
-    planting_ready_days: 28,
-    harvest_ready_days: 38,
+    aeration_deficit_days: 15,
+    spring_fieldwork_days: 28,
+    fall_fieldwork_days: 38,
     stress_days: 1,
     wt_mean_depth_m: 1.0,
     runoff_n_kg_ha: 0.6,
@@ -102,9 +105,9 @@ const annual: AnnualRow[] = [
     et_mm: 560,
     seepage_mm: 14,
     wet_days: 8,
-    excess_wetness_cm_days: 20,
-    planting_ready_days: 27,
-    harvest_ready_days: 38,
+    aeration_deficit_days: 20,
+    spring_fieldwork_days: 27,
+    fall_fieldwork_days: 38,
     stress_days: 2,
     wt_mean_depth_m: 0.9,
     runoff_n_kg_ha: 0.7,
@@ -119,9 +122,9 @@ const annual: AnnualRow[] = [
     et_mm: 560,
     seepage_mm: 12,
     wet_days: 3,
-    excess_wetness_cm_days: 6,
-    planting_ready_days: 34,
-    harvest_ready_days: 42,
+    aeration_deficit_days: 6,
+    spring_fieldwork_days: 34,
+    fall_fieldwork_days: 42,
     stress_days: 5,
     wt_mean_depth_m: 1.2,
     runoff_n_kg_ha: 0.4,
@@ -136,9 +139,9 @@ const annual: AnnualRow[] = [
     et_mm: 548,
     seepage_mm: 13,
     wet_days: 10,
-    excess_wetness_cm_days: 24,
-    planting_ready_days: 26,
-    harvest_ready_days: 35,
+    aeration_deficit_days: 24,
+    spring_fieldwork_days: 26,
+    fall_fieldwork_days: 35,
     stress_days: 0,
     wt_mean_depth_m: 0.8,
     runoff_n_kg_ha: 0.5,
@@ -177,10 +180,12 @@ describe('compareScenarios', () => {
     expect(conv.et_mm).toBeCloseTo(550, tol);
     expect(conv.seepage_mm).toBeCloseTo(10, tol);
     expect(conv.wet_days).toBeCloseTo(5, tol);
-    expect(conv.excess_wetness_cm_days).toBeCloseTo(11, tol); // (12+6+15)/3
-    expect(conv.planting_ready_days).toBeCloseTo(92 / 3, tol);
-    expect(conv.harvest_ready_days).toBeCloseTo(40, tol);
+    expect(conv.aeration_deficit_days).toBeCloseTo(11, tol); // (12+6+15)/3
+    expect(conv.spring_fieldwork_days).toBeCloseTo(92 / 3, tol);
+    expect(conv.fall_fieldwork_days).toBeCloseTo(40, tol);
     expect(conv.stress_days).toBeCloseTo(3, tol);
+    expect(conv.spring_window_days).toBe(47); // the same window every year
+    expect(conv.fall_window_days).toBe(57);
     expect(conv.wt_mean_depth_m).toBeCloseTo(1.1, tol);
     expect(conv.runoff_n_kg_ha).toBeCloseTo(0.5, tol);
     expect(conv.seepage_n_kg_ha).toBeCloseTo(0.1, tol);
@@ -191,9 +196,9 @@ describe('compareScenarios', () => {
     expect(ctrl.et_mm).toBeCloseTo(1678 / 3, tol);
     expect(ctrl.seepage_mm).toBeCloseTo(14, tol);
     expect(ctrl.wet_days).toBeCloseTo(8, tol);
-    expect(ctrl.excess_wetness_cm_days).toBeCloseTo(18, tol);
-    expect(ctrl.planting_ready_days).toBeCloseTo(28, tol);
-    expect(ctrl.harvest_ready_days).toBeCloseTo(38, tol);
+    expect(ctrl.aeration_deficit_days).toBeCloseTo(18, tol);
+    expect(ctrl.spring_fieldwork_days).toBeCloseTo(28, tol);
+    expect(ctrl.fall_fieldwork_days).toBeCloseTo(38, tol);
     expect(ctrl.stress_days).toBeCloseTo(2, tol);
     expect(ctrl.wt_mean_depth_m).toBeCloseTo(0.9, tol);
   });
@@ -225,8 +230,8 @@ describe('compareScenarios', () => {
     expect(ctrl.wet_change_percent).toBeCloseTo(60, 9);
     expect(ctrl.fwmc_change_mg_l).toBeCloseTo(1500 / 525 - 2200 / 750, 9);
     expect(ctrl.fwmc_change_percent).toBeCloseTo(-2.5974026, 6); // (2.857143/2.933333 - 1) x 100
-    expect(ctrl.excess_wetness_change_cm_days).toBeCloseTo(7, 9);
-    expect(ctrl.planting_ready_change_days).toBeCloseTo(28 - 92 / 3, 9);
+    expect(ctrl.aeration_deficit_change_days).toBeCloseTo(7, 9);
+    expect(ctrl.spring_fieldwork_change_days).toBeCloseTo(28 - 92 / 3, 9);
     expect(ctrl.wt_mean_depth_change_m).toBeCloseTo(-0.2, 9);
     expect(conv.drainflow_change_mm).toBe(0);
     expect(conv.drainflow_change_percent).toBe(0);
@@ -248,7 +253,7 @@ describe('compareScenarios', () => {
     for (const c of COMPARISON_COLUMNS) {
       if (c === 'scenario' || c === 'is_baseline') continue;
       expect(c, 'numeric columns end with a unit').toMatch(
-        /_(mm|kg_ha|mg_l|days|cm_days|m|m_ha|percent)$|^years$/,
+        /_(mm|kg_ha|mg_l|days|m|m_ha|percent)$|^years$/,
       );
     }
     const again = compareScenarios([...annual].reverse(), opts);

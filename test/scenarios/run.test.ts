@@ -109,7 +109,7 @@ describe('every nitrate model through a run', () => {
       for (const s of run.scenarios) {
         expect(s.spec.nitrate.model).toBe(model);
         for (let i = 0; i < s.engine.drainflowMm.length; i++) {
-          // DESIGN.md section 4: load (kg N/ha) = flow (mm) x concentration (mg/L) / 100.
+          // README "Nitrate models": load (kg N/ha) = flow (mm) x concentration (mg/L) / 100.
           expect(s.nitrate.loadKgHa[i]).toBeCloseTo(
             (s.engine.drainflowMm[i] * s.nitrate.concMgL[i]) / 100,
             12,

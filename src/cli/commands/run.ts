@@ -15,7 +15,7 @@ import { buildSummary, writeRunFiles, type RunMeta } from '../../io/runFolder.js
 import { columnIn, toCsv } from '../../io/tables.js';
 import { buildChartSpecs } from '../../report/charts.js';
 import { writeCharts, writeReport } from '../../report/index.js';
-import { wetnessChangeLines } from '../../report/summary.js';
+import { cropConditionLines } from '../../report/summary.js';
 import { COMPARISON_COLUMNS, type ComparisonRow } from '../../scenarios/compare.js';
 import { comparisonOf, reportDataOf } from '../../scenarios/reportData.js';
 import { readWeatherFile } from '../../io/weather.js';
@@ -103,7 +103,10 @@ export function runFromFiles(
   };
 }
 
-/** Human summary table: one line per scenario with flow, load and wetness against the baseline. */
+/**
+ * Human summary table: one line per scenario with flow and load against the baseline and the
+ * crop's conditions (aeration-stress and wet days in the growing season).
+ */
 export function headline(comparison: readonly ComparisonRow[], units: UnitSystem): string {
   const flow = columnIn('drainflow_mm', units);
   const load = columnIn('no3_load_kg_ha', units);
@@ -113,11 +116,11 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   // The name column is as wide as the longest name, so different names never print the same.
   const w = Math.max(16, ...comparison.map((r) => r.scenario.length));
   const lines = [
-    `${'scenario'.padEnd(w)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'wet days/yr'.padStart(12)}`,
+    `${'scenario'.padEnd(w)} ${`drain flow ${flowU}`.padStart(18)} ${'change'.padStart(8)} ${`nitrate-N ${loadU}`.padStart(22)} ${'change'.padStart(8)} ${'aeration-stress d/yr'.padStart(21)} ${'wet d/yr'.padStart(9)}`,
   ];
   for (const r of comparison) {
     lines.push(
-      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.wet_days, 1).padStart(12)}`,
+      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.aeration_stress_days, 1).padStart(21)} ${fmt(r.wet_days, 1).padStart(9)}`,
     );
   }
   return lines.join('\n');
@@ -137,7 +140,7 @@ export function runReport(
     '',
     headline(comparison, units),
     '',
-    ...wetnessChangeLines(comparison, units),
+    ...cropConditionLines(comparison),
     '',
     `Wrote ${out}/ (${written.join(', ')}).`,
   ];
