@@ -7,6 +7,7 @@ import { cropConditionLines, headlineLines } from '../../src/report/summary.js';
 import { fixed, signed } from '../../src/report/format.js';
 import { loadVegaBundles } from '../../src/report/vegaBundles.js';
 import type { ReportData } from '../../src/report/types.js';
+import type { AnnualMeasure } from '../../src/scenarios/types.js';
 import { makeReportData } from './fixture.mjs';
 
 const XSS = '<img src=x onerror=alert(1)>';
@@ -20,7 +21,7 @@ const specs = buildChartSpecs(data);
 const html = buildReportHtml(data, specs, stub);
 
 /** Mean of a measure over the annual rows of one scenario, computed here. */
-function meanOf(name: string, key: 'wet_days' | 'drainflow_mm'): number {
+function meanOf(name: string, key: AnnualMeasure): number {
   const rows = data.annual.filter((r) => r.scenario === name);
   return rows.reduce((t, r) => t + r[key], 0) / rows.length;
 }
@@ -117,7 +118,7 @@ describe('report content', () => {
   it("says how the crop's conditions changed against the baseline, with figures averaged here", () => {
     const sign = (x: number) => `${x >= 0.05 ? '+' : ''}${fixed(x, 1)}`;
     for (const name of [XSS, 'controlled']) {
-      const change = (k: string) => meanOf(name, k) - meanOf('conventional', k);
+      const change = (k: AnnualMeasure) => meanOf(name, k) - meanOf('conventional', k);
       const text =
         `${escapeHtml(name)}: ${sign(change('aeration_stress_days'))} aeration-stress days, ` +
         `${sign(change('wet_days'))} wet days, ` +
