@@ -85,6 +85,9 @@ export interface ReachDesign extends SizedPipe {
   maxCutM?: number;
   maxCutStationM?: number;
   minCoverM?: number;
+  /** Profile stations of the reach with less than the minimum cover, or deeper than the maximum. */
+  shallowStations: number;
+  deepStations: number;
 }
 
 export interface LateralDesign extends SizedPipe {
@@ -289,7 +292,14 @@ export function designSystem(
         where,
       );
       z = z0 + sized.grade * r.lengthM;
-      designs.push({ ...sized, reach: r, invertFromM: z0, invertToM: z });
+      designs.push({
+        ...sized,
+        reach: r,
+        invertFromM: z0,
+        invertToM: z,
+        shallowStations: 0,
+        deepStations: 0,
+      });
       if (sized.gradeLimit === 'fixed' && sized.grade < sized.minimumGrade) {
         notes.push(
           `Reach ${r.id}: the fixed grade ${(sized.grade * 100).toFixed(3)} % is flatter than the ` +
@@ -441,8 +451,14 @@ function profileOf(
     const coverM = cutM - d.selected.diameterM;
     const flag =
       coverM < s.minimumCoverM - tol ? 'shallow' : cutM > s.maximumDepthM + tol ? 'deep' : '';
-    if (flag === 'shallow') summary.shallowStations++;
-    if (flag === 'deep') summary.deepStations++;
+    if (flag === 'shallow') {
+      summary.shallowStations++;
+      d.shallowStations++;
+    }
+    if (flag === 'deep') {
+      summary.deepStations++;
+      d.deepStations++;
+    }
     out.push({ main: m.name, reachId: d.reach.id, stationM, groundM, invertM, cutM, coverM, flag });
     if (summary.maxCutM === undefined || cutM > summary.maxCutM) {
       summary.maxCutM = cutM;

@@ -51,6 +51,12 @@ export function reachRows(design: SystemDesign): Row[] {
     max_cut_m: d.maxCutM ?? NaN,
     max_cut_station_m: d.maxCutStationM ?? NaN,
     min_cover_m: d.minCoverM ?? NaN,
+    trench_flag: [
+      d.shallowStations ? `shallow at ${d.shallowStations}` : '',
+      d.deepStations ? `deep at ${d.deepStations}` : '',
+    ]
+      .filter((x) => x)
+      .join(', '),
   }));
 }
 

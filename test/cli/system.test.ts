@@ -62,6 +62,11 @@ describe('tileflux system on the demo plan', () => {
 
   it('profile.csv: cut = ground - invert at every station; the flags follow the settings', () => {
     const rows = csv(join(out, 'profile.csv'));
+    const reaches = csv(join(out, 'reaches.csv'));
+    for (const r of reaches) {
+      const shallow = rows.filter((p) => p.reach === r.reach && p.flag === 'shallow').length;
+      expect(r.trench_flag.includes('shallow')).toBe(shallow > 0);
+    }
     expect(rows.length).toBeGreaterThan(10);
     for (const r of rows) {
       expect(Number(r.cut_m)).toBeCloseTo(

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { designSystem, type SystemSettings } from '../../src/drainage/systemDesign.js';
 import { systemSchema } from '../../src/drainage/systemSchema.js';
@@ -294,6 +295,88 @@ describe('rounding a 4.4 in requirement', () => {
   it('is an error when no size in the list is large enough', () => {
     expect(() => designSystem(tree, settings({ sizes: pipeSizeList('3,4 in') }))).toThrowError(
       /larger than the largest size in the sizes of reach m-1/,
+    );
+  });
+});
+
+describe('accumulation on random trees (property)', () => {
+  // Any tree: the outlet reach carries the sum of every local area and inlet (conservation),
+  // and each reach carries exactly its local area plus everything upstream of its lower end,
+  // summed here by walking the tree recursively (a different algorithm from the library's).
+  const treeArb = fc
+    .array(
+      fc.record({
+        reaches: fc.array(
+          fc.record({
+            areaHa: fc.integer({ min: 0, max: 50 }),
+            inletLs: fc.integer({ min: 0, max: 5 }),
+          }),
+          { minLength: 1, maxLength: 4 },
+        ),
+        parent: fc.nat(),
+        at: fc.nat(),
+      }),
+      { minLength: 1, maxLength: 6 },
+    )
+    .map((mains) =>
+      mains.map((m, i) => {
+        const parent = i === 0 ? undefined : m.parent % i;
+        const at = parent === undefined ? 0 : (m.at % mains[parent].reaches.length) + 1;
+        return { ...m, parent, at };
+      }),
+    );
+  it('conserves area and inlet flow and matches a recursive sum', () => {
+    fc.assert(
+      fc.property(treeArb, (mains) => {
+        const file = systemSchema.parse({
+          name: 'random',
+          coefficient: '10 mm/d',
+          mains: mains.map((m, i) => ({
+            name: `m${i}`,
+            grade: '0.5 %',
+            ...(m.parent === undefined
+              ? {}
+              : { joins: { main: `m${m.parent}`, station: `${100 * m.at} m` } }),
+            reaches: m.reaches.map((r) => ({
+              length: '100 m',
+              area: `${r.areaHa} ha`,
+              inletFlow: `${r.inletLs} L/s`,
+            })),
+          })),
+        });
+        const tree = buildSystemTree(file);
+        // Recursive sum of area (ha) above reach j (1-based) of main i.
+        const above = (i: number, j: number): [number, number] => {
+          let a = 0;
+          let q = 0;
+          for (let k = j - 1; k < mains[i].reaches.length; k++) {
+            a += mains[i].reaches[k].areaHa;
+            q += mains[i].reaches[k].inletLs;
+            mains.forEach((t, ti) => {
+              if (t.parent === i && t.at === k + 1) {
+                const [ta, tq] = above(ti, 1);
+                a += ta;
+                q += tq;
+              }
+            });
+          }
+          return [a, q];
+        };
+        const totalA = mains.flatMap((m) => m.reaches).reduce((s, r) => s + r.areaHa, 0);
+        const totalQ = mains.flatMap((m) => m.reaches).reduce((s, r) => s + r.inletLs, 0);
+        const outlet = tree.mains[0].reaches[0];
+        expect(outlet.areaAboveM2 / 10000).toBeCloseTo(totalA, 9);
+        expect(outlet.inletAboveM3s * 1000).toBeCloseTo(totalQ, 9);
+        for (const m of tree.mains) {
+          const i = Number(m.name.slice(1));
+          for (const r of m.reaches) {
+            const [a, q] = above(i, r.index + 1);
+            expect(r.areaAboveM2 / 10000).toBeCloseTo(a, 9);
+            expect(r.inletAboveM3s * 1000).toBeCloseTo(q, 9);
+          }
+        }
+      }),
+      { numRuns: 200 },
     );
   });
 });
