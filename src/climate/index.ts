@@ -13,3 +13,5 @@ export * from './snow.js';
 export * from './random.js';
 export * from './weatherGenerator.js';
 export * from './weatherSummary.js';
+export * from './generatorFit.js';
+export * from './weatherStatistics.js';

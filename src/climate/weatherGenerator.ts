@@ -53,6 +53,12 @@ export interface GeneratorParams {
   lag1Correlation: number;
   /** Same-day correlation of the Tmax and Tmin anomalies. */
   tmaxTminCorrelation: number;
+  /**
+   * Monthly corrections added to the Tmax and Tmin harmonics, degC (January first; none when
+   * absent): a fitted record's monthly means beyond one harmonic, and temperature deltas.
+   */
+  tmaxMonthlyOffsetC?: readonly number[];
+  tminMonthlyOffsetC?: readonly number[];
 }
 
 /**
@@ -100,6 +106,8 @@ export function forHemisphere(p: GeneratorParams, latitudeDeg: number): Generato
     pWetGivenWet: shift(p.pWetGivenWet),
     gammaShape: shift(p.gammaShape),
     gammaScaleMm: shift(p.gammaScaleMm),
+    tmaxMonthlyOffsetC: p.tmaxMonthlyOffsetC && shift(p.tmaxMonthlyOffsetC),
+    tminMonthlyOffsetC: p.tminMonthlyOffsetC && shift(p.tminMonthlyOffsetC),
     warmestDayOfYear: ((p.warmestDayOfYear + 182.625 - 1) % 365.25) + 1,
   };
 }
@@ -156,6 +164,8 @@ export function generateWeather(o: GenerateOptions): WeatherSeries {
   const c = p.tmaxTminCorrelation;
   const cOrth = Math.sqrt(1 - c * c);
   const omega = (2 * Math.PI) / 365.25;
+  const tmaxOffset = p.tmaxMonthlyOffsetC ?? new Array<number>(12).fill(0);
+  const tminOffset = p.tminMonthlyOffsetC ?? new Array<number>(12).fill(0);
 
   // Start in the stationary state, so that the first days are not special.
   let wet = u() < piWet[0];
@@ -175,12 +185,16 @@ export function generateWeather(o: GenerateOptions): WeatherSeries {
     // Dry and wet means straddle the harmonic so that its unconditional mean stays the harmonic.
     const wetShift = (wet ? piWet[m] - 1 : piWet[m]) * p.tmaxDryMinusWetC;
     let tmax =
+      tmaxOffset[m] +
       p.tmax.meanC +
       p.tmax.amplitudeC * h +
       wetShift +
       (p.tmax.sdMeanC + p.tmax.sdAmplitudeC * h) * a1;
     let tmin =
-      p.tmin.meanC + p.tmin.amplitudeC * h + (p.tmin.sdMeanC + p.tmin.sdAmplitudeC * h) * a2;
+      tminOffset[m] +
+      p.tmin.meanC +
+      p.tmin.amplitudeC * h +
+      (p.tmin.sdMeanC + p.tmin.sdAmplitudeC * h) * a2;
     if (tmin > tmax) [tmax, tmin] = [tmin, tmax];
     tmaxC[i] = tmax;
     tminC[i] = tmin;
@@ -218,6 +232,12 @@ export function checkGeneratorParams(p: GeneratorParams): void {
       );
     }
   });
+  for (const key of ['tmaxMonthlyOffsetC', 'tminMonthlyOffsetC'] as const) {
+    const a = p[key];
+    if (a !== undefined && (a.length !== 12 || !a.every(Number.isFinite))) {
+      throw new TilefluxError(`generator parameter ${key} needs 12 finite monthly values, degC`);
+    }
+  }
   for (const key of ['tmax', 'tmin'] as const) {
     const h = p[key];
     if (![h.meanC, h.amplitudeC, h.sdMeanC, h.sdAmplitudeC].every(Number.isFinite)) {

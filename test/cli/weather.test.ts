@@ -271,3 +271,50 @@ describe('tileflux weather make', { timeout: 120_000 }, () => {
     expect(mean('01')).toBeGreaterThan(mean('07') + 20);
   });
 });
+
+describe('tileflux weather: public formats, fitted generator, deltas, comparison', () => {
+  const fixtures = join(root, 'test', 'io', 'fixtures');
+  it('reads a Daymet table and a GHCN-Daily export, detected from the header', () => {
+    const d = tileflux('weather', 'check', join(fixtures, 'daymet.csv'), '--json');
+    expect(d.code).toBe(0);
+    const dj = JSON.parse(d.out);
+    expect(dj.format).toBe('daymet');
+    expect(dj.days).toBe(6); // 28 Dec 2024 to 2 Jan 2025 with the filled 31 December
+    const g = tileflux(
+      'weather',
+      'check',
+      join(fixtures, 'ghcn-wide-metric.csv'),
+      '--station',
+      'XX000000002',
+      '--export-units',
+      'metric',
+      '--json',
+    );
+    expect(g.code).toBe(0);
+    expect(JSON.parse(g.out)).toMatchObject({ format: 'ghcn', days: 2 });
+    const bad = tileflux('weather', 'check', join(fixtures, 'daymet.csv'), '--format', 'csv');
+    expect(bad.code).toBe(1);
+    expect(bad.err).toMatch(/--format expects one of auto, tileflux, ghcn, daymet/);
+  });
+
+  it('make --like with deltas names the climate, and check --compare shows both', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tileflux-like-'));
+    const out = join(dir, 'future.csv');
+    const m = tileflux(
+      ...['weather', 'make', '--like', demo, '--years', '30', '--seed', '3'],
+      ...['--precip-change', '+10%', '--temp-change', '+2C', '--out', out, '--json'],
+    );
+    expect(m.code).toBe(0);
+    const j = JSON.parse(m.out);
+    expect(j.climate).toMatch(
+      /fitted to weather.csv .*precipitation intensity \+10%, temperature \+2 degC \(delta change\)/,
+    );
+    const c = tileflux('weather', 'check', '--compare', demo, out, '--json');
+    expect(c.code).toBe(0);
+    const cj = JSON.parse(c.out);
+    expect(cj.a.tmax_month_c).toHaveLength(12);
+    // +2 degC on every month of a fitted climate: July mean Tmax about 2 degC warmer (30 years
+    // of sampling noise on each side, so within 0.6 degC).
+    expect(Math.abs(cj.b.tmax_month_c[6] - cj.a.tmax_month_c[6] - 2)).toBeLessThan(0.6);
+  });
+});

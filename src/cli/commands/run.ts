@@ -23,7 +23,11 @@ import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
 import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
 import { progress } from '../progress.js';
-import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';
+import {
+  addWeatherReadOptions,
+  weatherReadOptions,
+  type WeatherReadFlags,
+} from '../weatherOptions.js';
 
 export interface RunCommandOptions extends WeatherReadFlags {
   weather: string;

@@ -2,17 +2,21 @@
  * `tileflux weather check` and `tileflux weather make`: check a daily weather CSV and summarise
  * it, or write a synthetic record from the Richardson (1981) weather generator.
  *
- * The reading options (--columns, --precip-unit, --temp-unit, --where, --fill) are exported as
- * addWeatherReadOptions / weatherReadOptions so that every command reading weather offers the
- * same ones.
+ * The reading options live in cli/weatherOptions.ts (re-exported here for older imports) so
+ * that every command reading weather offers the same ones.
  */
 import { basename } from 'node:path';
 import type { Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import {
+  changeClimate,
+  fitGenerator,
+  recordStatistics,
+  type RecordStatistics,
   DEFAULT_GENERATOR,
   DEFAULT_SNOW,
   ET_METHOD_SOURCE,
+  WET_DAY_MM,
   forHemisphere,
   generateWeather,
   summarizeWeather,
@@ -25,97 +29,22 @@ import {
   parseWeatherCsv,
   readWeatherFile,
   WEATHER_BOUNDS,
-  WEATHER_VARIABLES,
-  type WeatherReadOptions,
+  WEATHER_FORMAT_HELP,
+  type WeatherReadResult,
 } from '../../io/weather.js';
+import {
+  addWeatherReadOptions,
+  weatherReadNote,
+  weatherReadOptions,
+  type WeatherReadFlags,
+} from '../weatherOptions.js';
+import { describeChange, monthlyChange } from '../climateOptions.js';
 import { action, emit, fmt, quantityOption, writeFileAtomic } from '../common.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
 export const DEFAULT_LATITUDE_DEG = 42;
 
-/** Raw values of the weather reading options, as commander hands them over. */
-export interface WeatherReadFlags {
-  columns?: string;
-  precipUnit?: string;
-  tempUnit?: string;
-  where?: string;
-  fill?: boolean;
-}
-
-/** Add the weather reading options to a command (same names and help everywhere). */
-export function addWeatherReadOptions(cmd: Command): Command {
-  return cmd
-    .option(
-      '--columns <map>',
-      'map variables to your headers: VARIABLE=HEADER pairs separated by commas, variables ' +
-        `${WEATHER_VARIABLES.join(', ')} (e.g. date=DATE,precip=PRCP,tmax=TMAX,tmin=TMIN)`,
-    )
-    .option(
-      '--precip-unit <unit>',
-      'unit of precipitation and pet columns without a suffix: mm or in (default mm)',
-    )
-    .option(
-      '--temp-unit <unit>',
-      'unit of temperature columns without a suffix: c or f (default c)',
-    )
-    .option(
-      '--where <column=value>',
-      'keep only rows whose COLUMN equals VALUE (one station of several)',
-    )
-    .option(
-      '--fill',
-      `fill runs of up to ${MAX_FILL_DAYS} missing days or empty cells and say how many`,
-    );
-}
-
-/** Turn the raw reading options into WeatherReadOptions, rejecting malformed values. */
-export function weatherReadOptions(f: WeatherReadFlags): WeatherReadOptions {
-  const o: WeatherReadOptions = { fill: Boolean(f.fill) };
-  if (f.columns !== undefined) {
-    const columns: Record<string, string> = {};
-    for (const pair of f.columns.split(',')) {
-      const eq = pair.indexOf('=');
-      const key = pair.slice(0, eq).trim().toLowerCase();
-      const header = pair.slice(eq + 1).trim();
-      if (eq < 0 || key === '' || header === '') {
-        throw new TilefluxError(
-          '--columns expects VARIABLE=HEADER pairs separated by commas, such as ' +
-            `date=DATE,precip=PRCP,tmax=TMAX,tmin=TMIN; got "${f.columns}"`,
-        );
-      }
-      if (!(WEATHER_VARIABLES as readonly string[]).includes(key)) {
-        throw new TilefluxError(
-          `--columns: unknown variable "${key}"; accepted: ${WEATHER_VARIABLES.join(', ')}`,
-        );
-      }
-      columns[key] = header;
-    }
-    o.columns = columns;
-  }
-  if (f.precipUnit !== undefined) {
-    const u = f.precipUnit.trim().toLowerCase();
-    if (u !== 'mm' && u !== 'in') {
-      throw new TilefluxError(`--precip-unit expects mm or in; got ${f.precipUnit}`);
-    }
-    o.precipUnit = u;
-  }
-  if (f.tempUnit !== undefined) {
-    const u = f.tempUnit.trim().toLowerCase();
-    if (u !== 'c' && u !== 'f')
-      throw new TilefluxError(`--temp-unit expects c or f; got ${f.tempUnit}`);
-    o.tempUnit = u;
-  }
-  if (f.where !== undefined) {
-    const eq = f.where.indexOf('=');
-    if (eq <= 0) {
-      throw new TilefluxError(
-        `--where expects COLUMN=VALUE, such as "station=North"; got "${f.where}"`,
-      );
-    }
-    o.where = { column: f.where.slice(0, eq).trim(), value: f.where.slice(eq + 1).trim() };
-  }
-  return o;
-}
+export { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags };
 
 /** --latitude in degrees (default DEFAULT_LATITUDE_DEG), checked to lie in -90..90. */
 function latitudeOption(value: string | undefined): { latitudeDeg: number; assumed: boolean } {
@@ -188,12 +117,16 @@ function summaryLines(s: WeatherSummary, latitudeDeg: number, latitudeNote: stri
 }
 
 interface CheckFlags extends WeatherReadFlags {
+  compare?: string[];
   latitude?: string;
   elevation?: string;
   json?: boolean;
 }
 
-interface MakeFlags {
+interface MakeFlags extends WeatherReadFlags {
+  like?: string;
+  precipChange?: string;
+  tempChange?: string;
   years?: string;
   seed?: string;
   latitude?: string;
@@ -238,8 +171,19 @@ What is reported
   Tmin. Both need the latitude: give --latitude, otherwise ${DEFAULT_LATITUDE_DEG} degrees north is assumed and
   the output says so.
 
+Other formats (--format, detected from the header when not given)
+${Object.entries(WEATHER_FORMAT_HELP)
+  .map(([k, v]) => `  ${k.padEnd(9)}${v}`)
+  .join('\n')}
+  GHCN-Daily: --station picks one station of several; a wide export needs --export-units metric
+  or standard; missing and quality-flagged values are gaps (--fill). Daymet leaves out
+  31 December in leap years: it is filled (precipitation 0, the rest interpolated) and said.
+
 Examples
   tileflux weather check data-demo/weather.csv --latitude 42.5
+  tileflux weather check export.csv --station XX000000001 --export-units metric --fill
+  tileflux weather check daymet-point.csv
+  tileflux weather check --compare data-demo/weather.csv future.csv
   tileflux weather check stations.csv --columns date=DATE,precip=PRCP,tmax=TMAX,tmin=TMIN \\
       --precip-unit in --temp-unit f --where STATION=North --fill --json
 `;
@@ -255,8 +199,18 @@ The file is in tileflux's own form: date,precip_mm,tmax_c,tmin_c. A negative --l
 the seasons half a year (southern hemisphere); the latitude also sets the reference ET in the
 printed summary. It is synthetic weather for demonstrations and risk studies, not a record.
 
+With --like FILE the generator's parameters are fitted to your record instead: wet/dry
+transition probabilities and gamma wet-day amounts per month (a wet day has ${WET_DAY_MM} mm or more),
+Tmax and Tmin harmonics with monthly corrections, their spread and day-to-day persistence.
+--precip-change and --temp-change apply delta changes to the fitted or default climate:
+precipitation as intensity (every wet-day amount scales by the percentage; the number and
+sequence of wet days stay), temperature added to Tmax and Tmin. The output names the climate.
+
 Examples
   tileflux weather make --years 30 --seed 7 --out weather.csv
+  tileflux weather make --like data-demo/weather.csv --years 500 --seed 1 --out long.csv
+  tileflux weather make --like data-demo/weather.csv --years 30 --seed 1 \\
+      --precip-change "djf:+15%,jja:-10%" --temp-change +2C --out future.csv
   tileflux weather make --years 5 --seed 1 --start-year 2001 > short.csv
 `;
 
@@ -268,6 +222,76 @@ function expectedAnnualPrecip(): number {
     const pi = p.pWetGivenDry[m] / (1 + p.pWetGivenDry[m] - p.pWetGivenWet[m]);
     return sum + d * pi * p.gammaShape[m] * p.gammaScaleMm[m];
   }, 0);
+}
+
+const MONTHS = 'Jan Feb Mar Apr May Jun Jul Aug Sep Oct Nov Dec'.split(' ');
+const r2 = (x: number) => Math.round(x * 100) / 100;
+const r3 = (x: number) => Math.round(x * 1000) / 1000;
+
+/** Annual totals of complete years: mean, standard deviation, driest, wettest (mm). */
+function annual(s: RecordStatistics) {
+  const a = s.annualTotalsMm;
+  if (a.length === 0) return { years: 0, mean_mm: null, sd_mm: null, min_mm: null, max_mm: null };
+  const mean = a.reduce((x, y) => x + y, 0) / a.length;
+  const sd = Math.sqrt(a.reduce((x, y) => x + (y - mean) ** 2, 0) / Math.max(1, a.length - 1));
+  return {
+    years: a.length,
+    mean_mm: r2(mean),
+    sd_mm: r2(sd),
+    min_mm: r2(Math.min(...a)),
+    max_mm: r2(Math.max(...a)),
+  };
+}
+
+function statisticsJson(file: string, s: RecordStatistics) {
+  return {
+    file: basename(file),
+    first_date: s.firstDate,
+    last_date: s.lastDate,
+    days: s.days,
+    precip_month_mm: s.precipMonthMm.map(r2),
+    wet_day_fraction: s.wetDayFraction.map(r3),
+    tmax_month_c: s.tmaxMonthC.map(r2),
+    tmin_month_c: s.tminMonthC.map(r2),
+    annual_precip: annual(s),
+    max_daily_precip_mm: r2(s.maxDailyPrecipMm),
+    max_daily_precip_date: s.maxDailyPrecipDate,
+    max_tmax_c: r2(s.maxTmaxC),
+    min_tmin_c: r2(s.minTminC),
+  };
+}
+
+function compareJson(files: string[], a: RecordStatistics, b: RecordStatistics) {
+  return { wet_day_mm: WET_DAY_MM, a: statisticsJson(files[0], a), b: statisticsJson(files[1], b) };
+}
+
+/** Side-by-side table of two records' statistics. */
+function compareLines(files: string[], a: RecordStatistics, b: RecordStatistics): string[] {
+  const pair = (x: number, y: number, d: number) =>
+    `${fmt(x, d).padStart(7)} ${fmt(y, d).padStart(7)}`;
+  const lines = [
+    `A = ${files[0]} (${a.firstDate} to ${a.lastDate}), B = ${files[1]} (${b.firstDate} to ${b.lastDate})`,
+    `month   precip mm/month   wet-day share (>= ${WET_DAY_MM} mm)   mean Tmax degC   mean Tmin degC`,
+    `             A       B               A       B            A       B        A       B`,
+  ];
+  for (let m = 0; m < 12; m++) {
+    lines.push(
+      `${MONTHS[m]}   ${pair(a.precipMonthMm[m], b.precipMonthMm[m], 1)}       ${pair(a.wetDayFraction[m], b.wetDayFraction[m], 3)}    ${pair(a.tmaxMonthC[m], b.tmaxMonthC[m], 1)}  ${pair(a.tminMonthC[m], b.tminMonthC[m], 1)}`,
+    );
+  }
+  const ya = annual(a);
+  const yb = annual(b);
+  const yearLine = (y: ReturnType<typeof annual>) =>
+    y.years === 0
+      ? 'no complete year'
+      : `mean ${fmt(y.mean_mm!, 0)} mm, sd ${fmt(y.sd_mm!, 0)}, driest ${fmt(y.min_mm!, 0)}, wettest ${fmt(y.max_mm!, 0)} (${y.years} years)`;
+  lines.push(
+    `annual precipitation  A: ${yearLine(ya)}`,
+    `                      B: ${yearLine(yb)}`,
+    `extremes  largest day A ${fmt(a.maxDailyPrecipMm, 1)} mm (${a.maxDailyPrecipDate}), B ${fmt(b.maxDailyPrecipMm, 1)} mm (${b.maxDailyPrecipDate}); ` +
+      `highest Tmax A ${fmt(a.maxTmaxC, 1)}, B ${fmt(b.maxTmaxC, 1)} degC; lowest Tmin A ${fmt(a.minTminC, 1)}, B ${fmt(b.minTminC, 1)} degC`,
+  );
+  return lines;
 }
 
 /** Register `tileflux weather check` and `tileflux weather make`. */
@@ -288,7 +312,7 @@ export function registerWeather(program: Command): void {
       'Read a daily weather CSV, report every problem with its line and column, and summarise ' +
         'the record: period, filled days, annual precipitation, reference ET and snow.',
     )
-    .argument('<file>', 'daily weather CSV');
+    .argument('[file]', 'daily weather file (any format of --format)');
   addWeatherReadOptions(check)
     .option(
       '--latitude <deg>',
@@ -298,11 +322,32 @@ export function registerWeather(program: Command): void {
       '--elevation <m>',
       'site elevation, m or a length such as 900 ft (Penman-Monteith only; default 0)',
     )
+    .option(
+      '--compare <files...>',
+      'compare two records side by side (monthly means, wet-day frequency, extremes, annual totals)',
+    )
     .option('--json', 'print the summary as JSON')
     .addHelpText('after', CHECK_HELP)
     .action(
-      action((file: string, f: CheckFlags) => {
+      action((file: string | undefined, f: CheckFlags) => {
         const o = weatherReadOptions(f);
+        if (f.compare !== undefined) {
+          if (f.compare.length !== 2 || file !== undefined) {
+            throw new TilefluxError(
+              '--compare expects exactly two weather files: weather check --compare A.csv B.csv',
+            );
+          }
+          const [a, b] = f.compare.map((path) => readWeatherFile(path, o));
+          const sa = recordStatistics(a.series);
+          const sb = recordStatistics(b.series);
+          emit(f.json, compareJson(f.compare, sa, sb), () =>
+            compareLines(f.compare!, sa, sb).join('\n'),
+          );
+          return;
+        }
+        if (file === undefined) {
+          throw new TilefluxError('give a weather file, or --compare A.csv B.csv');
+        }
         const { latitudeDeg, assumed } = latitudeOption(f.latitude);
         const elevationM = quantityOption(f.elevation, 'length', '--elevation') ?? 0;
         if (!(elevationM >= -500 && elevationM <= 9000)) {
@@ -315,6 +360,8 @@ export function registerWeather(program: Command): void {
           where: o.where ? `${o.where.column}=${o.where.value}` : null,
           columns: r.columnsUsed,
           units: r.unitsUsed,
+          format: r.format,
+          notes: r.notes,
           filled_days: r.filledDays,
           ...summaryJson(s, latitudeDeg, assumed, elevationM),
         };
@@ -327,6 +374,7 @@ export function registerWeather(program: Command): void {
             `${file}${o.where ? `, rows where ${o.where.column} = ${o.where.value}` : ''}: ` +
               `${s.firstDate} to ${s.lastDate}, ${s.days} days, ${filled}`,
             `  columns        ${cols}`,
+            `  read as        ${weatherReadNote(r)}`,
             ...summaryLines(
               s,
               latitudeDeg,
@@ -337,7 +385,7 @@ export function registerWeather(program: Command): void {
       }),
     );
 
-  weather
+  const make = weather
     .command('make')
     .summary('write a synthetic daily weather record')
     .description(
@@ -354,6 +402,20 @@ export function registerWeather(program: Command): void {
     .option('-o, --out <file>', 'write the CSV here (default: standard output)')
     .option('-f, --force', 'overwrite --out if it exists')
     .option('--json', 'with --out, print a JSON summary of the written record')
+    .option(
+      '--like <file>',
+      'fit the generator to this daily record (any format of --format) instead of the invented site',
+    )
+    .option(
+      '--precip-change <change>',
+      'delta change of precipitation intensity: +10% for the year, or per month or season ' +
+        '(jan:+5%,djf:+20%); wet-day amounts scale, the number of wet days stays',
+    )
+    .option(
+      '--temp-change <change>',
+      'delta change of Tmax and Tmin: +2C (or +3.6F) for the year, or per month or season (jja:+3C)',
+    );
+  addWeatherReadOptions(make)
     .addHelpText('after', MAKE_HELP)
     .action(
       action((f: MakeFlags) => {
@@ -368,7 +430,29 @@ export function registerWeather(program: Command): void {
             '--json prints a summary of the written file; give --out FILE too',
           );
         }
-        const params = forHemisphere(DEFAULT_GENERATOR, latitudeDeg);
+        let like: WeatherReadResult | undefined;
+        let params = forHemisphere(DEFAULT_GENERATOR, latitudeDeg);
+        if (f.like !== undefined) {
+          like = readWeatherFile(f.like, weatherReadOptions(f));
+          params = fitGenerator(like.series);
+        }
+        const precipChange = monthlyChange(f.precipChange, '--precip-change', 'precip');
+        const tempChange = monthlyChange(f.tempChange, '--temp-change', 'temp');
+        const changed = [...precipChange, ...tempChange].some((x) => x !== 0);
+        if (changed) {
+          params = changeClimate(params, {
+            precipChangePct: precipChange,
+            tempChangeC: tempChange,
+          });
+        }
+        const climate =
+          (like
+            ? `fitted to ${basename(f.like!)} (${like.series.dates[0]} to ${like.series.dates.at(-1)})`
+            : 'the invented humid-continental site') +
+          (changed
+            ? `; precipitation intensity ${describeChange(precipChange, '%')}, ` +
+              `temperature ${describeChange(tempChange, ' degC')} (delta change)`
+            : '');
         const csv = formatWeatherCsv(generateWeather({ years, seed, startYear, params }));
         if (f.out === undefined) {
           process.stdout.write(csv);
@@ -383,12 +467,16 @@ export function registerWeather(program: Command): void {
           years,
           seed,
           start_year: startYear,
+          climate,
+          precip_change_percent: precipChange,
+          temp_change_c: tempChange,
           ...summaryJson(s, latitudeDeg, assumed, 0),
         };
         emit(f.json, json, () =>
           [
-            `Wrote ${f.out}: synthetic weather of an invented site, ${s.firstDate} to ${s.lastDate} ` +
+            `Wrote ${f.out}: synthetic weather, ${s.firstDate} to ${s.lastDate} ` +
               `(${years} years, seed ${seed}, ${s.days} days)`,
+            `  climate        ${climate}`,
             ...summaryLines(s, latitudeDeg, assumed ? ' (the default)' : ''),
           ].join('\n'),
         );

@@ -54,8 +54,17 @@ export class CsvRows {
   private monthStart = NaN;
   private monthDays = 0;
 
-  constructor(readonly text: string) {
-    this.pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  /**
+   * @param offset where to start reading (default: the start, after a byte-order mark)
+   * @param firstLine the line number at `offset`
+   */
+  constructor(
+    readonly text: string,
+    offset = 0,
+    firstLine = 1,
+  ) {
+    this.pos = offset === 0 && text.charCodeAt(0) === 0xfeff ? 1 : offset;
+    this.lineNo = firstLine;
     this.loneCr = /\r(?!\n)/.test(text);
   }
 

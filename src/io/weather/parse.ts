@@ -7,6 +7,7 @@
  * units (mm/d, degC, MJ m-2 d-1, %, m/s).
  */
 import type { WeatherSeries } from '../../climate/weatherSeries.js';
+import type { WeatherFormat } from './formats.js';
 import {
   assembleSeries,
   checkTminTmax,
@@ -48,6 +49,12 @@ export interface WeatherReadOptions extends ColumnOptions {
   where?: { column: string; value: string };
   /** Fill missing days and empty cells, up to 7 days in a row. */
   fill?: boolean;
+  /** Format of the file (default auto: detected from the header). */
+  format?: WeatherFormat;
+  /** GHCN-Daily: the station to read (required when the file holds several). */
+  station?: string;
+  /** GHCN-Daily wide export: the units it was ordered in (the file does not say). */
+  exportUnits?: 'metric' | 'standard';
 }
 
 /** What was read and how. */
@@ -59,6 +66,12 @@ export interface WeatherReadResult {
   columnsUsed: Record<string, string>;
   /** Variable -> unit it was read in. */
   unitsUsed: Record<string, string>;
+  /** The format the file was read in. */
+  format: Exclude<WeatherFormat, 'auto'>;
+  /** What was done beyond reading (station, filled leap days, flagged values). */
+  notes: string[];
+  /** Daymet: left-out 31 Decembers of leap years that were filled (not in filledDays). */
+  leapDaysFilled?: number;
 }
 
 /** Move a reader to its next record, turning CSV syntax errors into located problems. */
@@ -103,7 +116,7 @@ export function parseWeatherCsv(text: string, o: WeatherReadOptions = {}): Weath
   const cols = resolveColumns(header, headerLine, o, problems);
   const staged = readOwnRows(rows, header, headerLine, cols, o, problems);
   const { series, filledDays } = assembleSeries(staged, o.fill === true, problems);
-  return { series, filledDays, ...columnReport(cols) };
+  return { series, filledDays, ...columnReport(cols), format: 'tileflux', notes: [] };
 }
 
 /** Variable -> header and variable -> unit label, as reported to the user. */

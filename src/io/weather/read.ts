@@ -1,7 +1,8 @@
 /** Reading a weather file from disk. */
 import { readFileSync } from 'node:fs';
 import { TilefluxError } from '../../errors.js';
-import { parseWeatherCsv, type WeatherReadOptions, type WeatherReadResult } from './parse.js';
+import { readWeather } from './formats.js';
+import type { WeatherReadOptions, WeatherReadResult } from './parse.js';
 
 /** The text of a weather file, or a one-line error saying why it cannot be read. */
 export function readWeatherText(path: string): string {
@@ -20,10 +21,11 @@ export function readWeatherText(path: string): string {
 }
 
 /**
- * Read a weather CSV file; like parseWeatherCsv, with the file's name in every message.
+ * Read a weather file in any format tileflux reads (`format`, detected when not given), with the
+ * file's name in every message.
  *
  * @example readWeatherFile('data-demo/weather.csv').series.dates.length // 10958
  */
 export function readWeatherFile(path: string, o: WeatherReadOptions = {}): WeatherReadResult {
-  return parseWeatherCsv(readWeatherText(path), { ...o, file: o.file ?? path });
+  return readWeather(readWeatherText(path), { ...o, file: o.file ?? path });
 }

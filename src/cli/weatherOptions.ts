@@ -1,0 +1,148 @@
+/**
+ * The weather reading options every command that reads weather offers (`run`, `weather check`,
+ * and any other): --format, --columns, --precip-unit, --temp-unit, --where, --station,
+ * --export-units, --fill. `addWeatherReadOptions` adds them with the same names and help
+ * everywhere; `weatherReadOptions` turns the flags into library options; `readWeatherOption`
+ * reads a file with them.
+ */
+import type { Command } from 'commander';
+import { TilefluxError } from '../errors.js';
+import {
+  MAX_FILL_DAYS,
+  readWeatherFile,
+  WEATHER_FORMATS,
+  WEATHER_VARIABLES,
+  type WeatherReadOptions,
+  type WeatherReadResult,
+} from '../io/weather.js';
+
+/** Raw values of the weather reading options, as commander hands them over. */
+export interface WeatherReadFlags {
+  format?: string;
+  columns?: string;
+  precipUnit?: string;
+  tempUnit?: string;
+  where?: string;
+  station?: string;
+  exportUnits?: string;
+  fill?: boolean;
+}
+
+/** Add the weather reading options to a command (same names and help everywhere). */
+export function addWeatherReadOptions(cmd: Command): Command {
+  return cmd
+    .option(
+      '--format <format>',
+      `weather file format: ${WEATHER_FORMATS.join(', ')} (default auto: detected from the ` +
+        'header; tileflux = own CSV, ghcn = GHCN-Daily CSV export, daymet = Daymet single-pixel CSV)',
+    )
+    .option(
+      '--columns <map>',
+      'map variables to your headers: VARIABLE=HEADER pairs separated by commas, variables ' +
+        `${WEATHER_VARIABLES.join(', ')} (e.g. date=DATE,precip=PRCP,tmax=TMAX,tmin=TMIN)`,
+    )
+    .option(
+      '--precip-unit <unit>',
+      'unit of precipitation and pet columns without a suffix: mm or in (default mm)',
+    )
+    .option(
+      '--temp-unit <unit>',
+      'unit of temperature columns without a suffix: c or f (default c)',
+    )
+    .option(
+      '--where <column=value>',
+      'keep only rows whose COLUMN equals VALUE (one station of several)',
+    )
+    .option('--station <id>', 'GHCN-Daily: the station to read from a file of several')
+    .option(
+      '--export-units <units>',
+      'GHCN-Daily wide export: metric (mm, degC) or standard (in, degF), as ordered',
+    )
+    .option(
+      '--fill',
+      `fill runs of up to ${MAX_FILL_DAYS} missing days, empty cells or flagged values and say how many`,
+    );
+}
+
+/** Turn the raw reading options into WeatherReadOptions, rejecting malformed values. */
+export function weatherReadOptions(f: WeatherReadFlags): WeatherReadOptions {
+  const o: WeatherReadOptions = { fill: Boolean(f.fill) };
+  if (f.format !== undefined) {
+    const format = f.format.trim().toLowerCase();
+    if (!(WEATHER_FORMATS as readonly string[]).includes(format)) {
+      throw new TilefluxError(
+        `--format expects one of ${WEATHER_FORMATS.join(', ')}; got ${f.format}`,
+      );
+    }
+    o.format = format as WeatherReadOptions['format'];
+  }
+  if (f.columns !== undefined) {
+    const columns: Record<string, string> = {};
+    for (const pair of f.columns.split(',')) {
+      const eq = pair.indexOf('=');
+      const key = pair.slice(0, eq).trim().toLowerCase();
+      const header = pair.slice(eq + 1).trim();
+      if (eq < 0 || key === '' || header === '') {
+        throw new TilefluxError(
+          '--columns expects VARIABLE=HEADER pairs separated by commas, such as ' +
+            `date=DATE,precip=PRCP,tmax=TMAX,tmin=TMIN; got "${f.columns}"`,
+        );
+      }
+      if (!(WEATHER_VARIABLES as readonly string[]).includes(key)) {
+        throw new TilefluxError(
+          `--columns: unknown variable "${key}"; accepted: ${WEATHER_VARIABLES.join(', ')}`,
+        );
+      }
+      columns[key] = header;
+    }
+    o.columns = columns;
+  }
+  if (f.precipUnit !== undefined) {
+    const u = f.precipUnit.trim().toLowerCase();
+    if (u !== 'mm' && u !== 'in') {
+      throw new TilefluxError(`--precip-unit expects mm or in; got ${f.precipUnit}`);
+    }
+    o.precipUnit = u;
+  }
+  if (f.tempUnit !== undefined) {
+    const u = f.tempUnit.trim().toLowerCase();
+    if (u !== 'c' && u !== 'f')
+      throw new TilefluxError(`--temp-unit expects c or f; got ${f.tempUnit}`);
+    o.tempUnit = u;
+  }
+  if (f.where !== undefined) {
+    const eq = f.where.indexOf('=');
+    if (eq <= 0) {
+      throw new TilefluxError(
+        `--where expects COLUMN=VALUE, such as "station=North"; got "${f.where}"`,
+      );
+    }
+    o.where = { column: f.where.slice(0, eq).trim(), value: f.where.slice(eq + 1).trim() };
+  }
+  if (f.station !== undefined) {
+    if (f.station.trim() === '') throw new TilefluxError('--station expects a station id');
+    o.station = f.station.trim();
+  }
+  if (f.exportUnits !== undefined) {
+    const u = f.exportUnits.trim().toLowerCase();
+    if (u !== 'metric' && u !== 'standard') {
+      throw new TilefluxError(`--export-units expects metric or standard; got ${f.exportUnits}`);
+    }
+    o.exportUnits = u;
+  }
+  return o;
+}
+
+/**
+ * Read a weather file with the reading options of a command.
+ *
+ * @example readWeatherOption('weather.csv', { format: 'daymet' })
+ */
+export function readWeatherOption(path: string, flags: WeatherReadFlags): WeatherReadResult {
+  return readWeatherFile(path, weatherReadOptions(flags));
+}
+
+/** One line on how a file was read: format, period, and what was filled. */
+export function weatherReadNote(r: WeatherReadResult): string {
+  return [`format ${r.format}`, ...r.notes].join('; ');
+}
