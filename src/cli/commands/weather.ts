@@ -474,7 +474,7 @@ export function registerWeather(program: Command): void {
         };
         emit(f.json, json, () =>
           [
-            `Wrote ${f.out}: synthetic weather, ${s.firstDate} to ${s.lastDate} ` +
+            `Wrote ${f.out}: synthetic weather${like ? '' : ' of an invented site'}, ${s.firstDate} to ${s.lastDate} ` +
               `(${years} years, seed ${seed}, ${s.days} days)`,
             `  climate        ${climate}`,
             ...summaryLines(s, latitudeDeg, assumed ? ' (the default)' : ''),
