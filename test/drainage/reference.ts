@@ -52,13 +52,17 @@ export const hooghoudtQ = (k1: number, k2: number, d: number, h: number, L: numb
 
 /**
  * Glover-Dumm midpoint ratio for an initially flat water table (Dumm 1954; Ritzema 1994 ch. 8):
- * (4/pi) sum over odd n of (-1)^((n-1)/2) exp(-n^2 y) / n, with a fixed number of terms.
+ * (4/pi) sum over odd n of (-1)^((n-1)/2) exp(-n^2 y) / n, summed term by term until the terms
+ * fall below 1e-18 of the sum (an alternating series: the error is below the first term left
+ * out), or at most `terms` terms.
  */
 export function gloverSeriesRatio(y: number, terms = 200_000): number {
   let s = 0;
   for (let i = 0; i < terms; i++) {
     const n = 2 * i + 1;
-    s += ((i % 2 === 0 ? 1 : -1) * Math.exp(-n * n * y)) / n;
+    const term = Math.exp(-n * n * y) / n;
+    s += (i % 2 === 0 ? 1 : -1) * term;
+    if (term < 1e-18 * Math.abs(s)) break;
   }
   return (4 / Math.PI) * s;
 }

@@ -1,0 +1,76 @@
+// Mutation testing of the core with Stryker (`npm run mutate`, `npm run mutate -- drainage`):
+// each folder is mutated on its own with only its own tests, one after the other, and its score
+// printed. Not part of `npm test` (it takes minutes). Incremental: results of unchanged code and
+// tests are reused from node_modules/.cache/tileflux/. TILEFLUX_MUTATE_CONCURRENCY sets the
+// worker count (default 2, the machine's cores).
+import { Stryker } from '@stryker-mutator/core';
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+
+const root = join(import.meta.dirname, '..', '..');
+const cache = 'node_modules/.cache/tileflux';
+
+/** Mutated sources and the tests that must kill their mutants, per folder. */
+const TARGETS = {
+  drainage: { mutate: ['src/drainage/**/*.ts'], tests: ['test/drainage/**/*.test.ts'] },
+  climate: { mutate: ['src/climate/**/*.ts'], tests: ['test/climate/**/*.test.ts'] },
+  engine: { mutate: ['src/engine/**/*.ts'], tests: ['test/engine/**/*.test.ts'] },
+  nitrate: { mutate: ['src/nitrate/**/*.ts'], tests: ['test/nitrate/**/*.test.ts'] },
+  scenarios: {
+    mutate: ['src/scenarios/annual.ts', 'src/scenarios/compare.ts'],
+    tests: ['test/scenarios/**/*.test.ts'],
+  },
+};
+
+const concurrency = Number(process.env.TILEFLUX_MUTATE_CONCURRENCY ?? 2);
+const asked = process.argv.slice(2);
+for (const name of asked) {
+  if (!(name in TARGETS)) {
+    console.error(`unknown folder "${name}"; accepted: ${Object.keys(TARGETS).join(', ')}`);
+    process.exit(1);
+  }
+}
+const names = asked.length > 0 ? asked : Object.keys(TARGETS);
+
+/** Mutation score, %: killed (or timed out) over all mutants that compile and run. */
+function score(results) {
+  const count = (...states) => results.filter((r) => states.includes(r.status)).length;
+  const detected = count('Killed', 'Timeout');
+  const undetected = count('Survived', 'NoCoverage');
+  return { detected, undetected, percent: (100 * detected) / (detected + undetected) };
+}
+
+mkdirSync(join(root, cache), { recursive: true });
+const rows = [];
+const started = Date.now();
+for (const name of names) {
+  const t0 = Date.now();
+  const target = TARGETS[name];
+  // The tests of this folder only (read by test/mutate/vitest.config.ts in the workers).
+  process.env.TILEFLUX_MUTATE_TESTS = target.tests.join(',');
+  const stryker = new Stryker({
+    mutate: target.mutate,
+    testRunner: 'vitest',
+    vitest: { configFile: 'test/mutate/vitest.config.ts', related: false },
+    coverageAnalysis: 'perTest',
+    concurrency,
+    incremental: true,
+    incrementalFile: `${cache}/stryker-${name}.json`,
+    tempDirName: `${cache}/stryker-tmp`,
+    cleanTempDir: 'always',
+    ignorePatterns: ['dist', 'notebooks', 'data-demo', 'tileflux-demo', 'coverage', '*.md'],
+    reporters: ['clear-text', 'progress-append-only'],
+    clearTextReporter: { reportTests: false, reportMutants: true, reportScoreTable: true },
+    timeoutMS: 30_000,
+    plugins: ['@stryker-mutator/vitest-runner'],
+  });
+  const results = await stryker.runMutationTest();
+  const s = score(results);
+  const minutes = (Date.now() - t0) / 60_000;
+  rows.push(
+    `${name.padEnd(10)} ${s.percent.toFixed(1).padStart(5)} %  ${String(s.detected).padStart(4)} killed  ${String(s.undetected).padStart(4)} survived  ${minutes.toFixed(1)} min`,
+  );
+}
+console.log(`\nmutation score per folder (concurrency ${concurrency}):`);
+for (const r of rows) console.log(`  ${r}`);
+console.log(`  total ${((Date.now() - started) / 60_000).toFixed(1)} min`);

@@ -1,0 +1,16 @@
+// Vitest settings for mutation runs (test/mutate/run.mjs): the same fast-check seed as the suite,
+// only the tests named in TILEFLUX_MUTATE_TESTS, and no build (these tests import src/).
+import { join } from 'node:path';
+import { defineConfig } from 'vitest/config';
+
+const tests = process.env.TILEFLUX_MUTATE_TESTS;
+
+export default defineConfig({
+  root: join(import.meta.dirname, '..', '..'),
+  test: {
+    include: tests ? tests.split(',') : ['test/**/*.test.ts'],
+    setupFiles: ['test/support/fastCheckSeed.ts'],
+    testTimeout: 120_000,
+    hookTimeout: 300_000,
+  },
+});
