@@ -295,7 +295,7 @@ describe('pipe size lists', () => {
     expect(INCH_SIZES.name).toBe('in');
     expect(METRIC_SIZES.name).toBe('mm');
     expect(INCH_SIZES.source).toMatch(/common practice/);
-    expect(METRIC_SIZES.source).toMatch(/from memory/);
+    expect(METRIC_SIZES.source).toMatch(/common practice/);
   });
   it('reads custom lists: bare mm, a trailing unit, spaces, decimals and exponents', () => {
     expect(pipeSizeList('100, 150 ,200')).toEqual({
