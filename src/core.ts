@@ -30,6 +30,11 @@ export {
 } from './scenarios/prepared.js';
 export * from './scenarios/compare.js';
 export * from './scenarios/starter.js';
+export * from './scenarios/sweepSchema.js';
+export * from './scenarios/sweep.js';
+export * from './scenarios/economics.js';
+export * from './scenarios/sampling.js';
+export * from './scenarios/frontier.js';
 export * from './report/charts.js';
 export * from './report/types.js';
 export { fixed, signed } from './report/format.js';

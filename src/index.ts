@@ -7,6 +7,13 @@ export * from './io/weather.js';
 export * from './io/field.js';
 export * from './io/tables.js';
 export * from './io/runFolder.js';
+export { sweepParallel, type ParallelOptions } from './io/sweepPool.js';
+export {
+  buildSweepChartSpecs,
+  SWEEP_CHART_NAMES,
+  SWEEP_CHART_CAPTIONS,
+} from './report/sweepCharts.js';
+export { buildSweepReportHtml } from './report/sweepReport.js';
 export {
   writeCharts,
   writeReport,

@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { zQuantity } from '../units/zodQuantity.js';
 import { nitrateSchema } from '../nitrate/schema.js';
+import { checkSweep, costsSchema, managementName, sweepSchema } from './sweepSchema.js';
 
 const mmdd = z
   .string()
@@ -311,6 +312,18 @@ export const fieldSchema = z
     nitrate: nitrateSchema,
     wetness: wetnessSchema,
     simulation: simulationSchema,
+    sweep: sweepSchema
+      .extend({
+        outlet: z
+          .record(managementName, outletSchema)
+          .default({ free: 'free' })
+          .describe(
+            'Named outlet managements, each "free" or a schedule as in outlet:, e.g. winter hold: { schedule: [...] }',
+          ),
+      })
+      .optional()
+      .describe('Designs a study sweeps (tileflux sweep): depth x spacing x outlet management'),
+    costs: costsSchema.optional(),
     scenarios: z
       .array(scenarioSchema)
       .optional()
@@ -319,6 +332,9 @@ export const fieldSchema = z
       ),
   })
   .superRefine((f, ctx) => {
+    checkSweep(f, soilSchema.shape, (path, message) =>
+      ctx.addIssue({ code: 'custom', path, message }),
+    );
     // Hooghoudt's and Kirkham's equations need flow below the drains: the pipe must lie above
     // the restrictive layer by more than its radius.
     const below = f.soil.restrictiveLayerDepth - f.drains.depth;

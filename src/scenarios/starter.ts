@@ -38,6 +38,31 @@ export const STARTER_EXAMPLE = {
   initial: { waterTableDepth: '0.8 m' },
 };
 
+/** Commented examples of optional sections that have no defaults to show. */
+const COMMENTED_EXAMPLES: Record<string, string[]> = {
+  sweep: [
+    'sweep:',
+    '  depth: [0.75 m, 0.9 m, 1.05 m, 1.2 m]          # a list, or { from, to, step }',
+    '  spacing: { from: 10 m, to: 30 m, step: 2 m }',
+    '  outlet:                                         # named managements',
+    '    free: free',
+    "    winter hold: { schedule: [ { from: '10-25', depth: 0.3 m }, { from: '04-05', depth: free } ] }",
+    '  uncertain:                                      # sampled by Latin hypercube, seeded',
+    '    soil.conductivity: { low: 0.4 m/d, high: 1.6 m/d, scale: log }',
+    '    soil.drainablePorosity: { low: 0.03, high: 0.07 }',
+    '  samples: 40',
+  ],
+  costs: [
+    'costs:                                            # illustrative defaults shown; use local prices',
+    '  currency: USD',
+    '  lateral: 3.0 /m                                 # installed, per metre of lateral',
+    '  main: 0.15 of lateral                           # or { cost: 8 /m, lengthPerHa: 40 m }',
+    '  controlStructure: { each: 2000, drainsArea: 8 ha }',
+    '  lifeYears: 25',
+    '  discountRate: 4 %',
+  ],
+};
+
 function objectSchema(s: JsonSchema | undefined): JsonSchema | undefined {
   if (!s) return undefined;
   if (s.properties) return s;
@@ -99,6 +124,8 @@ function emit(
           .trimEnd();
         out.push(...text.split('\n').map((l) => indent + l));
       }
+    } else if (key in COMMENTED_EXAMPLES) {
+      out.push(...COMMENTED_EXAMPLES[key].map((l) => `${indent}# ${l}`));
     } else if (key === 'scenarios') {
       out.push(`${indent}# scenarios:`);
       out.push(`${indent}#   - { name: conventional }`);
