@@ -166,7 +166,7 @@ describe('tileflux sweep', () => {
     child.kill('SIGINT');
     const code = await new Promise<number | null>((r) => child.on('close', r));
     expect(code, stderr).toBe(130);
-    expect(stderr).toMatch(/stopped \(Ctrl-C\); nothing was written/);
+    expect(stderr).toMatch(/stopped by SIGINT; nothing was written/);
     expect(existsSync(out)).toBe(false);
     expect(readdirSync(dir).filter((n) => n.startsWith('.stopped'))).toEqual([]);
   });

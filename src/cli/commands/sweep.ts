@@ -129,15 +129,15 @@ export function registerSweep(program: Command): void {
         const samples = wholeNumber(o.samples, '--samples', 1, 10000);
         const seed = wholeNumber(o.seed, '--seed', 0, Number.MAX_SAFE_INTEGER);
         const workers = wholeNumber(o.workers, '--workers', 1, 64);
-        const field = readFieldFile(fieldPath);
-        const weather = readWeatherFile(o.weather, weatherReadOptions(o));
-        const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-sweep`;
         // Ctrl-C: stop the workers, write nothing, exit 130.
         const stop = new AbortController();
         const onSigint = () => stop.abort();
         process.on('SIGINT', onSigint);
         let bar: ReturnType<typeof progress> | undefined;
         try {
+          const field = readFieldFile(fieldPath);
+          const weather = readWeatherFile(o.weather, weatherReadOptions(o));
+          const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-sweep`;
           let last = 0;
           const result = await sweepParallel(field.base, weather.series, {
             samples,
@@ -194,7 +194,7 @@ export function registerSweep(program: Command): void {
         } catch (err) {
           bar?.stop();
           if (!stop.signal.aborted) throw err;
-          process.stderr.write('tileflux: stopped (Ctrl-C); nothing was written\n');
+          process.stderr.write('tileflux: stopped by SIGINT; nothing was written\n');
           process.exitCode = 130;
         } finally {
           process.off('SIGINT', onSigint);
