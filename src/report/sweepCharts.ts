@@ -14,13 +14,13 @@ export type SweepChartName = (typeof SWEEP_CHART_NAMES)[number];
 
 export const SWEEP_CHART_CAPTIONS: Readonly<Record<SweepChartName, string>> = {
   frontier:
-    'Median nitrate-N load against median growing-season wet days of every design, coloured by ' +
+    'Median nitrate-N load against median growing-season aeration-stress days of every design, coloured by ' +
     'annualised cost; filled marks and the line: the trade-off frontier (no other design has ' +
-    'less load, fewer wet days and less cost at once). Lower left is better.',
+    'less load, fewer aeration-stress days and less cost at once). Lower left is better.',
   'load-map':
     'Median nitrate-N load over drain depth and lateral spacing, one panel per outlet management.',
   'wetness-map':
-    'Median growing-season wet days over drain depth and lateral spacing, one panel per outlet ' +
+    'Median growing-season aeration-stress days (too little air in the upper root zone) over drain depth and lateral spacing, one panel per outlet ' +
     'management.',
   'cost-per-kg':
     'Extra annualised cost per kg of nitrate-N kept out of the drains, against the field as ' +
@@ -72,7 +72,7 @@ export function frontierChart(r: SweepResult): TopLevelSpec {
   const x = {
     field: 'wet',
     type: 'quantitative' as const,
-    title: 'Wet days in the growing season (median, days per year)',
+    title: 'Aeration-stress days in the growing season (median, days per year)',
   };
   const y = {
     field: 'load',
@@ -118,7 +118,7 @@ export function frontierChart(r: SweepResult): TopLevelSpec {
           tooltip: [
             { field: 'design' },
             { field: 'load', title: 'nitrate-N, kg/ha/yr' },
-            { field: 'wet', title: 'wet days/yr' },
+            { field: 'wet', title: 'aeration-stress days/yr' },
             { field: 'cost', title: `${currency}/ha/yr` },
             { field: 'share', title: 'frontier share' },
           ],
@@ -233,7 +233,12 @@ export function buildSweepChartSpecs(r: SweepResult): Record<SweepChartName, Top
   return {
     frontier: frontierChart(r),
     'load-map': heatMap(r, 'load', 'Nitrate-N load over depth and spacing', 'kg N/ha per year'),
-    'wetness-map': heatMap(r, 'wet', 'Wet days over depth and spacing', 'days per year'),
+    'wetness-map': heatMap(
+      r,
+      'wet',
+      'Aeration-stress days over depth and spacing',
+      'days per year',
+    ),
     'cost-per-kg': costPerKgChart(r),
   };
 }

@@ -61,14 +61,14 @@ function frontierTable(r: SweepResult): string {
     [
       'Design',
       'Nitrate-N load <span class="unit">(kg/ha/yr; median, 10th to 90th percentile)</span>',
-      'Wet days <span class="unit">(days/yr; median, 10th to 90th percentile)</span>',
+      'Aeration-stress days <span class="unit">(days/yr; median, 10th to 90th percentile)</span>',
       'Drain flow <span class="unit">(mm/yr, median)</span>',
       `Annual cost <span class="unit">(${cur}/ha/yr)</span>`,
       `Cost per kg N avoided <span class="unit">(${cur}/kg)</span>`,
       'On the frontier in <span class="unit">(share of soil samples)</span>',
     ],
     rows,
-    'Frontier designs: no other design has less nitrate-N load, fewer wet days and a lower annual ' +
+    'Frontier designs: no other design has less nitrate-N load, fewer aeration-stress days and a lower annual ' +
       'cost at once (at the medians across the soil samples). The share of soil samples in which a ' +
       'design stays on the frontier tells how robust its place is to the soil uncertainty.',
   );
@@ -174,9 +174,9 @@ export function buildSweepReportHtml(
         `<li>Costs: installed cost per hectare (laterals at 10 000 / spacing m/ha, mains, a ` +
         `control structure for managed outlets), annualised by the capital recovery factor ` +
         `i(1+i)^n / ((1+i)^n - 1).</li>` +
-        `<li>Frontier: a design is dominated when another has no more load, no more wet days and ` +
-        `no more annual cost, and less of one; wet days count growing-season days with the water ` +
-        `table midway between the drains shallower than the field file's threshold.</li></ul>`,
+        `<li>Frontier: a design is dominated when another has no more load, no more aeration-stress days and ` +
+        `no more annual cost, and less of one; aeration-stress days count growing-season days with ` +
+        `too little air in the upper root zone (README "Measures").</li></ul>`,
     ],
     [
       'cautions',

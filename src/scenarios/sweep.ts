@@ -37,9 +37,14 @@ const NOT_MEASURES = new Set([
   'storage_change_mm',
   'balance_error_mm',
   'n_balance_error_kg_ha',
+  'spring_window_days',
+  'fall_window_days',
 ]);
-/** The annual measure the frontier takes as wetness (growing-season days too wet). */
-export const WETNESS_MEASURE = 'wet_days';
+/**
+ * The annual measure the frontier takes as wetness: growing-season days with too little air in
+ * the upper root zone (README "Measures").
+ */
+export const WETNESS_MEASURE = 'aeration_stress_days';
 /** The nitrate-N load measure of the frontier. */
 export const LOAD_MEASURE = 'no3_load_kg_ha';
 /** Unit suffixes of measure names, longest first. */
@@ -431,7 +436,7 @@ export function recommendationLines(r: SweepResult, max = 8): string[] {
     const perKg = Number(d[r.costColumns.perKg]);
     return (
       `${k + 1}. ${d.design}: nitrate-N ${load.toFixed(1)} kg/ha/yr${pct}, ` +
-      `wet days ${Number(d[WETNESS_MEASURE]).toFixed(1)}/yr (${signedText(Number(d[measureColumn(WETNESS_MEASURE, 'change')]), 1)}), ` +
+      `aeration-stress days ${Number(d[WETNESS_MEASURE]).toFixed(1)}/yr (${signedText(Number(d[measureColumn(WETNESS_MEASURE, 'change')]), 1)}), ` +
       `cost ${Number(d[r.costColumns.annual]).toFixed(0)} ${cur}/ha/yr (${signedText(Number(d[r.costColumns.annualChange]), 0)})` +
       (Number.isFinite(perKg) ? `, ${perKg.toFixed(2)} ${cur} per kg N avoided` : '') +
       `; on the frontier in ${Math.round(100 * Number(d.frontier_share))} % of soil samples`

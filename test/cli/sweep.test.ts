@@ -153,7 +153,7 @@ describe('tileflux sweep', () => {
 
   it('stops on Ctrl-C with nothing written', async () => {
     const big = join(dir, 'big.yaml');
-    writeFileSync(big, FIELD.replace('samples: 3', 'samples: 400'));
+    writeFileSync(big, FIELD.replace('samples: 3', 'samples: 4000'));
     const out = join(dir, 'stopped');
     const child = spawn(
       process.execPath,
@@ -162,7 +162,7 @@ describe('tileflux sweep', () => {
     );
     let stderr = '';
     child.stderr.on('data', (b) => (stderr += String(b)));
-    await new Promise((r) => setTimeout(r, 2500));
+    await new Promise((r) => setTimeout(r, 6000));
     child.kill('SIGINT');
     const code = await new Promise<number | null>((r) => child.on('close', r));
     expect(code, stderr).toBe(130);

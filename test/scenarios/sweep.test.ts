@@ -179,8 +179,9 @@ describe('a sweep', () => {
       'runoff_mm',
       'et_mm',
       'wet_days',
-      'planting_ready_days',
-      'harvest_ready_days',
+      'aeration_stress_days',
+      'spring_fieldwork_days',
+      'fall_fieldwork_days',
       'stress_days',
       'wt_mean_depth_m',
     ] as const) {

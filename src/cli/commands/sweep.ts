@@ -152,35 +152,40 @@ export function registerSweep(program: Command): void {
           bar?.stop();
           const written = ['designs.csv', 'samples.csv', 'summary.json'];
           const summary = sweepSummary(result, basename(fieldPath), basename(o.weather));
-          await writeDirAtomic(out, Boolean(o.force), async (dir) => {
-            const check = () => {
-              if (stop.signal.aborted) throw new Error('stopped');
-            };
-            writeFileSync(join(dir, 'designs.csv'), toCsv(csvRows(result.designs), 'si'));
-            writeFileSync(join(dir, 'samples.csv'), toCsv(csvRows(result.samples), 'si'));
-            writeFileSync(join(dir, 'summary.json'), JSON.stringify(summary, null, 2) + '\n');
-            check();
-            if (o.charts === false && o.report === false) return;
-            const specs = buildSweepChartSpecs(result);
-            if (o.charts !== false) {
-              await writeCharts(dir, specs);
-              written.push('charts/');
+          await writeDirAtomic(
+            out,
+            Boolean(o.force),
+            async (dir) => {
+              const check = () => {
+                if (stop.signal.aborted) throw new Error('stopped');
+              };
+              writeFileSync(join(dir, 'designs.csv'), toCsv(csvRows(result.designs), 'si'));
+              writeFileSync(join(dir, 'samples.csv'), toCsv(csvRows(result.samples), 'si'));
+              writeFileSync(join(dir, 'summary.json'), JSON.stringify(summary, null, 2) + '\n');
               check();
-            }
-            if (o.report !== false) {
-              writeFileSync(
-                join(dir, 'report.html'),
-                buildSweepReportHtml(result, specs, basename(o.weather)),
-              );
-              written.push('report.html');
-            }
-            check();
-          });
+              if (o.charts === false && o.report === false) return;
+              const specs = buildSweepChartSpecs(result);
+              if (o.charts !== false) {
+                await writeCharts(dir, specs);
+                written.push('charts/');
+                check();
+              }
+              if (o.report !== false) {
+                writeFileSync(
+                  join(dir, 'report.html'),
+                  buildSweepReportHtml(result, specs, basename(o.weather)),
+                );
+                written.push('report.html');
+              }
+              check();
+            },
+            { inputs: [fieldPath, o.weather] },
+          );
           emit(o.json, summary, () =>
             [
               `${result.plan.field.name}: ${result.designs.length} designs x ${result.plan.samples.length} soil samples, ${result.from} to ${result.to} (${result.years} years)`,
               '',
-              `Recommended candidates (${result.frontier.length} on the trade-off frontier of nitrate-N load, wet days and cost; baseline: ${result.designs[result.plan.baselineIndex].design}):`,
+              `Recommended candidates (${result.frontier.length} on the trade-off frontier of nitrate-N load, aeration-stress days and cost; baseline: ${result.designs[result.plan.baselineIndex].design}):`,
               ...recommendationLines(result),
               '',
               `Wrote ${out}/ (${written.join(', ')}).`,
