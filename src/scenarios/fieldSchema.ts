@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { zQuantity } from '../units/zodQuantity.js';
 import { nitrateSchema } from '../nitrate/schema.js';
+import { fitSectionSchema } from './fitParams.js';
 
 const mmdd = z
   .string()
@@ -311,6 +312,7 @@ export const fieldSchema = z
     nitrate: nitrateSchema,
     wetness: wetnessSchema,
     simulation: simulationSchema,
+    fit: fitSectionSchema,
     scenarios: z
       .array(scenarioSchema)
       .optional()

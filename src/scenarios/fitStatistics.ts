@@ -29,19 +29,19 @@ export interface Pairs {
 }
 
 /**
- * Keep the days with a finite observation (and a finite simulation), optionally only those with
- * index in [from, to).
+ * Keep the days with a finite observation (and a finite simulation), optionally only the days
+ * whose `mask` entry is non-zero (a calibration or validation period).
  * @example pairsOf([1, NaN, 3], [1.5, 2, 2.5]) // { observed: [1, 3], simulated: [1.5, 2.5] }
  */
 export function pairsOf(
   observed: ArrayLike<number>,
   simulated: ArrayLike<number>,
-  from = 0,
-  to = observed.length,
+  mask?: ArrayLike<number>,
 ): Pairs {
   const o: number[] = [];
   const s: number[] = [];
-  for (let i = Math.max(0, from); i < Math.min(to, observed.length); i++) {
+  for (let i = 0; i < observed.length; i++) {
+    if (mask && !mask[i]) continue;
     if (Number.isFinite(observed[i]) && Number.isFinite(simulated[i])) {
       o.push(observed[i]);
       s.push(simulated[i]);

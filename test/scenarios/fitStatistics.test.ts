@@ -97,8 +97,11 @@ describe('edge cases', () => {
     expect(pairs).toEqual({ observed: [1, 3, 5], simulated: [1.2, 2.8, 5] });
     // 1 - (0.04 + 0.04 + 0) / (4 + 0 + 4)
     expect(nse(pairs)).toBeCloseTo(0.99, 12);
-    // a window [from, to) of day indices
-    expect(pairsOf([1, NaN, 3, 4], [1, 2, 3, 4], 1, 3)).toEqual({ observed: [3], simulated: [3] });
+    // only the days of a period (mask)
+    expect(pairsOf([1, NaN, 3, 4], [1, 2, 3, 4], [0, 1, 1, 0])).toEqual({
+      observed: [3],
+      simulated: [3],
+    });
   });
 
   it('no pairs or one pair: nothing but n', () => {
