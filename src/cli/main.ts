@@ -8,6 +8,7 @@ import { registerWeather } from './commands/weather.js';
 import { registerDemo } from './commands/demo.js';
 import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
+import { registerFit } from './commands/fit.js';
 import { registerSpacing } from './commands/spacing.js';
 import { registerSize } from './commands/size.js';
 import { registerSystem } from './commands/system.js';
@@ -34,6 +35,7 @@ const registrations: Array<(p: Command) => void> = [
   // Each command module adds its registration here, in the order --help lists them.
   registerDemo,
   registerRun,
+  registerFit,
   registerInit,
   registerWeather,
   registerSpacing,

@@ -40,6 +40,8 @@ export const NO_STATISTIC_LOSS = 1000;
 export interface AlignedObservations {
   drainflowMm?: Float64Array;
   waterTableDepthM?: Float64Array;
+  /** Carried along for the outputs; not fitted. */
+  no3MgL?: Float64Array;
 }
 
 /** Everything one candidate evaluation needs; plain data, so it can be sent to a worker. */
@@ -253,7 +255,12 @@ export async function fitField(
     starts: o.starts,
     maxEvaluations: o.maxEvaluations,
   });
-  const best = valuesOf(problem, search.best.u);
+  // Values as written to fitted.yaml (four significant digits, inside the bounds): the
+  // statistics below are those of the written values, so `tileflux run fitted.yaml` agrees.
+  const best = valuesOf(problem, search.best.u).map((v, j) => {
+    const [lo, hi] = problem.bounds[j];
+    return Math.min(Math.max(Number(v.toPrecision(4)), lo), hi);
+  });
   const limit = search.best.loss + o.behaviouralTolerance;
   const behavioural = search.evaluated
     .filter((e) => e.loss <= limit)
@@ -274,7 +281,7 @@ export async function fitField(
         Math.max(...behavioural.map((b) => b[j])),
       ],
     })),
-    bestLoss: search.best.loss,
+    bestLoss: lossOfRun(problem, bestRun, problem.calibration),
     startLoss: search.evaluated[0].loss,
     behaviouralTolerance: o.behaviouralTolerance,
     behaviouralSets: behavioural.length,

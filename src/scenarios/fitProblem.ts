@@ -18,7 +18,12 @@ export const MIN_OBSERVED_SPAN_DAYS = 90;
 export interface FitSetup {
   base: Field;
   weather: WeatherSeries;
-  observed: { dates: string[]; drainflowMm?: Float64Array; waterTableDepthM?: Float64Array };
+  observed: {
+    dates: string[];
+    drainflowMm?: Float64Array;
+    waterTableDepthM?: Float64Array;
+    no3MgL?: Float64Array;
+  };
   objective: FitObjective;
   /** Parameters to fit (default: the field's fit.params, else DEFAULT_FIT_PATHS). */
   paths?: string[];
@@ -150,6 +155,7 @@ export function buildFitProblem(s: FitSetup): FitProblem {
   const observed = {
     drainflowMm: align(obs.drainflowMm),
     waterTableDepthM: align(obs.waterTableDepthM),
+    no3MgL: align(obs.no3MgL),
   };
   const inside = (d: string, p: [string, string] | undefined) =>
     p !== undefined && d >= p[0] && d <= p[1];
