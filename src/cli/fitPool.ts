@@ -5,6 +5,7 @@
  */
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
+import type { WeatherSeries } from '../climate/weatherSeries.js';
 import type { FitProblem } from '../scenarios/fit.js';
 import type { nelderMead, SearchRunner } from '../scenarios/optimise.js';
 import type { FitTask } from './fitWorker.js';
@@ -12,12 +13,23 @@ import type { FitTask } from './fitWorker.js';
 /** A search runner on `workers` threads, and the function that stops them. */
 export function poolRunner(
   problem: FitProblem,
+  weather: WeatherSeries,
   workers: number,
   onProgress: () => void = () => {},
 ): { runner: SearchRunner; close: () => Promise<void> } {
   const pool = new Piscina({
     filename: fileURLToPath(new URL('./fitWorker.js', import.meta.url)),
-    workerData: { problem },
+    // The prepared period holds caches and functions, which cannot be sent to a thread: each
+    // worker prepares the same period again from the weather (same code, same numbers).
+    workerData: {
+      problem: { ...problem, period: undefined },
+      weather,
+      period: {
+        from: problem.period.from,
+        to: problem.period.to,
+        warmupYears: problem.period.warmupYears,
+      },
+    },
     minThreads: workers,
     maxThreads: workers,
     idleTimeout: 1000,

@@ -45,7 +45,7 @@ export default async function () {
   const figures = [];
   for (const workers of [0, 2]) {
     const t0 = performance.now();
-    const pool = workers ? poolRunner(problem, workers) : undefined;
+    const pool = workers ? poolRunner(problem, w, workers) : undefined;
     const runner = pool ? pool.runner : localRunner(calibrationLoss(problem));
     const r = await fitField(problem, runner, { seed: 1, behaviouralTolerance: 0.05 });
     await pool?.close();

@@ -277,7 +277,7 @@ export function registerFit(program: Command): void {
         let runner: SearchRunner;
         let close = async () => {};
         if (workers > 0) {
-          ({ runner, close } = poolRunner(problem, workers, () => bar.tick('searching')));
+          ({ runner, close } = poolRunner(problem, weather, workers, () => bar.tick('searching')));
         } else runner = localRunner(calibrationLoss(problem));
         let result: FitResult;
         try {
