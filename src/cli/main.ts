@@ -9,6 +9,7 @@ import { registerDemo } from './commands/demo.js';
 import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
 import { registerSweep } from './commands/sweep.js';
+import { registerFit } from './commands/fit.js';
 import { registerSpacing } from './commands/spacing.js';
 import { registerSize } from './commands/size.js';
 import { registerSystem } from './commands/system.js';
@@ -36,6 +37,7 @@ const registrations: Array<(p: Command) => void> = [
   registerDemo,
   registerRun,
   registerSweep,
+  registerFit,
   registerInit,
   registerWeather,
   registerSpacing,

@@ -63,7 +63,8 @@ export const PALETTE = [
 ];
 const THRESHOLD_COLOUR = '#8c1c13';
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-const WIDTH = 640;
+export const CHART_WIDTH = 640;
+const WIDTH = CHART_WIDTH;
 
 type Config = NonNullable<TopLevelSpec['config']>;
 
@@ -99,7 +100,7 @@ export const CONFIG: Config = {
 };
 
 /** Round to a fixed number of decimals, keeping the inlined data short and deterministic. */
-function round(x: number, decimals: number): number {
+export function roundTo(x: number, decimals: number): number {
   const f = 10 ** decimals;
   return Math.round(x * f) / f;
 }
@@ -152,7 +153,7 @@ function monthOf(iso: string): number {
   return (iso.charCodeAt(5) - 48) * 10 + (iso.charCodeAt(6) - 48) - 1;
 }
 
-function temporalX(
+export function temporalX(
   format: string,
   title: string | null,
   tickCount: { interval: 'month' | 'year'; step: number },
@@ -186,15 +187,15 @@ export function waterTableChart(data: ReportData): TopLevelSpec {
   for (const name of names) {
     const s = dailySeries(data, name);
     for (let i = i0; i < i1; i++) {
-      const depth = round(s.waterTableDepthM[i] * u.factor, 3);
+      const depth = roundTo(s.waterTableDepthM[i] * u.factor, 3);
       table.push({ date: dates[i], scenario: name, depth });
       const level = s.outletDepthM[i];
       if (i === i0 || i === i1 - 1 || level !== s.outletDepthM[i - 1]) {
-        outlet.push({ date: dates[i], scenario: name, depth: round(level * u.factor, 3) });
+        outlet.push({ date: dates[i], scenario: name, depth: roundTo(level * u.factor, 3) });
       }
     }
   }
-  const threshold = round(data.wetThresholdM * u.factor, 3);
+  const threshold = roundTo(data.wetThresholdM * u.factor, 3);
   const x = temporalX('%b', `Date (${data.chartYear})`, { interval: 'month', step: 1 });
   const y = {
     field: 'depth',
@@ -282,8 +283,8 @@ export function cumulativeChart(data: ReportData): TopLevelSpec {
         values.push({
           date: dates[i],
           scenario: name,
-          flow: round(flow * du.water.factor, 2),
-          load: round(load * du.load.factor, 3),
+          flow: roundTo(flow * du.water.factor, 2),
+          load: roundTo(load * du.load.factor, 3),
         });
       }
     }
@@ -363,8 +364,8 @@ export function annualChart(data: ReportData): TopLevelSpec {
   const values = rows.map((r) => ({
     year: r.year,
     scenario: r.scenario,
-    flow: round(r.drainflow_mm * du.water.factor, 2),
-    load: round(r.no3_load_kg_ha * du.load.factor, 3),
+    flow: roundTo(r.drainflow_mm * du.water.factor, 2),
+    load: roundTo(r.no3_load_kg_ha * du.load.factor, 3),
   }));
   const years = [...new Set(rows.map((r) => r.year))].sort((a, b) => a - b);
   return {
@@ -429,8 +430,8 @@ export function monthlyChart(data: ReportData): TopLevelSpec {
       values.push({
         month: MONTHS[m],
         scenario: name,
-        flow: round((flow[m] / count[m]) * du.water.factor, 2),
-        load: round((load[m] / count[m]) * du.load.factor, 3),
+        flow: roundTo((flow[m] / count[m]) * du.water.factor, 2),
+        load: roundTo((load[m] / count[m]) * du.load.factor, 3),
       });
     }
   }
@@ -472,8 +473,8 @@ export function tradeoffChart(data: ReportData): TopLevelSpec {
     return {
       scenario: name,
       label: c.is_baseline ? `${name} (baseline)` : name,
-      wet: round(c.wet_days, 2),
-      load: round(c.no3_load_kg_ha * du.load.factor, 3),
+      wet: roundTo(c.wet_days, 2),
+      load: roundTo(c.no3_load_kg_ha * du.load.factor, 3),
     };
   });
   // Both axes start at zero; the wetness axis has room on the right for the labels and a
@@ -530,7 +531,11 @@ export function concentrationChart(data: ReportData): TopLevelSpec {
     const { flow, load } = monthlySums(data, name);
     for (let m = 0; m < 12; m++) {
       if (!(flow[m] > 1e-9)) continue;
-      values.push({ month: MONTHS[m], scenario: name, conc: round((100 * load[m]) / flow[m], 3) });
+      values.push({
+        month: MONTHS[m],
+        scenario: name,
+        conc: roundTo((100 * load[m]) / flow[m], 3),
+      });
     }
   }
   const x = {

@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { zQuantity } from '../units/zodQuantity.js';
 import { nitrateSchema } from '../nitrate/schema.js';
 import { checkSweep, costsSchema, managementName, sweepSchema } from './sweepSchema.js';
+import { fitSectionSchema } from './fitParams.js';
 
 const mmdd = z
   .string()
@@ -324,6 +325,7 @@ export const fieldSchema = z
       .optional()
       .describe('Designs a study sweeps (tileflux sweep): depth x spacing x outlet management'),
     costs: costsSchema.optional(),
+    fit: fitSectionSchema,
     scenarios: z
       .array(scenarioSchema)
       .optional()
