@@ -33,19 +33,41 @@ export function kcOnDay(c: CropParams, t: number): number {
 }
 
 /**
- * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
- * The rotation advances each calendar year, starting with its first crop in the first year.
+ * Calendar year in which a rotation grows its first crop unless the field file says otherwise:
+ * with the default corn-soybean rotation, corn in even years (a convention, so that the crop of
+ * a year never depends on where a run or its warm-up starts).
+ */
+export const DEFAULT_ROTATION_FIRST_YEAR = 2000;
+
+/**
+ * The crop a rotation grows in a calendar year: the rotation is anchored to calendar years,
+ * `rotation[0]` in `firstYear` and in every year a whole number of rotations from it (before
+ * and after), whatever year a run starts in.
  *
- * @param dates    ISO dates of the run
- * @param rotation crop names in order, e.g. ['corn', 'soybean']
- * @param crops    parameters of every crop named in the rotation
- * @param days     `dayIndexOf(dates)`, when the caller has it already
+ * @example rotationCrop(['corn', 'soybean'], 2000, 2013) // 'soybean'
+ */
+export function rotationCrop(rotation: readonly string[], firstYear: number, year: number): string {
+  const k = rotation.length;
+  return rotation[(((year - firstYear) % k) + k) % k];
+}
+
+/**
+ * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
+ * The rotation advances each calendar year and is anchored to calendar years (`rotationCrop`),
+ * so the same year grows the same crop in runs that start in different years.
+ *
+ * @param dates     ISO dates of the run
+ * @param rotation  crop names in order, e.g. ['corn', 'soybean']
+ * @param crops     parameters of every crop named in the rotation
+ * @param days      `dayIndexOf(dates)`, when the caller has it already
+ * @param firstYear a calendar year in which the rotation's first crop is grown
  */
 export function cropCalendar(
   dates: readonly string[],
   rotation: readonly string[],
   crops: Record<string, CropParams>,
   days: DayIndex = dayIndexOf(dates),
+  firstYear: number = DEFAULT_ROTATION_FIRST_YEAR,
 ): CropCalendar {
   const n = dates.length;
   const kc = new Float64Array(n);
@@ -54,7 +76,6 @@ export function cropCalendar(
   const seasonFraction = new Float64Array(n);
   const names = [...new Set(rotation)];
   if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names };
-  const firstYear = days.year[0];
   let cachedYear = NaN;
   let plant = 0;
   let harvest = 0;
@@ -64,8 +85,7 @@ export function cropCalendar(
     const year = days.year[i];
     if (year !== cachedYear) {
       cachedYear = year;
-      const name =
-        rotation[(((year - firstYear) % rotation.length) + rotation.length) % rotation.length];
+      const name = rotationCrop(rotation, firstYear, year);
       params = crops[name];
       code = names.indexOf(name) + 1;
       plant = monthDayOfYear(year, params.planting);

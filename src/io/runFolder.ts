@@ -182,6 +182,7 @@ export function buildSummary(
           equivalentDepthM: s.engine.equivalentDepthM,
           substepsPerDayUsed: s.engine.substepsPerDay,
           rotation: s.spec.rotation,
+          rotation_first_year: s.spec.rotationFirstYear,
           outlet: s.spec.outlet,
           nitrate: s.spec.nitrate,
         },

@@ -205,13 +205,22 @@ export const cropsSchema = z
       .min(1)
       .default(['corn', 'soybean'])
       .describe('Crops in order, one per year, repeating: corn, soybean, small grains'),
+    firstYear: z
+      .number()
+      .int()
+      .min(1800)
+      .max(2200)
+      .default(2000)
+      .describe(
+        'A calendar year in which the rotation grows its first crop; the rotation repeats from it both ways, whatever year the run starts (default 2000: corn in even years for [corn, soybean])',
+      ),
     corn: cropOverride.optional().describe('Overrides of the FAO-56 corn defaults'),
     soybean: cropOverride.optional().describe('Overrides of the FAO-56 soybean defaults'),
     'small grains': cropOverride
       .optional()
       .describe('Overrides of the FAO-56 small-grain defaults'),
   })
-  .default({ rotation: ['corn', 'soybean'] })
+  .default({ rotation: ['corn', 'soybean'], firstYear: 2000 })
   .describe('Crop rotation and calendar');
 
 export const initialSchema = z
@@ -280,11 +289,14 @@ export const simulationSchema = z
     substepsPerDay: z
       .number()
       .int()
-      .min(1)
+      .min(
+        8,
+        'expects at least 8 sub-steps a day (fewer change annual drain flow by more than 1 %)',
+      )
       .max(1000)
       .default(8)
       .describe(
-        'Least number of internal time steps per day (more are taken when drains react fast)',
+        'Least number of internal time steps per day, 8 or more (more are taken when drains react fast)',
       ),
   })
   .default({ substepsPerDay: 8 })

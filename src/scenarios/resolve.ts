@@ -19,6 +19,8 @@ export interface ScenarioSpec {
   field: Field;
   params: EngineParams;
   rotation: string[];
+  /** A calendar year in which the rotation grows its first crop. */
+  rotationFirstYear: number;
   crops: Record<string, CropParams>;
   outlet: OutletSchedule;
   /** Human description of the outlet management, e.g. "free" or "held at 0.30 m 11-01 to 04-01". */
@@ -103,7 +105,7 @@ function cropsOf(f: Field): Record<string, CropParams> {
     const over = (f.crops as Record<string, Partial<CropParams> | undefined>)[name] ?? {};
     const merged = { ...CROPS[name] };
     for (const [k, v] of Object.entries(over))
-      if (v !== undefined) (merged as Record<string, unknown>)[k] = v;
+      if (v !== undefined && k in merged) (merged as Record<string, unknown>)[k] = v;
     out[name] = merged;
   }
   return out;
@@ -118,6 +120,7 @@ export function scenarioOf(name: string, description: string, f: Field): Scenari
     field: f,
     params: engineParamsOf(f),
     rotation: [...f.crops.rotation],
+    rotationFirstYear: f.crops.firstYear,
     crops: cropsOf(f),
     outlet,
     outletLabel: label,

@@ -113,7 +113,7 @@ export function preparePeriod(
 export function prepareScenario(period: PreparedPeriod, spec: ScenarioSpec): PreparedScenario {
   return {
     spec,
-    calendar: period.calendarOf(spec.rotation, spec.crops),
+    calendar: period.calendarOf(spec.rotation, spec.crops, spec.rotationFirstYear),
     outlet: period.outletOf(spec.outlet),
   };
 }
