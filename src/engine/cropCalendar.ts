@@ -5,7 +5,7 @@
  * late season, Kc end from maturity to harvest, and bare soil between harvest and planting.
  */
 import { dayIndexOf, type DayIndex } from '../climate/calendar.js';
-import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, type CropParams } from './crops.js';
+import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, MIN_ROOT_DEPTH_M, type CropParams } from './crops.js';
 import type { CropCalendar } from './types.js';
 
 const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
@@ -52,6 +52,27 @@ export function rotationCrop(rotation: readonly string[], firstYear: number, yea
 }
 
 /**
+ * Effective rooting depth on day `t` after planting (0-based), m: FAO-56's linear growth from
+ * Zr,min at planting to Zr,max at the start of mid-season (chapter 8; from memory), then held.
+ * @example rootDepthOnDay(CROPS.corn, 35) // 0.75 (half-way through the 70 days to mid-season)
+ */
+export function rootDepthOnDay(c: CropParams, t: number): number {
+  const [ini, dev] = c.stagesDays;
+  const grow = ini + dev;
+  const zMax = Math.max(MIN_ROOT_DEPTH_M, c.maxRootDepth);
+  if (t >= grow) return zMax;
+  return MIN_ROOT_DEPTH_M + ((t < 0 ? 0 : t) / grow) * (zMax - MIN_ROOT_DEPTH_M);
+}
+
+/** How the calendar sets the daily rooting depth. */
+export interface RootOptions {
+  /** One depth for every day (a field file's soil.rootZoneDepth), m. */
+  fixedM?: number;
+  /** Deepest roots can reach (the restrictive layer), m. */
+  capM?: number;
+}
+
+/**
  * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
  * The rotation advances each calendar year and is anchored to calendar years (`rotationCrop`),
  * so the same year grows the same crop in runs that start in different years.
@@ -68,14 +89,17 @@ export function cropCalendar(
   crops: Record<string, CropParams>,
   days: DayIndex = dayIndexOf(dates),
   firstYear: number = DEFAULT_ROTATION_FIRST_YEAR,
+  roots: RootOptions = {},
 ): CropCalendar {
   const n = dates.length;
   const kc = new Float64Array(n);
+  const rootDepthM = new Float64Array(n);
+  const cap = roots.capM ?? Infinity;
   const depletionFraction = new Float64Array(n);
   const crop = new Uint8Array(n);
   const seasonFraction = new Float64Array(n);
   const names = [...new Set(rotation)];
-  if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names };
+  if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names, rootDepthM };
   let cachedYear = NaN;
   let plant = 0;
   let harvest = 0;
@@ -99,12 +123,16 @@ export function cropCalendar(
       depletionFraction[i] = params.depletionFraction;
       crop[i] = code;
       seasonFraction[i] = (doy - plant) / (harvest - plant);
+      rootDepthM[i] = rootDepthOnDay(params, doy - plant);
     } else {
       kc[i] = BARE_SOIL_KC;
       depletionFraction[i] = BARE_SOIL_DEPLETION;
       crop[i] = 0;
       seasonFraction[i] = -1;
+      rootDepthM[i] = MIN_ROOT_DEPTH_M;
     }
+    if (roots.fixedM !== undefined) rootDepthM[i] = roots.fixedM;
+    if (rootDepthM[i] > cap) rootDepthM[i] = cap;
   }
-  return { kc, depletionFraction, crop, seasonFraction, crops: names };
+  return { kc, depletionFraction, crop, seasonFraction, crops: names, rootDepthM };
 }

@@ -37,6 +37,7 @@ import {
   porosityTable,
   type PorosityTable,
 } from './porosityProfile.js';
+import { lateralSeepageMmPerDay, verticalSeepageMmPerDay } from './seepage.js';
 import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from './types.js';
 
 /** Largest change of the drain head, as a fraction of itself, allowed in one sub-step. */
@@ -190,7 +191,14 @@ export function simulate(
   // drainage is integrated exactly and FAO-56 ET is itself a daily method, so they take fewer.
   const dryDaySteps = Math.max(1, Math.ceil(steps / 8));
 
-  const taw = Math.max(0, (p.fieldCapacity - p.wiltingPoint) * p.rootZoneDepthM * 1000);
+  // Total available water per metre of roots, mm/m; the root depth of the day scales it.
+  const tawPerM = Math.max(0, (p.fieldCapacity - p.wiltingPoint) * 1000);
+  const rootDepth = calendar.rootDepthM;
+  const sp = p.seepage;
+  const hasSeepage =
+    p.seepageMmPerDay > 0 ||
+    p.seepageConductanceMmPerDayPerM > 0 ||
+    (sp !== undefined && (sp.leakancePerDay > 0 || sp.lateralKMPerDay > 0));
 
   const out = {
     etMm: new Float64Array(n),
@@ -199,6 +207,7 @@ export function simulate(
     infiltrationMm: new Float64Array(n),
     drainflowMm: new Float64Array(n),
     seepageMm: new Float64Array(n),
+    lateralSeepageMm: new Float64Array(n),
     waterTableDepthM: new Float64Array(n),
     outletDepthM: new Float64Array(n),
     pondedMm: new Float64Array(n),
@@ -207,6 +216,7 @@ export function simulate(
     soilStorageMm: new Float64Array(n),
     saturatedFraction: new Float64Array(n),
     balanceErrorMm: new Float64Array(n),
+    capacityLimited: new Uint8Array(n),
   };
 
   let air = airAbove(table, Math.min(Math.max(p.initialWaterTableDepthM, 0), p.barrierDepthM));
@@ -227,6 +237,10 @@ export function simulate(
     const lv = Number.isNaN(ctrl) || ctrl >= p.drainDepthM ? free : levelFor(Math.max(0, ctrl));
     const outletAir = airAbove(table, lv.depthM);
 
+    const rootZoneDepthM = rootDepth ? rootDepth[i] : p.rootZoneDepthM;
+    const taw = tawPerM * rootZoneDepthM;
+    let limited = 0;
+    let lateral = 0;
     const storeStart = -(air + depletion) + surface;
     let et = 0;
     let runoff = 0;
@@ -257,7 +271,7 @@ export function simulate(
       surface -= evap;
       demand -= evap;
       const wtd = depthForAir(table, air);
-      const below = wtd - p.rootZoneDepthM;
+      const below = wtd - rootZoneDepthM;
       const share = below <= 0 ? 1 : Math.exp(-below / p.capillaryDecayM);
       const fromTable = Math.min(demand * share, table.maxAirMm - air);
       air += fromTable;
@@ -267,7 +281,7 @@ export function simulate(
         const raw = pDepl * taw;
         ks = depletion <= raw ? 1 : Math.max(0, (taw - depletion) / ((1 - pDepl) * taw));
       } else ks = 0;
-      const fromRoots = Math.min(demand * ks, taw - depletion);
+      const fromRoots = Math.max(0, Math.min(demand * ks, taw - depletion));
       depletion += fromRoots;
       et += evap + fromTable + fromRoots;
       ksSum += ks;
@@ -287,11 +301,14 @@ export function simulate(
           const qk = lv.kirkham0 + (lv.kirkham1 * surface) / 1000;
           if (qk > q) q = qk;
           air -= recharge;
-          dq = Math.min(q * 1000 * dt, capacityMm, outletAir - air);
+          dq = Math.min(q * 1000 * dt, outletAir - air);
         } else {
           dq = drainStep(table, lv, air, outletAir, recharge, dt);
-          if (dq > capacityMm) dq = capacityMm;
           air -= recharge;
+        }
+        if (dq > capacityMm) {
+          dq = capacityMm;
+          limited = 1;
         }
         if (dq < 0) dq = 0;
         air += dq;
@@ -299,13 +316,23 @@ export function simulate(
         drain += dq;
       }
 
-      // Deep seepage through the restrictive layer while there is saturated soil above it.
-      if (air < table.maxAirMm && (p.seepageMmPerDay > 0 || p.seepageConductanceMmPerDayPerM > 0)) {
-        const headAboveBarrier = p.barrierDepthM - depthForAir(table, air);
-        const rate = p.seepageMmPerDay + p.seepageConductanceMmPerDayPerM * headAboveBarrier;
+      // Seepage while there is saturated soil above the restrictive layer: the constant and
+      // head-proportional deep terms, vertical leakage to the regional head and lateral
+      // seepage to the field edge (seepage.ts).
+      if (air < table.maxAirMm && hasSeepage) {
+        const wt = depthForAir(table, air);
+        const headAboveBarrier = p.barrierDepthM - wt;
+        let rate = p.seepageMmPerDay + p.seepageConductanceMmPerDayPerM * headAboveBarrier;
+        let side = 0;
+        if (sp !== undefined) {
+          rate += verticalSeepageMmPerDay(wt, p.barrierDepthM, sp);
+          side = lateralSeepageMmPerDay(wt, p.barrierDepthM, sp);
+          rate += side;
+        }
         const ds = Math.min(rate * dt, table.maxAirMm - air);
         air += ds;
         seep += ds;
+        if (side > 0) lateral += (ds * side) / rate;
       }
 
       // Water still on the surface enters the room the drains and seepage made during this
@@ -343,6 +370,8 @@ export function simulate(
     out.infiltrationMm[i] = infil;
     out.drainflowMm[i] = drain;
     out.seepageMm[i] = seep;
+    out.lateralSeepageMm[i] = lateral;
+    out.capacityLimited[i] = limited;
     out.waterTableDepthM[i] = wtd;
     out.outletDepthM[i] = lv.depthM;
     out.pondedMm[i] = surface;
