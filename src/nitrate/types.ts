@@ -45,6 +45,8 @@ export interface PoolParams {
   denitrificationMaxPerDay: number;
   /** Q10 of denitrification. */
   denitrificationQ10: number;
+  /** Q10 of denitrification below 11 degC (absent: denitrificationQ10 throughout). */
+  denitrificationColdQ10?: number;
   /** Saturated fraction of the drained profile below which no denitrification happens (0..1). */
   saturationThreshold: number;
   /** Exponent of the saturation response above the threshold. */

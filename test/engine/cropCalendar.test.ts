@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CROPS } from '../../src/engine/crops.js';
-import { cropCalendar, rotationCrop } from '../../src/engine/cropCalendar.js';
+import { cropCalendar, rootDepthOnDay, rotationCrop } from '../../src/engine/cropCalendar.js';
 import { dates } from './fixtures.js';
 
 describe('rotation anchored to calendar years', () => {
@@ -40,5 +40,30 @@ describe('rotation anchored to calendar years', () => {
     // 2013 (odd) is a soybean year in both.
     const mid = late.indexOf('2013-07-15');
     expect(name(b, mid)).toBe('soybean');
+  });
+});
+
+describe('rooting depth grows with the crop (FAO-56 Table 22 and chapter 8)', () => {
+  it('0.15 m at planting, linear to the crop maximum at mid-season, bare soil between', () => {
+    // Corn: 30 + 40 days to mid-season, maximum 1.35 m (middle of FAO-56's 1.0-1.7 m, from memory).
+    expect(rootDepthOnDay(CROPS.corn, 0)).toBeCloseTo(0.15, 12);
+    expect(rootDepthOnDay(CROPS.corn, 35)).toBeCloseTo(0.15 + 0.5 * (1.35 - 0.15), 12);
+    expect(rootDepthOnDay(CROPS.corn, 70)).toBeCloseTo(1.35, 12);
+    expect(rootDepthOnDay(CROPS.corn, 140)).toBeCloseTo(1.35, 12);
+    for (const [name, lo, hi] of [
+      ['corn', 1.0, 1.7],
+      ['soybean', 0.6, 1.3],
+      ['small grains', 1.0, 1.5],
+    ] as const) {
+      expect(CROPS[name].maxRootDepth).toBeGreaterThanOrEqual(lo);
+      expect(CROPS[name].maxRootDepth).toBeLessThanOrEqual(hi);
+    }
+    const d = dates(366, '2000-01-01');
+    const c = cropCalendar(d, ['corn'], { ...CROPS }, undefined, 2000, { capM: 1.0 });
+    expect(c.rootDepthM![d.indexOf('2000-02-01')]).toBeCloseTo(0.15, 12);
+    // Capped by a restrictive layer at 1.0 m.
+    expect(c.rootDepthM![d.indexOf('2000-08-01')]).toBeCloseTo(1.0, 12);
+    const fixed = cropCalendar(d, ['corn'], { ...CROPS }, undefined, 2000, { fixedM: 0.6 });
+    expect(new Set(fixed.rootDepthM)).toEqual(new Set([0.6]));
   });
 });

@@ -144,6 +144,12 @@ describe('engine: outlet, capacity, balance, time step', () => {
     for (let i = 0; i < n; i++) max = Math.max(max, r.drainflowMm[i]);
     expect(max).toBeLessThanOrEqual(cap + 1e-9);
     expect(max).toBeGreaterThan(cap - 1e-6); // the limit is reached in this wet spell
+    // Days flagged as capacity-limited are those whose flow sits at the cap.
+    for (let i = 0; i < n; i++) {
+      if (r.capacityLimited[i]) expect(r.drainflowMm[i]).toBeGreaterThan(cap - 1e-6);
+      else expect(r.drainflowMm[i]).toBeLessThan(cap);
+    }
+    expect(r.capacityLimited.reduce((a, x) => a + x, 0)).toBeGreaterThan(0);
   });
 
   it('closes the daily water balance with ET, runoff and seepage active', () => {
