@@ -21,8 +21,10 @@
  *   is drawn while snow covers the ground.
  * - Surface water beyond the depression storage runs off. Infiltration is limited by what the
  *   profile can take (depletion + air) and by the saturated conductivity.
- * - Deep seepage leaves the saturated zone at a constant rate plus a conductance times the
- *   head above the restrictive layer (Darcy leakage through a semi-pervious layer).
+ * - Seepage leaves the saturated zone by vertical leakage to a regional head and laterally to
+ *   the field edge (seepage.ts), plus an optional constant rate and a conductance times the head
+ *   above the restrictive layer.
+ * - The root zone of the day comes from the crop calendar (it grows with the crop).
  * Every day the water balance P = ET + runoff + drain flow + seepage + change in storage (soil,
  * surface, snow) is computed from the states and its residual returned; a residual above
  * 1e-6 mm in any year is a defect and throws.
@@ -56,7 +58,7 @@ export const ACTIVE_ZONE_M = 1.0;
  * step-halving checks in test/engine and test/scenarios).
  */
 export const MIN_SUBSTEPS_PER_DAY = 8;
-/** Largest annual water-balance residual tolerated (README, Methods: 1e-6 mm a year), mm. */
+/** Largest annual water-balance residual tolerated (README, Assumptions and defaults: 1e-6 mm a year), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
 interface OutletLevel {

@@ -165,7 +165,7 @@ export function buildSummary(
       skipped: f.skipped,
       flow_range_mm_d: f.flowRangeMm,
     })),
-    // What decides the answer and is uncertain, stated every time (README, Methods).
+    // What decides the answer and is uncertain, stated every time (README, Assumptions and defaults).
     assumptions: {
       seepage: { ...run.scenarios[0]?.spec.seepage, text: seepageText(run) },
       roots: rootText(run),

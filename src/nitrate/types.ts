@@ -1,7 +1,7 @@
 /**
  * Data that flows into and out of the nitrate stage. Core units throughout: mm of water per day,
  * mg N/L for concentrations, kg N/ha for masses, degC for temperature. Daily series are columnar
- * Float64Arrays aligned with `dates` (DESIGN.md section 3).
+ * Float64Arrays aligned with `dates` (DEVELOPERS.md, Layout).
  */
 import type { DayIndex } from '../climate/calendar.js';
 import type { CropCalendar } from '../engine/types.js';

@@ -79,7 +79,7 @@ export type ComparisonRow = {
  * L = Q C / 100 (Q mean annual drain flow, mm; C period flow-weighted concentration, mg/L), so
  * with the symmetric (midpoint) decomposition
  *   L1 - L0 = (Q1 - Q0) (C0 + C1) / 200  +  (C1 - C0) (Q0 + Q1) / 200
- * the two parts add up to the change exactly and neither scenario is favoured (README, Methods).
+ * the two parts add up to the change exactly and neither scenario is favoured (README, Assumptions and defaults).
  */
 export const LOAD_PART_COLUMNS = [
   'no3_load_change_flow_part_kg_ha',

@@ -164,7 +164,7 @@ export function prepareField(
     wind2mMs: weather.wind2mMs?.slice(a0, b0),
   };
   const { forcing: f, method } = forcingOf(sim, field.site.latitude, field.site.elevation);
-  // weather.etFactor: a calibration factor on reference ET (README, Methods).
+  // weather.etFactor: a calibration factor on reference ET (README, Assumptions and defaults).
   const etFactor = field.weather?.etFactor ?? 1;
   if (etFactor !== 1) for (let i = 0; i < f.refEtMm.length; i++) f.refEtMm[i] *= etFactor;
   const days = dayIndexOf(f.dates);
