@@ -114,7 +114,10 @@ describe('default pool model on the New York record', () => {
     // here is 12.5 %, below that range; across the low-high settings it spans about 9-26 %, so
     // seepage alone moves it into the range. The check is that the band overlaps the range and
     // that more seepage means a larger cut (water held back leaves by seepage, not the drains).
-    const row = comparisonOf(run).find((r) => r.scenario === 'controlled')!;
+    const row = comparisonOf(run).find((r) => r.scenario === 'controlled')! as Record<
+      string,
+      unknown
+    >;
     const low = -Number(row.drainflow_change_percent_low);
     const mid = -Number(row.drainflow_change_percent);
     const high = -Number(row.drainflow_change_percent_high);
