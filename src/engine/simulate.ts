@@ -58,7 +58,7 @@ export const ACTIVE_ZONE_M = 1.0;
  * step-halving checks in test/engine and test/scenarios).
  */
 export const MIN_SUBSTEPS_PER_DAY = 8;
-/** Largest annual water-balance residual tolerated (README, Assumptions and defaults: 1e-6 mm a year), mm. */
+/** Largest annual water-balance residual tolerated (README, A short tour: 1e-6 mm a year), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
 interface OutletLevel {
