@@ -24,6 +24,16 @@ export const ET_METHOD_SOURCE: Readonly<Record<EtMethod, string>> = {
 };
 
 /**
+ * Known bias of Hargreaves' equation, said wherever it is used: calibrated on a semi-arid
+ * lysimeter record, it overestimates ET0 in humid climates, by of the order of 10-25 % against
+ * Penman-Monteith in humid temperate regions (FAO-56 section on Eq. 52 advises checking it
+ * against Penman-Monteith locally; published humid-region comparisons, from memory). Field files
+ * can correct it with weather.etFactor from a local comparison.
+ */
+export const HARGREAVES_BIAS =
+  'Hargreaves tends to overestimate ET0 in humid climates, by about 10-25 % (from memory); set weather.etFactor from a local Penman-Monteith comparison';
+
+/**
  * Daily reference ET, mm/d, of a weather record, and the method used.
  *
  * @param w the weather record

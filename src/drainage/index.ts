@@ -23,6 +23,7 @@ export {
 export {
   kirkhamGeometryFactor,
   kirkhamFlux,
+  kirkhamHeadM,
   type KirkhamGeometryInput,
   type KirkhamFluxInput,
 } from './kirkham.js';

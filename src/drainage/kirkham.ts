@@ -16,6 +16,22 @@
  * head at the drain is taken at the top of the pipe (depth b - r) and the water in the pipe is at
  * atmospheric pressure. g depends only on the layout, so it is computed once and the flux is one
  * multiplication per call.
+ *
+ * Raised outlet (a control structure holding water at depth c below the surface). Heads are
+ * elevations above the soil surface. The image solution fixes the geometry of the flow, and with
+ * it g; the flux is linear in the head difference between the two equipotential boundaries,
+ * q L = Q = 4 pi K (H_surface - H_drain) / g, with H_surface = t (the pond level). Only H_drain
+ * depends on the outlet:
+ * - free outlet, or the outlet level inside the pipe (c >= b - r): the pipe runs part full, its
+ *   top is at atmospheric pressure, H_drain = -(b - r), as in Kirkham's form;
+ * - outlet above the pipe top (c < b - r): the pipe runs full and connects, without head loss
+ *   (the usual assumption for a short structure), to the water standing at depth c in the
+ *   structure. The pressure head at the pipe top is then (b - r) - c and the hydraulic head
+ *   H_drain = -(b - r) + ((b - r) - c) = -c.
+ * Hence H_surface - H_drain = t + min(c, b - r): the drain keeps its place in the image
+ * geometry (g for the real depth b) and the radius is not subtracted from the outlet level,
+ * which is already the water level (putting c in place of b in t + b - r would lower the head
+ * by r: by a sixth for c = 0.3 m and r = 0.05 m).
  */
 import { TilefluxError } from '../errors.js';
 import { requirePositive, requireRadiusBelowLayer } from './checks.js';
@@ -74,19 +90,40 @@ export interface KirkhamFluxInput {
   spacingM: number;
   /** From `kirkhamGeometryFactor` for the same layout. */
   geometryFactor: number;
+  /**
+   * Level at which a control structure holds the outlet, m below the surface; omitted (or at or
+   * below the pipe top) for a free outlet.
+   */
+  outletDepthM?: number;
+}
+
+/**
+ * Head difference (m) that drives Kirkham's ponded flow: pond depth plus the depth of the drain's
+ * hydraulic head, t + min(c, b - r) (see the module comment for the raised outlet).
+ *
+ * @example kirkhamHeadM({ pondedDepthM: 0, drainDepthM: 1.1, drainRadiusM: 0.05, outletDepthM: 0.3 }) // 0.3
+ */
+export function kirkhamHeadM(p: {
+  pondedDepthM: number;
+  drainDepthM: number;
+  drainRadiusM: number;
+  outletDepthM?: number;
+}): number {
+  const t = p.pondedDepthM > 0 ? p.pondedDepthM : 0;
+  const top = p.drainDepthM - p.drainRadiusM;
+  const c = p.outletDepthM;
+  return t + (c !== undefined && c < top ? Math.max(0, c) : top);
 }
 
 /**
  * Kirkham (1957) drain discharge per unit surface area (m/d) with water ponded on the surface:
- * q = 4 pi K (t + b - r) / (g L). Cheap: no series, no checks beyond a negative pond depth.
+ * q = 4 pi K (t + b - r) / (g L) with a free outlet, q = 4 pi K (t + c) / (g L) with the outlet
+ * held at depth c above the pipe top (`kirkhamHeadM`). Cheap: no series, no checks beyond a
+ * negative pond depth.
  *
- * Source: Kirkham (1957); see the module comment.
+ * Source: Kirkham (1957); raised outlet derived in the module comment.
  * @example kirkhamFlux({ kMPerDay: 0.5, pondedDepthM: 0.01, drainDepthM: 1, drainRadiusM: 0.1, spacingM: 20, geometryFactor: 6.06 }) // 0.0471 m/d
  */
 export function kirkhamFlux(p: KirkhamFluxInput): number {
-  const t = p.pondedDepthM > 0 ? p.pondedDepthM : 0;
-  return (
-    (4 * Math.PI * p.kMPerDay * (t + p.drainDepthM - p.drainRadiusM)) /
-    (p.geometryFactor * p.spacingM)
-  );
+  return (4 * Math.PI * p.kMPerDay * kirkhamHeadM(p)) / (p.geometryFactor * p.spacingM);
 }

@@ -5,7 +5,7 @@
  * late season, Kc end from maturity to harvest, and bare soil between harvest and planting.
  */
 import { dayIndexOf, type DayIndex } from '../climate/calendar.js';
-import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, type CropParams } from './crops.js';
+import { BARE_SOIL_DEPLETION, BARE_SOIL_KC, MIN_ROOT_DEPTH_M, type CropParams } from './crops.js';
 import type { CropCalendar } from './types.js';
 
 const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
@@ -33,28 +33,73 @@ export function kcOnDay(c: CropParams, t: number): number {
 }
 
 /**
- * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
- * The rotation advances each calendar year, starting with its first crop in the first year.
+ * Calendar year in which a rotation grows its first crop unless the field file says otherwise:
+ * with the default corn-soybean rotation, corn in even years (a convention, so that the crop of
+ * a year never depends on where a run or its warm-up starts).
+ */
+export const DEFAULT_ROTATION_FIRST_YEAR = 2000;
+
+/**
+ * The crop a rotation grows in a calendar year: the rotation is anchored to calendar years,
+ * `rotation[0]` in `firstYear` and in every year a whole number of rotations from it (before
+ * and after), whatever year a run starts in.
  *
- * @param dates    ISO dates of the run
- * @param rotation crop names in order, e.g. ['corn', 'soybean']
- * @param crops    parameters of every crop named in the rotation
- * @param days     `dayIndexOf(dates)`, when the caller has it already
+ * @example rotationCrop(['corn', 'soybean'], 2000, 2013) // 'soybean'
+ */
+export function rotationCrop(rotation: readonly string[], firstYear: number, year: number): string {
+  const k = rotation.length;
+  return rotation[(((year - firstYear) % k) + k) % k];
+}
+
+/**
+ * Effective rooting depth on day `t` after planting (0-based), m: FAO-56's linear growth from
+ * Zr,min at planting to Zr,max at the start of mid-season (chapter 8; from memory), then held.
+ * @example rootDepthOnDay(CROPS.corn, 35) // 0.75 (half-way through the 70 days to mid-season)
+ */
+export function rootDepthOnDay(c: CropParams, t: number): number {
+  const [ini, dev] = c.stagesDays;
+  const grow = ini + dev;
+  const zMax = Math.max(MIN_ROOT_DEPTH_M, c.maxRootDepth);
+  if (t >= grow) return zMax;
+  return MIN_ROOT_DEPTH_M + ((t < 0 ? 0 : t) / grow) * (zMax - MIN_ROOT_DEPTH_M);
+}
+
+/** How the calendar sets the daily rooting depth. */
+export interface RootOptions {
+  /** One depth for every day (a field file's soil.rootZoneDepth), m. */
+  fixedM?: number;
+  /** Deepest roots can reach (the restrictive layer), m. */
+  capM?: number;
+}
+
+/**
+ * Resolve a rotation into daily Kc, depletion fraction, crop code and season progress.
+ * The rotation advances each calendar year and is anchored to calendar years (`rotationCrop`),
+ * so the same year grows the same crop in runs that start in different years.
+ *
+ * @param dates     ISO dates of the run
+ * @param rotation  crop names in order, e.g. ['corn', 'soybean']
+ * @param crops     parameters of every crop named in the rotation
+ * @param days      `dayIndexOf(dates)`, when the caller has it already
+ * @param firstYear a calendar year in which the rotation's first crop is grown
  */
 export function cropCalendar(
   dates: readonly string[],
   rotation: readonly string[],
   crops: Record<string, CropParams>,
   days: DayIndex = dayIndexOf(dates),
+  firstYear: number = DEFAULT_ROTATION_FIRST_YEAR,
+  roots: RootOptions = {},
 ): CropCalendar {
   const n = dates.length;
   const kc = new Float64Array(n);
+  const rootDepthM = new Float64Array(n);
+  const cap = roots.capM ?? Infinity;
   const depletionFraction = new Float64Array(n);
   const crop = new Uint8Array(n);
   const seasonFraction = new Float64Array(n);
   const names = [...new Set(rotation)];
-  if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names };
-  const firstYear = days.year[0];
+  if (n === 0) return { kc, depletionFraction, crop, seasonFraction, crops: names, rootDepthM };
   let cachedYear = NaN;
   let plant = 0;
   let harvest = 0;
@@ -64,8 +109,7 @@ export function cropCalendar(
     const year = days.year[i];
     if (year !== cachedYear) {
       cachedYear = year;
-      const name =
-        rotation[(((year - firstYear) % rotation.length) + rotation.length) % rotation.length];
+      const name = rotationCrop(rotation, firstYear, year);
       params = crops[name];
       code = names.indexOf(name) + 1;
       plant = monthDayOfYear(year, params.planting);
@@ -79,12 +123,16 @@ export function cropCalendar(
       depletionFraction[i] = params.depletionFraction;
       crop[i] = code;
       seasonFraction[i] = (doy - plant) / (harvest - plant);
+      rootDepthM[i] = rootDepthOnDay(params, doy - plant);
     } else {
       kc[i] = BARE_SOIL_KC;
       depletionFraction[i] = BARE_SOIL_DEPLETION;
       crop[i] = 0;
       seasonFraction[i] = -1;
+      rootDepthM[i] = MIN_ROOT_DEPTH_M;
     }
+    if (roots.fixedM !== undefined) rootDepthM[i] = roots.fixedM;
+    if (rootDepthM[i] > cap) rootDepthM[i] = cap;
   }
-  return { kc, depletionFraction, crop, seasonFraction, crops: names };
+  return { kc, depletionFraction, crop, seasonFraction, crops: names, rootDepthM };
 }

@@ -5,6 +5,7 @@
  */
 
 import type { DayIndex } from '../climate/calendar.js';
+import type { SeepageParams } from './seepage.js';
 
 /** Daily forcing for one run, shared by every scenario over the same weather. */
 export interface EngineForcing {
@@ -43,6 +44,11 @@ export interface CropCalendar {
   seasonFraction: Float64Array;
   /** Names of the crops referenced by `crop`. */
   crops: string[];
+  /**
+   * Effective rooting depth of the day, m (grows with the crop; bare-soil depth between
+   * seasons). Without it the engine uses `EngineParams.rootZoneDepthM` every day.
+   */
+  rootDepthM?: Float64Array;
 }
 
 /** Drainable porosity as layers: `values[i]` applies from `depthsM[i-1]` (or 0) to `depthsM[i]`. */
@@ -69,6 +75,8 @@ export interface EngineParams {
   seepageMmPerDay: number;
   /** Seepage conductance: extra seepage per m of head above the barrier, mm/d per m. */
   seepageConductanceMmPerDayPerM: number;
+  /** Vertical leakage to a regional head and lateral seepage to the field edge (seepage.ts). */
+  seepage?: SeepageParams;
   /** Largest drain outflow the pipes carry, mm/d (Infinity when not limited). */
   capacityMmPerDay: number;
   /** Decay length of upward (capillary) supply below the root zone, m. */
@@ -89,6 +97,8 @@ export interface EngineResult {
   infiltrationMm: Float64Array;
   drainflowMm: Float64Array;
   seepageMm: Float64Array;
+  /** The part of `seepageMm` that left laterally to the field edge, mm. */
+  lateralSeepageMm: Float64Array;
   waterTableDepthM: Float64Array;
   /** Effective outlet depth in force that day (drain depth when free), m. */
   outletDepthM: Float64Array;
@@ -103,6 +113,8 @@ export interface EngineResult {
   saturatedFraction: Float64Array;
   /** Daily water-balance residual, mm. */
   balanceErrorMm: Float64Array;
+  /** 1 on days when the pipe capacity held drain flow below what the soil would give, else 0. */
+  capacityLimited: Uint8Array;
   /** Internal sub-steps per day actually used. */
   substepsPerDay: number;
   /** Equivalent depth used at the drain level (free outlet), m. */

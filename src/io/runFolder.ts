@@ -12,6 +12,8 @@ import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
+import { HARGREAVES_BIAS } from '../climate/referenceEt.js';
+import { capacityText, rootText, seepageBandOf, seepageText } from '../scenarios/reportData.js';
 import { columnsToCsvChunks, recordIn, toCsv, type Column } from './tables.js';
 
 /** What the summary records about the inputs. */
@@ -45,6 +47,7 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
     { name: 'infiltration_mm', values: e.infiltrationMm },
     { name: 'drainflow_mm', values: e.drainflowMm },
     { name: 'seepage_mm', values: e.seepageMm },
+    { name: 'lateral_seepage_mm', values: e.lateralSeepageMm },
     { name: 'water_table_depth_m', values: e.waterTableDepthM },
     { name: 'outlet_depth_m', values: e.outletDepthM },
     { name: 'ponded_mm', values: e.pondedMm },
@@ -162,9 +165,24 @@ export function buildSummary(
       skipped: f.skipped,
       flow_range_mm_d: f.flowRangeMm,
     })),
+    // What decides the answer and is uncertain, stated every time (README, Assumptions and defaults).
+    assumptions: {
+      seepage: { ...run.scenarios[0]?.spec.seepage, text: seepageText(run) },
+      roots: rootText(run),
+      pipe_capacity: capacityText(run),
+      reference_et: {
+        method: run.refEtMethod,
+        et_factor: run.etFactor,
+        bias: run.refEtMethod === 'Hargreaves' ? HARGREAVES_BIAS : null,
+      },
+    },
+    seepage_band: seepageBandOf(run),
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => {
       const mean = annualMean(s.annual);
+      // The part of the seepage that left laterally to the field edge.
+      mean.lateral_seepage_mm =
+        s.engine.lateralSeepageMm.reduce((a, x) => a + x, 0) / Math.max(1, s.annual.length);
       // Percent changes against the baseline, as in comparison.csv.
       const row = comparison.find((r) => r.scenario === s.spec.name);
       const change = Object.fromEntries(
@@ -182,12 +200,14 @@ export function buildSummary(
           equivalentDepthM: s.engine.equivalentDepthM,
           substepsPerDayUsed: s.engine.substepsPerDay,
           rotation: s.spec.rotation,
+          rotation_first_year: s.spec.rotationFirstYear,
           outlet: s.spec.outlet,
           nitrate: s.spec.nitrate,
         },
         annual_mean: recordIn(mean, units),
         change_vs_baseline: change,
         no3_rating_out_of_range_days: s.nitrate.outOfRangeDays,
+        capacity_limited_days: s.engine.capacityLimited.reduce((a, x) => a + x, 0),
         max_annual_balance_error_mm: Math.max(
           0,
           ...s.annual.map((r) => Math.abs(r.balance_error_mm)),

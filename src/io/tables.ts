@@ -24,6 +24,12 @@ const US_SUFFIXES: ReadonlyArray<[string, string, number]> = [
 /** Column name and factor for a column in the chosen unit system. */
 export function columnIn(name: string, units: UnitSystem): { name: string; factor: number } {
   if (units === 'si') return { name, factor: 1 };
+  // A seepage-band column (`drainflow_change_mm_low`) converts like the column it bands.
+  const band = /_(low|high)$/.exec(name);
+  if (band) {
+    const c = columnIn(name.slice(0, -band[0].length), units);
+    return { name: c.name + band[0], factor: c.factor };
+  }
   for (const [si, us, f] of US_SUFFIXES) {
     if (name.endsWith(si)) return { name: name.slice(0, -si.length) + us, factor: f };
   }
@@ -32,6 +38,7 @@ export function columnIn(name: string, units: UnitSystem): { name: string; facto
 
 /** Decimals written for a column, by its unit suffix, so files are compact and stable. */
 function decimalsFor(name: string): number {
+  if (/_(low|high)$/.test(name)) return decimalsFor(name.replace(/_(low|high)$/, ''));
   if (/_(m|ft)$/.test(name)) return 4;
   if (/_(mm|in|mm_d|in_d)$/.test(name))
     return name.endsWith('_in') || name.endsWith('_in_d') ? 4 : 3;

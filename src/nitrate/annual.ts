@@ -4,7 +4,7 @@
  *
  * The flow-weighted mean concentration of a year is the concentration that would carry the
  * year's load in the year's drain flow: fwmc = 100 x load / flow (from load = flow x C / 100,
- * DESIGN.md section 4). A year without drain flow has no drain water to weigh, and gets 0, the
+ * README, Nitrate models). A year without drain flow has no drain water to weigh, and gets 0, the
  * convention of the annual table (src/scenarios/annual.ts).
  */
 import { dayIndexOf } from '../climate/calendar.js';

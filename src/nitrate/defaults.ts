@@ -61,8 +61,15 @@ export const DEFAULT_POOL_PARAMS: PoolParams = {
   // a freely drained field loses of the order of 10-20 kg N/ha a year to denitrification
   // (David et al. 2009, Biogeochemistry 93: 7-30, for a drained corn-belt field (from memory)).
   denitrificationMaxPerDay: 0.05,
-  // Q10 of 2 (Heinen 2006, Geoderma 133: 444-463, reviews values near 2 (from memory)).
-  denitrificationQ10: 2,
+  // Temperature response of the NEMIS model (Henault & Germon 2000, Eur. J. Soil Sci. 51:
+  // 257-270, from memory; one of the forms Heinen 2006, Geoderma 133: 444-463, reviews): Q10 2.1
+  // from 11 degC up, 89 below. A single Q10 of 2 overstated winter denitrification several-fold,
+  // and winter is when a control structure holds the water table up; field syntheses of
+  // controlled drainage find load cuts that come mostly from less flow, with little change in
+  // concentration (a 2016 meta-analysis and a 2022 synthesis of Midwest and Southeast sites,
+  // from memory).
+  denitrificationQ10: 2.1,
+  denitrificationColdQ10: 89,
   // No threshold: the saturated fraction is that of the top metre of the profile (the engine's
   // active zone), which is aerated when drained. Exponent 2: organic carbon, and with it
   // denitrification, concentrates near the surface, so saturation of the upper profile counts

@@ -1,6 +1,6 @@
 /**
  * Nitrate stage: concentration models (`fixed`, `seasonal`, `rating`, `pool`) turning a run's
- * daily drain flow into nitrate-N concentration and load (DESIGN.md section 4).
+ * daily drain flow into nitrate-N concentration and load (README, Nitrate models).
  */
 export type {
   FertilizerEvent,

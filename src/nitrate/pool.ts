@@ -1,6 +1,6 @@
 /**
  * The `pool` model: a daily nitrate-N mass balance (kg N/ha) of the drained profile
- * (DESIGN.md section 4), in the spirit of the lumped soil-N balances of field-scale drainage and
+ * (README, Nitrate models), in the spirit of the lumped soil-N balances of field-scale drainage and
  * nitrate models (e.g. the reviews of Dinnes et al. 2002, Agronomy Journal 94: 153-171
  * (from memory), for the processes). Each day:
  *
@@ -26,7 +26,10 @@
 import { TilefluxError } from '../errors.js';
 import { saturationFactor } from './denitrification.js';
 import { dailyFertilizer } from './fertilizer.js';
-import { q10Factor } from './temperature.js';
+import {
+  denitrificationTemperatureFactor as denitrificationTemperatureFactorAt,
+  q10Factor,
+} from './temperature.js';
 import type { NitrateInput, NitrateResult, PoolParams } from './types.js';
 import { cumulativeUptakeFraction } from './uptake.js';
 
@@ -67,7 +70,7 @@ export interface PoolForcing {
   mineralizationKgHa: Float64Array;
   /** Crop demand on the pool before the supply limit P / (P + K), kg N/ha per day. */
   uptakeDemandKgHa: Float64Array;
-  /** Q10d^((T - 20)/10) of denitrification (0 in frozen soil). */
+  /** Temperature factor of denitrification, two-range Q10 (temperature.ts; 0 in frozen soil). */
   denitrificationTemperatureFactor: Float64Array;
 }
 
@@ -90,7 +93,11 @@ export function poolForcingOf(
   for (let i = 0; i < n; i++) {
     const t = tmeanC[i];
     mineralizationKgHa[i] = m20PerDay * q10Factor(t, p.mineralizationQ10);
-    denitrificationTemperatureFactor[i] = q10Factor(t, p.denitrificationQ10);
+    denitrificationTemperatureFactor[i] = denitrificationTemperatureFactorAt(
+      t,
+      p.denitrificationQ10,
+      p.denitrificationColdQ10 ?? p.denitrificationQ10,
+    );
     // Uptake: this day's step along the crop's logistic curve (none on the first day of a run
     // that starts mid-season: that part of the season lies before the run).
     let demand = 0;

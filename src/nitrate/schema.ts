@@ -254,7 +254,15 @@ const poolSchema = z
       .max(5)
       .default(D.denitrificationQ10)
       .describe(
-        `Q10 of denitrification [-; default ${D.denitrificationQ10} (published figure; sources in src/nitrate/defaults.ts)]`,
+        `Q10 of denitrification at and above 11 degC [-; default ${D.denitrificationQ10} (NEMIS, from memory)]`,
+      ),
+    denitrificationColdQ10: z
+      .number()
+      .min(1)
+      .max(200)
+      .default(D.denitrificationColdQ10 ?? D.denitrificationQ10)
+      .describe(
+        `Q10 of denitrification below 11 degC [-; default ${D.denitrificationColdQ10} (NEMIS, from memory)]`,
       ),
     saturationThreshold: fraction('Saturated fraction below which no denitrification happens', 0.95)
       .default(D.saturationThreshold)
@@ -336,6 +344,7 @@ function toConfig(s: SectionIn): NitrateSection {
         uptakeSteepness: s.uptakeSteepness,
         denitrificationMaxPerDay: s.denitrificationRate,
         denitrificationQ10: s.denitrificationQ10,
+        denitrificationColdQ10: s.denitrificationColdQ10,
         saturationThreshold: s.saturationThreshold,
         saturationExponent: s.saturationExponent,
         runoffExtractionRatio: s.runoffExtractionRatio,

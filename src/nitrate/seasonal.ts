@@ -1,6 +1,6 @@
 /**
  * The `seasonal` concentration model: one flow-weighted nitrate-N concentration per calendar
- * month (DESIGN.md section 4), e.g. from monthly means of drain-water samples.
+ * month (README, Nitrate models), e.g. from monthly means of drain-water samples.
  */
 
 /**

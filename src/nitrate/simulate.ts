@@ -1,6 +1,6 @@
 /**
  * Entry point of the nitrate stage: turn a run's daily flows into nitrate-N concentrations and
- * loads with the configured model (DESIGN.md section 4): `fixed`, `seasonal`, `rating` or `pool`.
+ * loads with the configured model (README, Nitrate models): `fixed`, `seasonal`, `rating` or `pool`.
  * Load (kg N/ha) = flow (mm) x concentration (mg/L) / 100 every day.
  */
 import { loadsFromConcentration } from './concentrationLoads.js';

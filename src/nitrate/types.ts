@@ -1,7 +1,7 @@
 /**
  * Data that flows into and out of the nitrate stage. Core units throughout: mm of water per day,
  * mg N/L for concentrations, kg N/ha for masses, degC for temperature. Daily series are columnar
- * Float64Arrays aligned with `dates` (DESIGN.md section 3).
+ * Float64Arrays aligned with `dates` (DEVELOPERS.md, Layout).
  */
 import type { DayIndex } from '../climate/calendar.js';
 import type { CropCalendar } from '../engine/types.js';
@@ -45,6 +45,8 @@ export interface PoolParams {
   denitrificationMaxPerDay: number;
   /** Q10 of denitrification. */
   denitrificationQ10: number;
+  /** Q10 of denitrification below 11 degC (absent: denitrificationQ10 throughout). */
+  denitrificationColdQ10?: number;
   /** Saturated fraction of the drained profile below which no denitrification happens (0..1). */
   saturationThreshold: number;
   /** Exponent of the saturation response above the threshold. */

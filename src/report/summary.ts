@@ -33,18 +33,40 @@ export function cropConditionLines(rows: readonly ComparisonRow[]): string[] {
 }
 
 /**
+ * " (-6.1 % to -31.2 % across seepage assumptions, low to high)" from a row's band columns: the
+ * change under the low and under the high seepage setting; "" without a band.
+ */
+function bandText(r: ComparisonRow, column: string, decimals: number): string {
+  const row = r as unknown as Record<string, number | null | undefined>;
+  const lo = row[`${column}_low`];
+  const hi = row[`${column}_high`];
+  if (lo === null || lo === undefined || hi === null || hi === undefined) return '';
+  return ` (${signed(lo, decimals)} % to ${signed(hi, decimals)} % across seepage assumptions, low to high)`;
+}
+
+/**
  * One line per non-baseline scenario with the change in mean annual drain flow and nitrate-N
- * load against the baseline, in percent.
+ * load against the baseline, in percent, with the seepage band when the run has one, and the
+ * load change split into its flow and concentration parts.
  *
- * @example headlineLines(rows) // ['controlled: drain flow -29.8 %, nitrate-N load -33.1 % against conventional']
+ * @example headlineLines(rows)
+ * // ['controlled: drain flow -17.0 % (-6.1 % to -31.2 % across seepage assumptions), nitrate-N
+ * //   load -24.0 % (...) against conventional; of the load change, -15.1 % from less flow and
+ * //   -8.9 % from a change in concentration']
  */
 export function headlineLines(rows: readonly ComparisonRow[]): string[] {
   const base = baselineOf(rows);
   return rows
     .filter((r) => !r.is_baseline)
-    .map(
-      (r) =>
-        `${r.scenario}: drain flow ${signed(r.drainflow_change_percent, 1)} %, ` +
-        `nitrate-N load ${signed(r.no3_load_change_percent, 1)} % against ${base}`,
-    );
+    .map((r) => {
+      const parts =
+        r.no3_load_change_flow_part_percent !== null && r.no3_load_change_conc_part_percent !== null
+          ? `; of the load change, ${signed(r.no3_load_change_flow_part_percent, 1)} % from the change in flow and ` +
+            `${signed(r.no3_load_change_conc_part_percent, 1)} % from the change in concentration`
+          : '';
+      return (
+        `${r.scenario}: drain flow ${signed(r.drainflow_change_percent, 1)} %${bandText(r, 'drainflow_change_percent', 1)}, ` +
+        `nitrate-N load ${signed(r.no3_load_change_percent, 1)} %${bandText(r, 'no3_load_change_percent', 1)} against ${base}${parts}`
+      );
+    });
 }

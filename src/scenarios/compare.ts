@@ -72,7 +72,22 @@ export type ComparisonRow = {
   [C in Compared as `${C[1]}_change_percent`]: number | null;
 } & { [S in Spread as `${S[1]}_min_${S[2]}`]: number } & {
   [S in Spread as `${S[1]}_median_${S[2]}`]: number;
-} & { [S in Spread as `${S[1]}_max_${S[2]}`]: number };
+} & { [S in Spread as `${S[1]}_max_${S[2]}`]: number } & LoadParts;
+
+/**
+ * The nitrate-N load change split into a flow part and a concentration part. Mean annual load is
+ * L = Q C / 100 (Q mean annual drain flow, mm; C period flow-weighted concentration, mg/L), so
+ * with the symmetric (midpoint) decomposition
+ *   L1 - L0 = (Q1 - Q0) (C0 + C1) / 200  +  (C1 - C0) (Q0 + Q1) / 200
+ * the two parts add up to the change exactly and neither scenario is favoured (README, Assumptions and defaults).
+ */
+export const LOAD_PART_COLUMNS = [
+  'no3_load_change_flow_part_kg_ha',
+  'no3_load_change_conc_part_kg_ha',
+  'no3_load_change_flow_part_percent',
+  'no3_load_change_conc_part_percent',
+] as const;
+export type LoadParts = { [K in (typeof LOAD_PART_COLUMNS)[number]]: number | null };
 
 /** Column order of comparison.csv (the keys of a ComparisonRow, always in this order). */
 export const COMPARISON_COLUMNS: ReadonlyArray<keyof ComparisonRow> = [
@@ -91,7 +106,45 @@ export const COMPARISON_COLUMNS: ReadonlyArray<keyof ComparisonRow> = [
   'pipe_length_change_m_ha',
   'pipe_length_change_percent',
   ...COMPARED.flatMap((c) => [`${c[1]}_change_${c[2]}`, `${c[1]}_change_percent`]),
+  ...LOAD_PART_COLUMNS,
 ] as ReadonlyArray<keyof ComparisonRow>;
+
+/** The change columns that carry a seepage band (pipe length does not depend on seepage). */
+export const BANDED_COLUMNS: ReadonlyArray<keyof ComparisonRow> = COMPARISON_COLUMNS.filter(
+  (c) => /_change_|_part_/.test(c) && !c.startsWith('pipe_length'),
+);
+
+/** comparison.csv's columns with the seepage band: every banded column with _low and _high. */
+export const BAND_COLUMNS: readonly string[] = BANDED_COLUMNS.flatMap((c) => [
+  `${c}_low`,
+  `${c}_high`,
+]);
+
+/** A comparison row with its seepage band: `<change column>_low` and `_high`. */
+export type BandedComparisonRow = ComparisonRow & Record<string, number | string | boolean | null>;
+
+/**
+ * Put the changes under the low and high seepage settings beside each change column
+ * (`drainflow_change_percent_low`, `..._high`); rows are matched by scenario name.
+ *
+ * @example withSeepageBand(rows, lowRows, highRows)[2].drainflow_change_percent_low // e.g. -6.1
+ */
+export function withSeepageBand(
+  rows: readonly ComparisonRow[],
+  low: readonly ComparisonRow[],
+  high: readonly ComparisonRow[],
+): BandedComparisonRow[] {
+  return rows.map((r) => {
+    const l = low.find((x) => x.scenario === r.scenario);
+    const h = high.find((x) => x.scenario === r.scenario);
+    const out: Record<string, unknown> = { ...r };
+    for (const c of BANDED_COLUMNS) {
+      out[`${c}_low`] = l ? l[c] : null;
+      out[`${c}_high`] = h ? h[c] : null;
+    }
+    return out as BandedComparisonRow;
+  });
+}
 
 /** A scenario as the comparison needs it: its name and its lateral spacing. */
 export interface ComparedScenario {
@@ -233,6 +286,20 @@ export function compareScenarios(
       out[`${stem}_change_${unit}`] = both ? v - b : null;
       out[`${stem}_change_percent`] = both ? percentChange(v, b) : null;
     }
+    // Load change = flow part + concentration part (symmetric decomposition, LOAD_PART_COLUMNS).
+    const q0 = base.drainflow_mm;
+    const q1 = m.drainflow_mm;
+    const c0 = base.fwmc_mg_l;
+    const c1 = m.fwmc_mg_l;
+    const l0 = base.no3_load_kg_ha;
+    if (q0 !== null && q1 !== null && c0 !== null && c1 !== null) {
+      const flowPart = ((q1 - q0) * (c0 + c1)) / 200;
+      const concPart = ((c1 - c0) * (q0 + q1)) / 200;
+      out.no3_load_change_flow_part_kg_ha = flowPart;
+      out.no3_load_change_conc_part_kg_ha = concPart;
+      out.no3_load_change_flow_part_percent = l0 ? (100 * flowPart) / l0 : null;
+      out.no3_load_change_conc_part_percent = l0 ? (100 * concPart) / l0 : null;
+    } else for (const c of LOAD_PART_COLUMNS) out[c] = null;
     const ordered: Record<string, unknown> = {};
     for (const c of COMPARISON_COLUMNS) ordered[c] = out[c];
     return ordered as ComparisonRow;

@@ -9,6 +9,12 @@ import { zQuantity } from '../units/zodQuantity.js';
 import { nitrateSchema } from '../nitrate/schema.js';
 import { checkSweep, costsSchema, managementName, sweepSchema } from './sweepSchema.js';
 import { fitSectionSchema } from './fitParams.js';
+import {
+  COEFFICIENT_CROPS,
+  COEFFICIENT_INLETS,
+  COEFFICIENT_SOILS,
+} from '../drainage/drainageCoefficient.js';
+import { SEEPAGE_SETTINGS } from '../engine/seepage.js';
 
 const mmdd = z
   .string()
@@ -78,9 +84,11 @@ export const soilSchema = z
       .describe(
         'Drainable porosity (specific yield): one value, or a list of {depth, value} layers from the surface down',
       ),
-    rootZoneDepth: zQuantity('length', 'Effective root-zone depth', { min: 0.05, max: 3 }).default(
-      0.6,
-    ),
+    rootZoneDepth: zQuantity(
+      'length',
+      'Effective root-zone depth held all year; leave it out for per-crop roots that grow from 0.15 m at planting to the crop maximum (FAO-56 Table 22 middle: corn 1.35, soybean 0.95, small grains 1.25 m), capped by the restrictive layer',
+      { min: 0.05, max: 3 },
+    ).optional(),
     fieldCapacity: fraction('Volumetric water content at field capacity').default(0.3),
     wiltingPoint: fraction('Volumetric water content at the permanent wilting point').default(0.14),
     surfaceStorage: zQuantity('depthMm', 'Depression storage held on the surface before runoff', {
@@ -89,7 +97,7 @@ export const soilSchema = z
     }).default(10),
     seepage: zQuantity(
       'rate',
-      'Deep seepage through the restrictive layer while the water table is above it',
+      'Extra constant deep seepage while the water table is above the restrictive layer (added to the seepage section)',
       {
         min: 0,
         max: 50,
@@ -100,7 +108,7 @@ export const soilSchema = z
       .min(0)
       .default(0)
       .describe(
-        'Extra deep seepage per metre of water-table head above the restrictive layer [mm/d per m]',
+        'Extra deep seepage per metre of water-table head above the restrictive layer, added to the seepage section [mm/d per m]',
       ),
     capillaryDecay: zQuantity(
       'length',
@@ -131,9 +139,26 @@ export const drainsSchema = z
       min: 0.001,
       max: 0.5,
     }).default(0.05),
+    coefficient: z
+      .union([
+        zQuantity('rate', 'Drainage coefficient as a rate', {
+          min: 0,
+          exclusiveMin: true,
+          max: 1000,
+        }),
+        z.strictObject({
+          soil: z.enum(COEFFICIENT_SOILS).default('mineral'),
+          crop: z.enum(COEFFICIENT_CROPS).default('field'),
+          inlets: z.enum(COEFFICIENT_INLETS).default('none'),
+        }),
+      ])
+      .optional()
+      .describe(
+        'Drainage coefficient of the system: a rate, or {soil: mineral|organic, crop: field|truck, inlets: none|blind|open} from the 24-hour table (middle of the tabulated range; default mineral, field, none = 11.1 mm/d); the pipes carry at most this unless capacity or pipe is given',
+      ),
     capacity: zQuantity(
       'rate',
-      'Drainage coefficient: the most the pipes carry, depth per day over the area',
+      'The most the pipes carry, depth per day over the area (overrides coefficient and pipe)',
       {
         min: 0,
         exclusiveMin: true,
@@ -196,6 +221,10 @@ const cropOverride = z.strictObject({
     ])
     .optional(),
   depletionFraction: z.number().min(0.05).max(0.95).optional(),
+  maxRootDepth: zQuantity('length', 'Maximum effective rooting depth of the crop', {
+    min: 0.1,
+    max: 3,
+  }).optional(),
 });
 
 export const CROP_NAMES = ['corn', 'soybean', 'small grains'] as const;
@@ -207,14 +236,80 @@ export const cropsSchema = z
       .min(1)
       .default(['corn', 'soybean'])
       .describe('Crops in order, one per year, repeating: corn, soybean, small grains'),
+    firstYear: z
+      .number()
+      .int()
+      .min(1800)
+      .max(2200)
+      .default(2000)
+      .describe(
+        'A calendar year in which the rotation grows its first crop; the rotation repeats from it both ways, whatever year the run starts (default 2000: corn in even years for [corn, soybean])',
+      ),
     corn: cropOverride.optional().describe('Overrides of the FAO-56 corn defaults'),
     soybean: cropOverride.optional().describe('Overrides of the FAO-56 soybean defaults'),
     'small grains': cropOverride
       .optional()
       .describe('Overrides of the FAO-56 small-grain defaults'),
   })
-  .default({ rotation: ['corn', 'soybean'] })
+  .default({ rotation: ['corn', 'soybean'], firstYear: 2000 })
   .describe('Crop rotation and calendar');
+
+const seepageLength = (what: string) => zQuantity('length', what, { min: 0, max: 100 });
+
+export const seepageSchema = z
+  .union([
+    z.enum(Object.keys(SEEPAGE_SETTINGS) as [keyof typeof SEEPAGE_SETTINGS]),
+    z.strictObject({
+      vertical: z
+        .strictObject({
+          to: seepageLength('Depth of the regional groundwater head below the surface'),
+          conductance: z
+            .number()
+            .min(0)
+            .max(0.1)
+            .describe(
+              "Leakance K'/b' of the layers between the water table and the regional head [1/d]",
+            ),
+        })
+        .optional()
+        .describe("Vertical leakage q = K'/b' x (regional head depth - water-table depth)"),
+      lateral: z
+        .strictObject({
+          distance: zQuantity('length', 'Distance from the middle of the field to its edge', {
+            min: 1,
+            max: 100000,
+          }),
+          level: seepageLength(
+            'Water level at the edge (boundary ditch or undrained neighbour) below the surface',
+          ),
+          conductivity: zQuantity(
+            'conductivity',
+            'Lateral conductivity toward the edge (defaults to soil.conductivity)',
+            { min: 0, exclusiveMin: true, max: 100 },
+          ).optional(),
+        })
+        .optional()
+        .describe('Lateral seepage to the field edge, q = K (H^2 - He^2) / x^2 (Dupuit)'),
+    }),
+  ])
+  .default('medium')
+  .describe(
+    'Seepage out of the field: low, medium (default, a typical till field), high, none, or {vertical, lateral}; see the README section on seepage',
+  );
+
+export const weatherSchema = z
+  .strictObject({
+    etFactor: z
+      .number()
+      .min(0.5)
+      .max(1.5)
+      .default(1)
+      .describe(
+        'Factor on reference ET, e.g. 0.85 to correct Hargreaves for a humid climate from a local calibration [-]',
+      ),
+  })
+  .default({ etFactor: 1 })
+  .describe('How the weather record is used');
 
 export const initialSchema = z
   .strictObject({
@@ -282,11 +377,14 @@ export const simulationSchema = z
     substepsPerDay: z
       .number()
       .int()
-      .min(1)
+      .min(
+        8,
+        'expects at least 8 sub-steps a day (fewer change annual drain flow by more than 1 %)',
+      )
       .max(1000)
       .default(8)
       .describe(
-        'Least number of internal time steps per day (more are taken when drains react fast)',
+        'Least number of internal time steps per day, 8 or more (more are taken when drains react fast)',
       ),
   })
   .default({ substepsPerDay: 8 })
@@ -309,6 +407,8 @@ export const fieldSchema = z
     drains: drainsSchema,
     outlet: outletSchema,
     crops: cropsSchema,
+    seepage: seepageSchema,
+    weather: weatherSchema,
     initial: initialSchema,
     nitrate: nitrateSchema,
     wetness: wetnessSchema,

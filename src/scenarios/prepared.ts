@@ -18,7 +18,11 @@ import { referenceEt, type EtMethod } from '../climate/referenceEt.js';
 import { snowModel } from '../climate/snow.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import type { CropParams } from '../engine/crops.js';
-import { cropCalendar } from '../engine/cropCalendar.js';
+import {
+  cropCalendar,
+  DEFAULT_ROTATION_FIRST_YEAR,
+  type RootOptions,
+} from '../engine/cropCalendar.js';
 import { outletSeries, type OutletSchedule } from '../engine/outletSchedule.js';
 import { simulate } from '../engine/simulate.js';
 import type { CropCalendar, EngineForcing, EngineResult } from '../engine/types.js';
@@ -107,7 +111,12 @@ export interface PreparedField {
   /** Index of `from` in the forcing; the reported period runs to the end of the forcing. */
   reportStart: number;
   /** Daily crop calendar of a rotation (cached). */
-  calendarOf(rotation: readonly string[], crops: Record<string, CropParams>): CropCalendar;
+  calendarOf(
+    rotation: readonly string[],
+    crops: Record<string, CropParams>,
+    firstYear?: number,
+    roots?: RootOptions,
+  ): CropCalendar;
   /** Daily outlet level of a schedule, NaN where free (cached; read only). */
   outletOf(schedule: OutletSchedule): Float64Array;
   /** Weather- and calendar-only terms of the pool model (cached; read only). */
@@ -118,7 +127,8 @@ export interface PreparedField {
 export type DesignSpec = Pick<
   ScenarioSpec,
   'name' | 'params' | 'rotation' | 'crops' | 'outlet' | 'nitrate'
-> & { field: Pick<Field, 'wetness'> };
+> &
+  Partial<Pick<ScenarioSpec, 'rotationFirstYear' | 'roots'>> & { field: Pick<Field, 'wetness'> };
 
 /** One design's results: daily columns over the simulated period, annual rows over the reported. */
 export interface DesignRun {
@@ -134,7 +144,7 @@ export interface DesignRun {
  * Site values (latitude, elevation) come from `field`.
  */
 export function prepareField(
-  field: Pick<Field, 'site'>,
+  field: Pick<Field, 'site'> & { weather?: { etFactor: number } },
   weather: WeatherSeries,
   o: PeriodOptions = {},
 ): PreparedField {
@@ -154,6 +164,9 @@ export function prepareField(
     wind2mMs: weather.wind2mMs?.slice(a0, b0),
   };
   const { forcing: f, method } = forcingOf(sim, field.site.latitude, field.site.elevation);
+  // weather.etFactor: a calibration factor on reference ET (README, Assumptions and defaults).
+  const etFactor = field.weather?.etFactor ?? 1;
+  if (etFactor !== 1) for (let i = 0; i < f.refEtMm.length; i++) f.refEtMm[i] *= etFactor;
   const days = dayIndexOf(f.dates);
   const forcing = { ...f, days };
   const calendars = new Map<string, CropCalendar>();
@@ -166,10 +179,12 @@ export function prepareField(
     to,
     warmupYears,
     reportStart: indexOf(f.dates, from),
-    calendarOf(rotation, crops) {
-      const key = JSON.stringify([rotation, rotation.map((c) => crops[c])]);
+    calendarOf(rotation, crops, firstYear = DEFAULT_ROTATION_FIRST_YEAR, roots = {}) {
+      const key = JSON.stringify([rotation, rotation.map((c) => crops[c]), firstYear, roots]);
       let c = calendars.get(key);
-      if (!c) calendars.set(key, (c = cropCalendar(f.dates, rotation, crops, days)));
+      if (!c) {
+        calendars.set(key, (c = cropCalendar(f.dates, rotation, crops, days, firstYear, roots)));
+      }
       return c;
     },
     outletOf(schedule) {
@@ -201,7 +216,7 @@ export function prepareField(
  */
 export function runDesign(p: PreparedField, spec: DesignSpec): DesignRun {
   const { forcing } = p;
-  const calendar = p.calendarOf(spec.rotation, spec.crops);
+  const calendar = p.calendarOf(spec.rotation, spec.crops, spec.rotationFirstYear, spec.roots);
   const engine = simulate(forcing, calendar, p.outletOf(spec.outlet), spec.params);
   const nitrate = simulateNitrate(
     {

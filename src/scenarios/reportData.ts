@@ -3,9 +3,17 @@
  * each scenario, balance closure, and the methods with their sources.
  */
 import type { ReportData } from '../report/types.js';
-import { ET_METHOD_SOURCE } from '../climate/referenceEt.js';
+import { ET_METHOD_SOURCE, HARGREAVES_BIAS } from '../climate/referenceEt.js';
 import { VERSION } from '../version.js';
-import { compareScenarios, type ComparisonRow } from './compare.js';
+import {
+  BAND_COLUMNS,
+  COMPARISON_COLUMNS,
+  compareScenarios,
+  withSeepageBand,
+  type ComparisonRow,
+} from './compare.js';
+import type { AnnualRow } from './types.js';
+import { SEEPAGE_BAND, SEEPAGE_SETTINGS, type SeepageBand } from '../engine/seepage.js';
 import { wetnessSchema } from './fieldSchema.js';
 import type { RunOutput } from './run.js';
 
@@ -34,7 +42,7 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
   const methods: ReportData['methods'] = [
     {
       topic: 'Reference evapotranspiration',
-      text: `${run.refEtMethod}; crop ET = Kc x ET0 with the FAO-56 single crop coefficient curve and the water-stress coefficient Ks (Eq. 84).`,
+      text: `${run.refEtMethod}${run.etFactor !== 1 ? `, times the field file's factor ${run.etFactor}` : ''}${run.refEtMethod === 'Hargreaves' ? ` (${HARGREAVES_BIAS})` : ''}; crop ET = Kc x ET0 with the FAO-56 single crop coefficient curve and the water-stress coefficient Ks (Eq. 84).`,
       source: `${ET_METHOD_SOURCE[run.refEtMethod]}; Allen et al. (1998), FAO Irrigation and Drainage Paper 56`,
     },
     {
@@ -55,9 +63,21 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
         'Hooghoudt (1940); van der Molen & Wesseling (1991), Agric. Water Manage. 19; Kirkham (1957)',
     },
     {
-      topic: 'Deep seepage',
-      text: 'Darcy leakage through the restrictive layer: a constant rate plus a conductance times the head of the water table above that layer.',
-      source: "Darcy's law (Darcy 1856) for a semi-pervious layer",
+      topic: 'Seepage',
+      text: `${seepageText(run)} Every scenario is also run under the low, medium and high settings; the changes against the baseline under low and high are given beside each change (the seepage band).`,
+      source:
+        "Leaky-layer leakage q = K'/b' x head difference (Darcy); Dupuit-Forchheimer flow to the field edge; till conductivities after Freeze & Cherry (1979), from memory",
+    },
+    {
+      topic: 'Roots and pipe capacity',
+      text: `${rootText(run)} Drain flow is capped at ${capacityText(run)}.`,
+      source:
+        'FAO-56 Table 22 and chapter 8 (Allen et al. 1998); drainage-coefficient tables for humid areas (common practice, from memory)',
+    },
+    {
+      topic: 'Load change: flow and concentration parts',
+      text: 'Mean annual load L = Q C / 100 (Q drain flow, mm; C flow-weighted concentration, mg/L). A change is split symmetrically: flow part (Q1 - Q0)(C0 + C1)/200, concentration part (C1 - C0)(Q0 + Q1)/200; the two add up to the change.',
+      source: 'Midpoint (symmetric) decomposition of a product change',
     },
     {
       topic: 'Nitrate-N',
@@ -77,6 +97,50 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
   return methods;
 }
 
+/** What a run assumed about seepage, in words (the first scenario's setting). */
+export function seepageText(run: RunOutput): string {
+  const s = run.scenarios[0]?.spec;
+  if (!s) return '';
+  const { name, setting } = s.seepage;
+  const parts: string[] = [];
+  if (setting.vertical) {
+    parts.push(
+      `vertical leakage to a regional head ${setting.vertical.to} m below the surface with leakance ${setting.vertical.conductance.toExponential(2)} /d`,
+    );
+  }
+  if (setting.lateral) {
+    const k = setting.lateral.conductivity ?? s.params.kAboveMPerDay;
+    parts.push(
+      `lateral seepage to an edge ${setting.lateral.distance} m from the field's middle with water ${setting.lateral.level} m deep (K ${k} m/d)`,
+    );
+  }
+  const extra =
+    s.params.seepageMmPerDay > 0 || s.params.seepageConductanceMmPerDayPerM > 0
+      ? `; plus ${s.params.seepageMmPerDay} mm/d and ${s.params.seepageConductanceMmPerDayPerM} mm/d per m of head above the restrictive layer (soil.seepage, soil.seepageConductance)`
+      : '';
+  return `Seepage setting "${name}": ${parts.length ? parts.join('; ') : 'no seepage'}${extra}.`;
+}
+
+/** The rooting depth a run assumed, in words. */
+export function rootText(run: RunOutput): string {
+  const s = run.scenarios[0]?.spec;
+  if (!s) return '';
+  if (s.roots.fixedM !== undefined)
+    return `Root zone ${s.roots.fixedM} m all year (soil.rootZoneDepth).`;
+  const crops = [...new Set(s.rotation)]
+    .map((c) => `${c} ${Math.min(s.crops[c].maxRootDepth, s.roots.capM ?? Infinity)} m`)
+    .join(', ');
+  return `Roots grow from 0.15 m at planting to the crop's maximum at the start of mid-season (${crops}; capped by the restrictive layer).`;
+}
+
+/** The pipe capacity a run assumed, in words. */
+export function capacityText(run: RunOutput): string {
+  const s = run.scenarios[0]?.spec;
+  if (!s) return '';
+  const c = s.params.capacityMmPerDay;
+  return Number.isFinite(c) ? `${c.toFixed(1)} mm/d (${s.capacitySource})` : 'no limit';
+}
+
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */
 export function wettestYear(run: RunOutput): number {
   const annual = run.scenarios[0]?.annual ?? [];
@@ -85,18 +149,70 @@ export function wettestYear(run: RunOutput): number {
   return best ? best.year : Number(run.from.slice(0, 4));
 }
 
-/** The comparison rows of a run (one per scenario, baseline first as in the run). */
+/**
+ * The comparison rows of a run (one per scenario, baseline first as in the run), with the
+ * changes under the low and high seepage settings beside each change column when the run
+ * computed the seepage band.
+ */
 export function comparisonOf(run: RunOutput): ComparisonRow[] {
-  return compareScenarios(
+  const rows = compareAnnual(
+    run,
     run.scenarios.flatMap((s) => s.annual),
-    {
-      baseline: run.baseline,
-      scenarios: run.scenarios.map((s) => ({
-        name: s.spec.name,
-        spacingM: s.spec.params.spacingM,
-      })),
-    },
   );
+  const band = run.seepageBand;
+  return band
+    ? withSeepageBand(rows, compareAnnual(run, band.low), compareAnnual(run, band.high))
+    : rows;
+}
+
+function compareAnnual(run: RunOutput, annual: AnnualRow[]): ComparisonRow[] {
+  return compareScenarios(annual, {
+    baseline: run.baseline,
+    scenarios: run.scenarios.map((s) => ({
+      name: s.spec.name,
+      spacingM: s.spec.params.spacingM,
+    })),
+  });
+}
+
+/**
+ * The seepage band for summary.json: the three documented settings and, per scenario, the
+ * change in drain flow, load and concentration against the baseline under each.
+ */
+export function seepageBandOf(run: RunOutput) {
+  const band = run.seepageBand;
+  if (!band) return null;
+  const rows = Object.fromEntries(
+    SEEPAGE_BAND.map((b) => [b, compareAnnual(run, band[b])]),
+  ) as Record<SeepageBand, ComparisonRow[]>;
+  const keys = [
+    'drainflow_change_percent',
+    'no3_load_change_percent',
+    'fwmc_change_percent',
+    'seepage_change_mm',
+  ] as const;
+  return {
+    settings: Object.fromEntries(SEEPAGE_BAND.map((b) => [b, SEEPAGE_SETTINGS[b]])),
+    field_setting: run.scenarios[0]?.spec.seepage.name ?? '',
+    changes: run.scenarios
+      .filter((s) => s.spec.name !== run.baseline)
+      .map((s) => ({
+        scenario: s.spec.name,
+        ...Object.fromEntries(
+          keys.map((k) => [
+            k,
+            Object.fromEntries(
+              SEEPAGE_BAND.map((b) => [b, rows[b].find((r) => r.scenario === s.spec.name)![k]]),
+            ),
+          ]),
+        ),
+      })),
+  };
+}
+
+/** comparison.csv's columns for a run: with the seepage band when the run computed it. */
+export function comparisonColumnsOf(run: RunOutput): readonly string[] {
+  return run.seepageBand ? [...COMPARISON_COLUMNS, ...BAND_COLUMNS] : COMPARISON_COLUMNS;
 }
 
 /**

@@ -6,7 +6,15 @@
 import { equivalentDepth } from '../drainage/equivalentDepth.js';
 import { hooghoudtSpacing } from '../drainage/hooghoudt.js';
 import { manningFullCapacity } from '../drainage/manning.js';
+import { drainageCoefficient } from '../drainage/drainageCoefficient.js';
 import { CROPS, type CropParams } from '../engine/crops.js';
+import type { RootOptions } from '../engine/cropCalendar.js';
+import {
+  SEEPAGE_SETTINGS,
+  seepageParamsOf,
+  type SeepageBand,
+  type SeepageSetting,
+} from '../engine/seepage.js';
 import type { OutletSchedule } from '../engine/outletSchedule.js';
 import type { EngineParams } from '../engine/types.js';
 import type { NitrateConfig } from '../nitrate/types.js';
@@ -19,6 +27,14 @@ export interface ScenarioSpec {
   field: Field;
   params: EngineParams;
   rotation: string[];
+  /** A calendar year in which the rotation grows its first crop. */
+  rotationFirstYear: number;
+  /** How the calendar sets the daily rooting depth. */
+  roots: RootOptions;
+  /** The seepage assumed: a named setting or "custom", and its terms. */
+  seepage: { name: string; setting: SeepageSetting };
+  /** Where the pipe capacity comes from, e.g. "drainage coefficient mineral field none". */
+  capacitySource: string;
   crops: Record<string, CropParams>;
   outlet: OutletSchedule;
   /** Human description of the outlet management, e.g. "free" or "held at 0.30 m 11-01 to 04-01". */
@@ -57,14 +73,49 @@ function outletOf(f: Field): { outlet: OutletSchedule; label: string } {
   return { outlet: { steps }, label: `controlled: ${label}` };
 }
 
-/** Drain capacity in mm/d from a drainage coefficient or a lateral pipe (Manning, full flow). */
-export function capacityOf(f: Field): number {
-  if (f.drains.capacity !== undefined) return f.drains.capacity;
+/**
+ * Drain capacity in mm/d and where it comes from: `drains.capacity` if given, else the lateral
+ * pipe's full flow (Manning) over the area it serves, else the drainage coefficient (a rate, or
+ * the table's value for a soil, crop and inlets; by default field crops on mineral soil without
+ * surface inlets). A system is designed to carry its drainage coefficient, so flow beyond it is
+ * held back in the field.
+ */
+export function capacityWithSource(f: Field): { mmPerDay: number; source: string } {
+  if (f.drains.capacity !== undefined) {
+    return { mmPerDay: f.drains.capacity, source: 'drains.capacity' };
+  }
   const pipe = f.drains.pipe;
-  if (!pipe) return Infinity;
-  const q = manningFullCapacity(pipe.diameter / 1000, pipe.grade, pipe.roughness);
-  const areaM2 = pipe.length * f.drains.spacing;
-  return ((q * 86400) / areaM2) * 1000;
+  if (pipe) {
+    const q = manningFullCapacity(pipe.diameter / 1000, pipe.grade, pipe.roughness);
+    const areaM2 = pipe.length * f.drains.spacing;
+    return { mmPerDay: ((q * 86400) / areaM2) * 1000, source: 'drains.pipe (Manning, full flow)' };
+  }
+  const c = f.drains.coefficient;
+  if (typeof c === 'number') return { mmPerDay: c, source: 'drains.coefficient' };
+  const preset = c ?? { soil: 'mineral', crop: 'field', inlets: 'none' };
+  return {
+    mmPerDay: drainageCoefficient(preset).mmPerDay,
+    source:
+      `drainage coefficient for ${preset.soil} soil, ${preset.crop} crops, inlets ${preset.inlets}` +
+      (c === undefined ? ' (default)' : ''),
+  };
+}
+
+/** Drain capacity in mm/d (see `capacityWithSource`). */
+export function capacityOf(f: Field): number {
+  return capacityWithSource(f).mmPerDay;
+}
+
+/** The seepage setting of a field: a named one, or the field's own terms ("custom"). */
+export function seepageOf(f: Field): { name: string; setting: SeepageSetting } {
+  const s = f.seepage;
+  if (typeof s === 'string') return { name: s, setting: SEEPAGE_SETTINGS[s] };
+  return { name: 'custom', setting: s };
+}
+
+/** The field with one of the documented seepage settings in place of its own. */
+export function withSeepage(f: Field, band: SeepageBand): Field {
+  return { ...f, seepage: band };
 }
 
 /** Engine parameters of a field (all SI). */
@@ -82,12 +133,17 @@ export function engineParamsOf(f: Field): EngineParams {
     kAboveMPerDay: f.soil.conductivity,
     kBelowMPerDay: f.soil.conductivityBelowDrains ?? f.soil.conductivity,
     porosity,
-    rootZoneDepthM: f.soil.rootZoneDepth,
+    // Used only where a calendar has no daily rooting depth.
+    rootZoneDepthM: Math.min(
+      f.soil.rootZoneDepth ?? CROPS.corn.maxRootDepth,
+      f.soil.restrictiveLayerDepth,
+    ),
     fieldCapacity: f.soil.fieldCapacity,
     wiltingPoint: f.soil.wiltingPoint,
     surfaceStorageMm: f.soil.surfaceStorage,
     seepageMmPerDay: f.soil.seepage,
     seepageConductanceMmPerDayPerM: f.soil.seepageConductance,
+    seepage: seepageParamsOf(seepageOf(f).setting, f.soil.conductivity),
     capacityMmPerDay: capacityOf(f),
     capillaryDecayM: f.soil.capillaryDecay,
     initialWaterTableDepthM: f.initial.waterTableDepth,
@@ -103,7 +159,7 @@ function cropsOf(f: Field): Record<string, CropParams> {
     const over = (f.crops as Record<string, Partial<CropParams> | undefined>)[name] ?? {};
     const merged = { ...CROPS[name] };
     for (const [k, v] of Object.entries(over))
-      if (v !== undefined) (merged as Record<string, unknown>)[k] = v;
+      if (v !== undefined && k in merged) (merged as Record<string, unknown>)[k] = v;
     out[name] = merged;
   }
   return out;
@@ -118,6 +174,10 @@ export function scenarioOf(name: string, description: string, f: Field): Scenari
     field: f,
     params: engineParamsOf(f),
     rotation: [...f.crops.rotation],
+    rotationFirstYear: f.crops.firstYear,
+    roots: { fixedM: f.soil.rootZoneDepth, capM: f.soil.restrictiveLayerDepth },
+    seepage: seepageOf(f),
+    capacitySource: capacityWithSource(f).source,
     crops: cropsOf(f),
     outlet,
     outletLabel: label,

@@ -11,7 +11,8 @@ import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from '..
 import type { NitrateResult } from '../nitrate/types.js';
 import type { Field } from './fieldSchema.js';
 import { prepareField, runDesign, type PeriodOptions, type PreparedField } from './prepared.js';
-import { scenarioOf, standardScenarios, type ScenarioSpec } from './resolve.js';
+import { scenarioOf, standardScenarios, withSeepage, type ScenarioSpec } from './resolve.js';
+import { SEEPAGE_BAND, type SeepageBand } from '../engine/seepage.js';
 import type { AnnualRow } from './types.js';
 
 export interface RunOptions extends PeriodOptions {
@@ -19,6 +20,11 @@ export interface RunOptions extends PeriodOptions {
   only?: string[];
   /** Called before each scenario starts. */
   onScenario?: (index: number, count: number, name: string) => void;
+  /**
+   * Also run every scenario under the low, medium and high seepage settings (default true): the
+   * seepage band of the changes against the baseline. Cheap: the forcing is shared.
+   */
+  seepageBand?: boolean;
 }
 
 /** One scenario's results over the reported period. */
@@ -41,6 +47,13 @@ export interface RunOutput {
   simulatedFrom: string;
   baseline: string;
   scenarios: ScenarioOutput[];
+  /** Factor applied to reference ET (field file weather.etFactor). */
+  etFactor: number;
+  /**
+   * Annual rows of every scenario under each documented seepage setting (the setting the field
+   * itself uses points at `scenarios`' rows); absent when the band was not run.
+   */
+  seepageBand?: Record<SeepageBand, AnnualRow[]>;
 }
 
 /** A field with its explicit scenarios (as produced by the field-file reader). */
@@ -49,10 +62,14 @@ export interface FieldWithScenarios {
   scenarios: Array<{ name: string; description?: string; field: Field }>;
 }
 
-/** The scenarios a field defines, or the three standard alternatives when it defines none. */
-export function scenariosOf(f: FieldWithScenarios): ScenarioSpec[] {
-  if (f.scenarios.length === 0) return standardScenarios(f.base);
-  return f.scenarios.map((s) => scenarioOf(s.name, s.description ?? '', s.field));
+/**
+ * The scenarios a field defines, or the three standard alternatives when it defines none; with
+ * `band`, every scenario under that documented seepage setting instead of the field's own.
+ */
+export function scenariosOf(f: FieldWithScenarios, band?: SeepageBand): ScenarioSpec[] {
+  const seep = (x: Field) => (band === undefined ? x : withSeepage(x, band));
+  if (f.scenarios.length === 0) return standardScenarios(seep(f.base));
+  return f.scenarios.map((s) => scenarioOf(s.name, s.description ?? '', seep(s.field)));
 }
 
 export { forcingOf, reportPeriod, type PeriodOptions } from './prepared.js';
@@ -103,17 +120,17 @@ export interface PreparedScenario {
  */
 export function preparePeriod(
   weather: WeatherSeries,
-  site: { latitude: number; elevation: number },
+  site: { latitude: number; elevation: number; etFactor?: number },
   o: PeriodOptions = {},
 ): PreparedPeriod {
-  return prepareField({ site }, weather, o);
+  return prepareField({ site, weather: { etFactor: site.etFactor ?? 1 } }, weather, o);
 }
 
 /** The crop calendar and outlet series of a scenario on a prepared period. */
 export function prepareScenario(period: PreparedPeriod, spec: ScenarioSpec): PreparedScenario {
   return {
     spec,
-    calendar: period.calendarOf(spec.rotation, spec.crops),
+    calendar: period.calendarOf(spec.rotation, spec.crops, spec.rotationFirstYear, spec.roots),
     outlet: period.outletOf(spec.outlet),
   };
 }
@@ -168,13 +185,31 @@ export function runField(
     }
     specs = specs.filter((s) => o.only!.includes(s.name));
   }
-  const period = preparePeriod(weather, field.base.site, o);
+  const period = preparePeriod(
+    weather,
+    { ...field.base.site, etFactor: field.base.weather.etFactor },
+    o,
+  );
   const { forcing, from, to, warmupYears } = period;
   const reportedForcing = sliceForcing(forcing, period.reportStart, forcing.dates.length);
   const scenarios: ScenarioOutput[] = specs.map((spec, k) => {
     o.onScenario?.(k, specs.length, spec.name);
     return runPreparedScenario(period, prepareScenario(period, spec));
   });
+  const names = new Set(specs.map((s) => s.name));
+  const bandOf = (band: SeepageBand): AnnualRow[] =>
+    band === field.base.seepage
+      ? scenarios.flatMap((s) => s.annual)
+      : scenariosOf(field, band)
+          .filter((spec) => names.has(spec.name))
+          .flatMap((spec) => runPreparedScenario(period, prepareScenario(period, spec)).annual);
+  const seepageBand =
+    o.seepageBand === false
+      ? undefined
+      : (Object.fromEntries(SEEPAGE_BAND.map((b) => [b, bandOf(b)])) as Record<
+          SeepageBand,
+          AnnualRow[]
+        >);
 
   return {
     forcing: reportedForcing,
@@ -185,5 +220,7 @@ export function runField(
     simulatedFrom: forcing.dates[0],
     baseline: specs[0]?.name ?? '',
     scenarios,
+    etFactor: field.base.weather.etFactor,
+    seepageBand,
   };
 }

@@ -193,7 +193,7 @@ describe('drains.system in a field file', () => {
   it('sets drains.capacity to the smallest coefficient from a lateral to the outlet', () => {
     const field = readFileSync('data-demo/field.yaml', 'utf8')
       .replace(
-        /^ {2}capacity: .*$/m,
+        /^ {2}(capacity|coefficient): .*$/m,
         `  system: ${join(process.cwd(), 'data-demo', 'system.yaml')}`,
       )
       .replace(/^scenarios:[\s\S]*$/m, '');
@@ -215,14 +215,14 @@ describe('drains.system in a field file', () => {
     const both = join(tmp, 'both.yaml');
     writeFileSync(
       both,
-      text.replace(/^ {2}capacity: .*$/m, `  capacity: 0.5 in/d\n  system: ${sys}`),
+      text.replace(/^ {2}(capacity|coefficient): .*$/m, `  capacity: 0.5 in/d\n  system: ${sys}`),
     );
     expect(() => readFieldFile(both)).toThrowError(
       /drains\.system: give drains\.system, drains\.capacity or drains\.pipe/,
     );
     const spaced = join(tmp, 'spaced.yaml');
     // The shallow scenario of the demo field sets 14 m, the plan's laterals are 18 m apart.
-    writeFileSync(spaced, text.replace(/^ {2}capacity: .*$/m, `  system: ${sys}`));
+    writeFileSync(spaced, text.replace(/^ {2}(capacity|coefficient): .*$/m, `  system: ${sys}`));
     expect(() => readFieldFile(spaced)).toThrowError(
       /scenario shallow: drains\.system: the laterals of .* are 18 m apart and drains\.spacing is 14 m/,
     );

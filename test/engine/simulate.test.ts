@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/engine/simulate.js';
+import { kirkhamGeometryFactor } from '../../src/drainage/kirkham.js';
 import { constantForcing, flatCalendar, free, params } from './fixtures.js';
 import { vdmwDepth } from '../drainage/reference.js';
 
@@ -106,6 +107,30 @@ describe('engine: outlet, capacity, balance, time step', () => {
     expect(r.drainflowMm[n - 1]).toBeLessThan(1e-3);
   });
 
+  it('ponded with the outlet held at 0.3 m: Kirkham with head pond + outlet depth (kirkham.ts)', () => {
+    // Saturated and ponded under heavy rain, the drains run at Kirkham's rate with the drain's
+    // head at the outlet level: q = 4 pi K (t + c) / (g L), t between the depression storage
+    // (10 mm) and that plus one sub-step of rain. Hooghoudt above a 0.3 m outlet on this layout
+    // gives about a third of it, so Kirkham decides.
+    const n = 30;
+    const outlet = new Float64Array(n).fill(0.3);
+    const p = params({ initialWaterTableDepthM: 0 });
+    const r = simulate(constantForcing(n, 100, 0), flatCalendar(n, 0), outlet, p);
+    const g = kirkhamGeometryFactor({
+      drainDepthM: p.drainDepthM,
+      layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
+      drainRadiusM: p.drainRadiusM,
+      spacingM: p.spacingM,
+    });
+    const q = (t: number) => (4 * Math.PI * p.kAboveMPerDay * (t + 0.3) * 1000) / (g * p.spacingM);
+    const lo = q(p.surfaceStorageMm / 1000);
+    const hi = q((p.surfaceStorageMm + 100 / r.substepsPerDay) / 1000);
+    for (let i = 5; i < n; i++) {
+      expect(r.drainflowMm[i]).toBeGreaterThanOrEqual(lo - 1e-9);
+      expect(r.drainflowMm[i]).toBeLessThanOrEqual(hi + 1e-9);
+    }
+  });
+
   it('outflow never exceeds the pipe capacity', () => {
     const n = 120;
     const cap = 6;
@@ -119,6 +144,12 @@ describe('engine: outlet, capacity, balance, time step', () => {
     for (let i = 0; i < n; i++) max = Math.max(max, r.drainflowMm[i]);
     expect(max).toBeLessThanOrEqual(cap + 1e-9);
     expect(max).toBeGreaterThan(cap - 1e-6); // the limit is reached in this wet spell
+    // Days flagged as capacity-limited are those whose flow sits at the cap.
+    for (let i = 0; i < n; i++) {
+      if (r.capacityLimited[i]) expect(r.drainflowMm[i]).toBeGreaterThan(cap - 1e-6);
+      else expect(r.drainflowMm[i]).toBeLessThan(cap);
+    }
+    expect(r.capacityLimited.reduce((a, x) => a + x, 0)).toBeGreaterThan(0);
   });
 
   it('closes the daily water balance with ET, runoff and seepage active', () => {

@@ -80,6 +80,11 @@ describe('field files', () => {
     ],
     ['not a mapping', '- a\n- b\n', /expects a mapping/],
     [
+      'too few sub-steps (the step-halving floor)',
+      GOOD + 'simulation: { substepsPerDay: 1 }\n',
+      /line 8, column \d+: simulation\.substepsPerDay .*at least 8/,
+    ],
+    [
       'unknown scenario key',
       GOOD + 'scenarios:\n  - name: a\n  - name: b\n    drain: { depth: 0.8 m }\n',
       /line 11, column 5: unknown key "scenarios\[1\]\.drain"; did you mean "drains"\?/,

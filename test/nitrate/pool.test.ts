@@ -106,17 +106,24 @@ describe('pool model: processes against closed forms', () => {
     expect(at20.pool.poolKgHa[9]).toBeCloseTo(10 * (146.1 / 365.25), 10);
   });
 
-  it('denitrifies as first-order decay at kmax x s^w x Q10 factor', () => {
-    // dP/dt = -k P with k = 0.05 x 0.6^2 x 2^((15 - 20) / 10), no flow: P(t) = P0 exp(-k t).
-    const input = constantInput(30, { sat: 0.6, t: 15 });
-    const r = simulatePool(input, {
-      ...QUIET,
-      initialPoolKgHa: 80,
-      denitrificationMaxPerDay: 0.05,
-    });
-    const k = 0.05 * 0.36 * Math.pow(2, -0.5);
-    expect(r.pool.poolKgHa[29]).toBeCloseTo(80 * Math.exp(-k * 30), 10);
-    expect(sum(r.pool.denitrificationKgHa)).toBeCloseTo(80 * (1 - Math.exp(-k * 30)), 10);
+  it('denitrifies as first-order decay at kmax x s^w x the temperature factor', () => {
+    // dP/dt = -k P, no flow: P(t) = P0 exp(-k t), k = 0.05 x 0.6^2 x f(T). NEMIS temperature
+    // response (Henault & Germon 2000, Eur. J. Soil Sci. 51: 257-270; from memory), written out
+    // here: f = 2.1^((T - 20)/10) from 11 degC up, 2.1^(-0.9) x 89^((T - 11)/10) below.
+    for (const [t, f] of [
+      [15, Math.pow(2.1, -0.5)],
+      [5, Math.pow(2.1, -0.9) * Math.pow(89, -0.6)],
+    ]) {
+      const input = constantInput(30, { sat: 0.6, t });
+      const r = simulatePool(input, {
+        ...QUIET,
+        initialPoolKgHa: 80,
+        denitrificationMaxPerDay: 0.05,
+      });
+      const k = 0.05 * 0.36 * f;
+      expect(r.pool.poolKgHa[29]).toBeCloseTo(80 * Math.exp(-k * 30), 10);
+      expect(sum(r.pool.denitrificationKgHa)).toBeCloseTo(80 * (1 - Math.exp(-k * 30)), 10);
+    }
   });
 
   it("takes each crop's seasonal uptake over its season when N is ample", () => {

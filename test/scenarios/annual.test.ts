@@ -84,6 +84,7 @@ function heldYear(
     infiltrationMm: col(),
     drainflowMm: col(),
     seepageMm: col(),
+    lateralSeepageMm: col(),
     waterTableDepthM: col(),
     outletDepthM: col(),
     pondedMm: col(),
@@ -92,6 +93,7 @@ function heldYear(
     soilStorageMm: col(),
     saturatedFraction: col(),
     balanceErrorMm: col(),
+    capacityLimited: new Uint8Array(ds.length),
     substepsPerDay: 8,
     equivalentDepthM: 1,
   } satisfies EngineResult;

@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import {
+  BAND_COLUMNS,
   COMPARISON_COLUMNS,
   compareScenarios,
   pipeLengthPerHectare,
+  withSeepageBand,
 } from '../../src/scenarios/compare.js';
 import type { AnnualRow } from '../../src/scenarios/types.js';
 import { TilefluxError } from '../../src/errors.js';
@@ -245,6 +247,36 @@ describe('compareScenarios', () => {
     expect(ctrl.no3_load_median_kg_ha).toBe(5.7);
     expect(ctrl.no3_load_max_kg_ha).toBe(6.3);
     expect(conv.drainflow_median_mm).toBe(250);
+  });
+
+  it('splits the load change into flow and concentration parts that add up to it', () => {
+    // L = Q C / 100; symmetric split: flow part dQ (C0 + C1) / 200, concentration part
+    // dC (Q0 + Q1) / 200 (a standard identity for the change of a product).
+    const dQ = ctrl.drainflow_mm - conv.drainflow_mm;
+    const c0 = conv.fwmc_mg_l!;
+    const c1 = ctrl.fwmc_mg_l!;
+    const flow = (dQ * (c0 + c1)) / 200;
+    const conc = ((c1 - c0) * (conv.drainflow_mm + ctrl.drainflow_mm)) / 200;
+    expect(ctrl.no3_load_change_flow_part_kg_ha).toBeCloseTo(flow, 12);
+    expect(ctrl.no3_load_change_conc_part_kg_ha).toBeCloseTo(conc, 12);
+    expect(flow + conc).toBeCloseTo(ctrl.no3_load_change_kg_ha, 10);
+    expect(
+      ctrl.no3_load_change_flow_part_percent! + ctrl.no3_load_change_conc_part_percent!,
+    ).toBeCloseTo(ctrl.no3_load_change_percent!, 10);
+    expect(conv.no3_load_change_flow_part_kg_ha).toBe(0);
+  });
+
+  it('puts the low and high seepage changes beside every change column', () => {
+    const lower = annual.map((r) =>
+      r.scenario === 'controlled' ? { ...r, drainflow_mm: r.drainflow_mm * 0.9 } : r,
+    );
+    const band = withSeepageBand([conv, ctrl], compareScenarios(lower, opts), [conv, ctrl]);
+    const lowRow = compareScenarios(lower, opts)[1];
+    expect(band[1].drainflow_change_percent_low).toBe(lowRow.drainflow_change_percent);
+    expect(band[1].drainflow_change_percent_high).toBe(ctrl.drainflow_change_percent);
+    for (const c of BAND_COLUMNS) expect(c in band[1]).toBe(true);
+    expect(BAND_COLUMNS).toContain('no3_load_change_conc_part_percent_low');
+    expect(BAND_COLUMNS.some((c) => c.startsWith('pipe_length'))).toBe(false);
   });
 
   it('has exactly the documented columns, in order, and is deterministic', () => {

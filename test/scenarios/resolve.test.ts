@@ -53,3 +53,34 @@ describe('scenario resolution', () => {
     });
   });
 });
+
+describe('pipe capacity from the drainage coefficient', () => {
+  it('defaults to field crops on mineral soil without inlets: 7/16 in/d (common practice, from memory)', () => {
+    const f = parseField(BASE, 'f.yaml');
+    expect(capacityOf(f.base)).toBeCloseTo((7 / 16) * 25.4, 12);
+  });
+  it('takes a preset, a rate, and lets capacity override both', () => {
+    const preset = parseField(
+      BASE.replace(
+        'radius: 0.05 m }',
+        'radius: 0.05 m, coefficient: { soil: organic, inlets: open } }',
+      ),
+      'f.yaml',
+    );
+    // Organic soil, field crops, open inlets: 1 to 1 1/2 in/d, the middle 1.25 in/d.
+    expect(capacityOf(preset.base)).toBeCloseTo(1.25 * 25.4, 12);
+    const rate = parseField(
+      BASE.replace('radius: 0.05 m }', 'radius: 0.05 m, coefficient: 0.5 in/d }'),
+      'f.yaml',
+    );
+    expect(capacityOf(rate.base)).toBeCloseTo(12.7, 12);
+    const both = parseField(
+      BASE.replace(
+        'radius: 0.05 m }',
+        'radius: 0.05 m, coefficient: 0.5 in/d, capacity: 20 mm/d }',
+      ),
+      'f.yaml',
+    );
+    expect(capacityOf(both.base)).toBe(20);
+  });
+});

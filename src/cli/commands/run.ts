@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
+import { HARGREAVES_BIAS } from '../../climate/referenceEt.js';
 import { readFieldFile } from '../../io/field.js';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -15,9 +16,16 @@ import { buildSummary, writeRunFiles, type RunMeta } from '../../io/runFolder.js
 import { columnIn, toCsv } from '../../io/tables.js';
 import { buildChartSpecs } from '../../report/charts.js';
 import { writeCharts, writeReport } from '../../report/index.js';
-import { cropConditionLines } from '../../report/summary.js';
-import { COMPARISON_COLUMNS, type ComparisonRow } from '../../scenarios/compare.js';
-import { comparisonOf, reportDataOf } from '../../scenarios/reportData.js';
+import { cropConditionLines, headlineLines } from '../../report/summary.js';
+import type { ComparisonRow } from '../../scenarios/compare.js';
+import {
+  capacityText,
+  comparisonColumnsOf,
+  comparisonOf,
+  reportDataOf,
+  rootText,
+  seepageText,
+} from '../../scenarios/reportData.js';
 import { readWeatherFile } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
@@ -130,6 +138,30 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   return lines.join('\n');
 }
 
+/**
+ * What the run assumed that decides its answer, always printed: seepage, roots, pipe capacity
+ * (with the days it limited flow) and the reference-ET method with its known bias.
+ */
+export function assumptionLines(run: RunOutput): string[] {
+  const limited = run.scenarios
+    .map((s) => {
+      let days = 0;
+      for (const x of s.engine.capacityLimited) days += x;
+      return `${s.spec.name} ${days}`;
+    })
+    .join(', ');
+  const et =
+    `Reference ET: ${run.refEtMethod}` +
+    (run.etFactor !== 1 ? ` x ${run.etFactor} (weather.etFactor)` : '') +
+    (run.refEtMethod === 'Hargreaves' ? `. ${HARGREAVES_BIAS}.` : '.');
+  return [
+    `Assumed: ${seepageText(run)}`,
+    `Assumed: ${rootText(run)}`,
+    `Assumed: drain flow capped at ${capacityText(run)}; days the cap limited flow: ${limited}.`,
+    et,
+  ];
+}
+
 /** The human summary printed after a run: the table, what changed, where the files are. */
 export function runReport(
   run: RunOutput,
@@ -144,7 +176,10 @@ export function runReport(
     '',
     headline(comparison, units),
     '',
+    ...headlineLines(comparison),
     ...cropConditionLines(comparison),
+    '',
+    ...assumptionLines(run),
     '',
     `Wrote ${out}/ (${written.join(', ')}).`,
   ];
@@ -201,7 +236,12 @@ export async function writeRunFolder(
         join(dir, 'comparison.csv'),
         toCsv(
           comparison.map((r) =>
-            Object.fromEntries(COMPARISON_COLUMNS.map((k) => [k, r[k] as string | number])),
+            Object.fromEntries(
+              comparisonColumnsOf(run).map((k) => [
+                k,
+                (r as Record<string, unknown>)[k] as string | number,
+              ]),
+            ),
           ),
           units,
         ),
