@@ -7,6 +7,7 @@ import { ET_METHOD_SOURCE } from '../climate/referenceEt.js';
 import { VERSION } from '../version.js';
 import { compareScenarios, type ComparisonRow } from './compare.js';
 import { wetnessSchema } from './fieldSchema.js';
+import { windowWaterTable } from './windows.js';
 import type { RunOutput } from './run.js';
 
 /** The methods behind every number in a run, with their published sources. */
@@ -144,6 +145,16 @@ export function reportDataOf(
     wetThresholdM: measures.threshold,
     measures,
     chartYear: o.chartYear ?? wettestYear(run),
+    chartYearReason: o.chartYear === undefined ? 'wettest' : 'given',
+    windows: run.scenarios.flatMap((s) =>
+      windowWaterTable(
+        s.spec.name,
+        run.forcing.dates,
+        s.engine.waterTableDepthM,
+        s.annual,
+        measures,
+      ),
+    ),
     balances: run.scenarios.map((s) => ({
       scenario: s.spec.name,
       maxAnnualWaterErrorMm: Math.max(0, ...s.annual.map((r) => Math.abs(r.balance_error_mm))),

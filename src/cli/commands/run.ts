@@ -16,6 +16,7 @@ import { columnIn, toCsv } from '../../io/tables.js';
 import { buildChartSpecs } from '../../report/charts.js';
 import { writeCharts, writeReport } from '../../report/index.js';
 import { cropConditionLines } from '../../report/summary.js';
+import { counted } from '../../report/format.js';
 import { COMPARISON_COLUMNS, type ComparisonRow } from '../../scenarios/compare.js';
 import { comparisonOf, reportDataOf } from '../../scenarios/reportData.js';
 import { readWeatherFile } from '../../io/weather.js';
@@ -140,7 +141,7 @@ export function runReport(
   comparison: ComparisonRow[],
 ): string {
   const lines = [
-    `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
+    `${meta.fieldName}: ${counted(run.scenarios.length, 'scenario')}, ${run.from} to ${run.to} (${counted(run.scenarios[0]?.annual.length ?? 0, 'year')}), reference ET by ${run.refEtMethod}`,
     '',
     headline(comparison, units),
     '',
