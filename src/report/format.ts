@@ -15,6 +15,15 @@ export function fixed(x: number | null, decimals = 1): string {
 }
 
 /**
+ * A count with its noun, singular for exactly one: "1 year", "29 years", "0 scenarios".
+ *
+ * @example counted(1, 'scenario') // '1 scenario'
+ */
+export function counted(n: number, noun: string, plural = `${noun}s`): string {
+  return `${n} ${n === 1 ? noun : plural}`;
+}
+
+/**
  * A change with its sign: "+4.1", "-30.0", "0.0".
  *
  * @example signed(4.08, 1) // '+4.1'

@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto';
 import type { ComparisonRow } from '../scenarios/compare.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import { CHART_CAPTIONS, type ChartName } from './charts.js';
-import { fixed, signed } from './format.js';
+import { counted, fixed, signed } from './format.js';
 import { cropConditionLines, headlineLines } from './summary.js';
 import type { ReportData } from './types.js';
 import { displayUnits, type DisplayUnit } from './units.js';
@@ -109,6 +109,7 @@ tr.group th { text-align: left; font-weight: 600; color: var(--accent); padding-
 thead th.group { text-align: center; border-bottom: 1px solid var(--rule); }
 dl.glossary dt { font-weight: 600; margin-top: 0.6rem; }
 dl.glossary dd { margin: 0.1rem 0 0 1.2rem; }
+.scroll { overflow-x: auto; max-width: 100%; }
 .ok { color: #2c6e2f; }
 .bad { color: var(--warn); font-weight: 600; }
 footer { margin-top: 2.5rem; color: var(--muted); font-size: 0.8rem;
@@ -121,6 +122,7 @@ footer { margin-top: 2.5rem; color: var(--muted); font-size: 0.8rem;
   figure, .cautions, table.keep { break-inside: avoid; }
   thead { display: table-header-group; }
   table.yearly { font-size: 7.5pt; }
+  .scroll { overflow: visible; }
   a { color: inherit; text-decoration: none; }
 }
 `;
@@ -316,7 +318,7 @@ function comparisonTable(data: ReportData): string {
     .join('\n');
   return (
     `<table class="comparison keep" id="comparison-table">` +
-    `<caption>Mean annual figures over ${data.period.years} years; under each, the change against ` +
+    `<caption>Mean annual figures over ${counted(data.period.years, 'year')}; under each, the change against ` +
     `${escapeHtml(data.baseline)} (absolute and percent). Pipe length counts the parallel laterals ` +
     `only (10 000 m/ha divided by the spacing in m); mains and submains are not included.</caption>` +
     `<thead><tr><th scope="col">Measure</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
@@ -404,10 +406,72 @@ function yearlyTable(data: ReportData): string {
     )
     .join('\n');
   return (
-    `<table class="yearly" id="yearly-table"><thead>` +
+    `<div class="scroll"><table class="yearly" id="yearly-table"><thead>` +
     `<tr><th scope="col" rowspan="2">Scenario</th><th scope="col" rowspan="2">Year</th>${top}</tr>` +
-    `<tr>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+    `<tr>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table></div>`
   );
+}
+
+/** The water table in the fieldwork windows: median, 80th percentile, years too wet. */
+function windowTable(data: ReportData): string {
+  const du = displayUnits(data.units);
+  const depth = (x: number) => shown(x, { ...du.length, decimals: 2 });
+  const body = data.windows
+    .map(
+      (w) =>
+        `<tr${w.scenario === data.baseline ? ' class="is-baseline"' : ''}>` +
+        `<th scope="row">${escapeHtml(w.scenario)}</th>` +
+        `<td class="text">${w.window} (${windowText(w)})</td>` +
+        `<td>${depth(w.medianDepthM)}</td><td>${depth(w.p80DepthM)}</td>` +
+        `<td>${w.tooWetYears} of ${w.years}</td></tr>`,
+    )
+    .join('\n');
+  return (
+    `<table class="windows keep" id="window-table"><caption>Water-table depth midway between the ` +
+    `drains on every day of the window over the ${counted(data.period.years, 'year')}; on 80 % of ` +
+    `those days the water table was at the 80th-percentile depth or shallower. Too wet: years ` +
+    `in which fewer than half of the window's days were suitable for fieldwork.</caption>` +
+    `<thead><tr><th scope="col">Scenario</th><th scope="col" class="text">Window</th>` +
+    `<th scope="col">Median depth <span class="unit">(${du.length.label})</span></th>` +
+    `<th scope="col">80th-percentile depth <span class="unit">(${du.length.label})</span></th>` +
+    `<th scope="col">Years too wet for half the window</th></tr></thead>\n<tbody>\n${body}\n</tbody></table>`
+  );
+}
+
+/** What the run compares, from the scenarios themselves: one phrase per alternative. */
+function alternativesText(data: ReportData): { lines: string[]; layout: boolean; outlet: boolean } {
+  const du = displayUnits(data.units);
+  const len = (x: number, d: number) =>
+    `${shown(x, { ...du.length, decimals: d })} ${du.length.label}`;
+  const base = data.scenarios.find((s) => s.name === data.baseline);
+  let layout = false;
+  let outlet = false;
+  const lines = data.scenarios
+    .filter((s) => s.name !== data.baseline)
+    .map((s) => {
+      const parts: string[] = [];
+      if (base && (s.drainDepthM !== base.drainDepthM || s.spacingM !== base.spacingM)) {
+        layout = true;
+        parts.push(
+          `drains ${len(s.drainDepthM, 2)} deep and ${len(s.spacingM, 1)} apart instead of ` +
+            `${len(base.drainDepthM, 2)} and ${len(base.spacingM, 1)}`,
+        );
+      }
+      if (base && s.outlet !== base.outlet) {
+        outlet = true;
+        parts.push(`outlet ${s.outlet} instead of ${base.outlet}`);
+      }
+      return `${s.name}: ${parts.length ? parts.join('; ') : 'the same layout and outlet'}`;
+    });
+  return { lines, layout, outlet };
+}
+
+/** Why the water-table chart shows the year it shows. */
+function chartYearText(data: ReportData): string {
+  return data.chartYearReason === 'given'
+    ? `The daily charts show ${data.chartYear}, the year asked for with --year.`
+    : `The daily charts show ${data.chartYear}, the wettest year of the record (the most ` +
+        `precipitation); choose another with --year.`;
 }
 
 const MONTHS = 'Jan Feb Mar Apr May Jun Jul Aug Sep Oct Nov Dec'.split(' ');
@@ -625,6 +689,7 @@ export function buildReportHtml(
   const others = data.scenarios.filter((s) => s.name !== data.baseline).map((s) => s.name);
   const headline = headlineLines(data.comparison);
   const wetness = cropConditionLines(data.comparison);
+  const alt = alternativesText(data);
   const list = (lines: string[]) =>
     lines.length ? `<ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : '';
   const sections: Array<[id: string, heading: string, body: string]> = [
@@ -634,11 +699,21 @@ export function buildReportHtml(
       `<p>How do ${others.length ? escapeHtml(others.join(', ')) : 'the alternatives'} compare with ` +
         `<strong>${escapeHtml(data.baseline)}</strong> on ${escapeHtml(data.fieldName)} in the water and ` +
         `nitrate-N that leave through the drains, and in how wet the field stays, over the same ` +
-        `${data.period.years} years of weather?</p>` +
-        `<p>Shallower drains set closer together, or a control structure that holds water back at ` +
-        `the outlet outside the cropping season, usually send less water and nitrate downstream; the ` +
-        `price can be a wetter field at planting and harvest. This report puts figures on both ` +
-        `sides of that trade.</p>` +
+        `${counted(data.period.years, 'year')} of weather?</p>` +
+        (alt.lines.length
+          ? `<p>What differs from ${escapeHtml(data.baseline)}:</p>${list(alt.lines)}`
+          : '') +
+        (alt.layout || alt.outlet
+          ? `<p>${[
+              alt.layout ? 'Drains set shallower or closer together' : '',
+              alt.outlet ? 'an outlet held up by a control structure' : '',
+            ]
+              .filter(Boolean)
+              .join(', or ')
+              .replace(/^a/, 'A')} usually send less water and nitrate downstream; the price can ` +
+            `be a wetter field at planting and harvest. This report puts figures on both sides of ` +
+            `that trade.</p>`
+          : '') +
         (headline.length ? `<p>Drain flow and nitrate-N load:</p>${list(headline)}` : '') +
         (wetness.length
           ? `<p id="wetness-summary">How the crop's conditions changed:</p>${list(wetness)}`
@@ -651,7 +726,7 @@ export function buildReportHtml(
         `<tr><th scope="row">Field</th><td class="text">${escapeHtml(data.fieldName)}</td></tr>` +
         `<tr><th scope="row">Weather file</th><td class="text">${escapeHtml(data.weatherFile)}</td></tr>` +
         `<tr><th scope="row">Period</th><td class="text">${escapeHtml(data.period.from)} to ` +
-        `${escapeHtml(data.period.to)} (${data.period.years} years)</td></tr>` +
+        `${escapeHtml(data.period.to)} (${counted(data.period.years, 'year')})</td></tr>` +
         `<tr><th scope="row">Baseline</th><td class="text">${escapeHtml(data.baseline)}</td></tr>` +
         `<tr><th scope="row">Wet threshold</th><td class="text">water table shallower than ` +
         `${shown(data.wetThresholdM, { ...du.length, decimals: 2 })} ${du.length.label}</td></tr>` +
@@ -659,7 +734,14 @@ export function buildReportHtml(
         scenarioTable(data),
     ],
     ['comparison', 'Comparison', comparisonTable(data)],
-    ['charts', 'Charts', chartFigures(names) + NOSCRIPT_CHARTS],
+    ['windows', 'Water table in the fieldwork windows', windowTable(data)],
+    [
+      'charts',
+      'Charts',
+      `<p id="chart-year">${escapeHtml(chartYearText(data))}</p>` +
+        chartFigures(names) +
+        NOSCRIPT_CHARTS,
+    ],
     ['yearly', 'Year by year', yearlyTable(data)],
     ['glossary', 'What the measures mean', glossary(data)],
     ['methods', 'Methods and assumptions', methodsTable(data)],

@@ -5,6 +5,7 @@
  */
 import type { ComparisonRow } from '../scenarios/compare.js';
 import type { WetnessSettings } from '../scenarios/annual.js';
+import type { WindowWaterTable } from '../scenarios/windows.js';
 import type { AnnualRow } from '../scenarios/types.js';
 
 /** Daily series of one scenario, aligned with `ReportData.daily.dates`. */
@@ -43,8 +44,11 @@ export interface ReportData {
   wetThresholdM: number;
   /** Windows and thresholds of the crop measures (the field file's `wetness` section, SI). */
   measures: WetnessSettings;
-  /** Calendar year shown in the water-table chart. */
+  /** Calendar year shown in the water-table chart, and why: the wettest year or the one asked for. */
   chartYear: number;
+  chartYearReason: 'wettest' | 'given';
+  /** The water table in the spring and fall fieldwork windows, two rows per scenario. */
+  windows: WindowWaterTable[];
   balances: Array<{
     scenario: string;
     maxAnnualWaterErrorMm: number;

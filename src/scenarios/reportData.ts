@@ -15,6 +15,7 @@ import {
 import type { AnnualRow } from './types.js';
 import { SEEPAGE_BAND, SEEPAGE_SETTINGS, type SeepageBand } from '../engine/seepage.js';
 import { wetnessSchema } from './fieldSchema.js';
+import { windowWaterTable } from './windows.js';
 import type { RunOutput } from './run.js';
 
 /** The methods behind every number in a run, with their published sources. */
@@ -260,6 +261,16 @@ export function reportDataOf(
     wetThresholdM: measures.threshold,
     measures,
     chartYear: o.chartYear ?? wettestYear(run),
+    chartYearReason: o.chartYear === undefined ? 'wettest' : 'given',
+    windows: run.scenarios.flatMap((s) =>
+      windowWaterTable(
+        s.spec.name,
+        run.forcing.dates,
+        s.engine.waterTableDepthM,
+        s.annual,
+        measures,
+      ),
+    ),
     balances: run.scenarios.map((s) => ({
       scenario: s.spec.name,
       maxAnnualWaterErrorMm: Math.max(0, ...s.annual.map((r) => Math.abs(r.balance_error_mm))),

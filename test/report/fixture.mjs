@@ -168,6 +168,19 @@ export function makeReportData(opts) {
       trafficabilityLimit: 0.85,
     },
     chartYear: fromYear + Math.min(1, years - 1),
+    chartYearReason: 'wettest',
+    windows: scenarios.flatMap((s, i) =>
+      ['spring', 'fall'].map((window) => ({
+        scenario: s.name,
+        window,
+        from: window === 'spring' ? '04-20' : '09-25',
+        to: window === 'spring' ? '05-25' : '11-10',
+        medianDepthM: 0.6 - 0.05 * i,
+        p80DepthM: 0.8 - 0.05 * i,
+        tooWetYears: i,
+        years,
+      })),
+    ),
     balances: scenarios.map((s, i) => ({
       scenario: s.name,
       maxAnnualWaterErrorMm: 1e-9 * (i + 1),

@@ -4,7 +4,7 @@ import { compareScenarios } from '../../src/scenarios/compare.js';
 import { buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
 import { buildReportHtml, escapeHtml, jsonForScript } from '../../src/report/html.js';
 import { cropConditionLines, headlineLines } from '../../src/report/summary.js';
-import { fixed, signed } from '../../src/report/format.js';
+import { counted, fixed, signed } from '../../src/report/format.js';
 import { loadVegaBundles } from '../../src/report/vegaBundles.js';
 import type { ReportData } from '../../src/report/types.js';
 import type { AnnualMeasure } from '../../src/scenarios/types.js';
@@ -95,6 +95,7 @@ describe('report content', () => {
       'question',
       'inputs',
       'comparison',
+      'windows',
       'charts',
       'yearly',
       'glossary',
@@ -181,6 +182,37 @@ describe('report content', () => {
     const table = /<table class="comparison[\s\S]*?<\/table>/.exec(html)![0];
     expect(table).toContain('Spring fieldwork days, of 36 in the window');
     expect(table).toContain('Fall fieldwork days, of 47 in the window');
+  });
+
+  it('the fieldwork windows: median and 80th-percentile depth and years too wet, per scenario', () => {
+    const table = /<table class="windows[\s\S]*?<\/table>/.exec(html)![0];
+    const rows = [...table.matchAll(/<tr[^>]*><th scope="row">[\s\S]*?<\/tr>/g)].map((m) => m[0]);
+    expect(rows).toHaveLength(2 * data.scenarios.length);
+    expect(rows[0]).toContain('spring (20 Apr to 25 May)');
+    expect(rows[0]).toContain('<td>0.60</td><td>0.80</td><td>0 of 3</td>');
+    expect(rows[5]).toContain('fall (25 Sep to 10 Nov)');
+    expect(rows[5]).toContain('<td>0.50</td><td>0.70</td><td>2 of 3</td>');
+  });
+
+  it('explains the chosen year and describes the alternatives actually compared', () => {
+    expect(html).toContain(
+      `The daily charts show ${data.chartYear}, the wettest year of the record`,
+    );
+    const given = buildReportHtml({ ...data, chartYearReason: 'given' }, specs, stub);
+    expect(given).toContain(`show ${data.chartYear}, the year asked for with --year`);
+    const question = /<section id="question">[\s\S]*?<\/section>/.exec(html)![0];
+    expect(question).toMatch(/controlled: outlet [^<]* instead of /);
+    expect(question).not.toMatch(/1 years|1 scenarios/);
+  });
+
+  it('plural rules: one year, two years', () => {
+    expect(counted(1, 'year')).toBe('1 year');
+    expect(counted(2, 'year')).toBe('2 years');
+    expect(counted(0, 'scenario')).toBe('0 scenarios');
+    const one = buildReportHtml({ ...data, period: { ...data.period, years: 1 } }, specs, stub);
+    expect(one).toContain('(1 year)');
+    expect(one).toContain('over the same 1 year of weather');
+    expect(one).not.toMatch(/\b1 years\b/);
   });
 
   it('marks balance closure against 1e-6 mm a year', () => {

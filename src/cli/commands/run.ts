@@ -26,6 +26,7 @@ import {
   rootText,
   seepageText,
 } from '../../scenarios/reportData.js';
+import { counted } from '../../report/format.js';
 import { readWeatherFile } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
@@ -172,7 +173,7 @@ export function runReport(
   comparison: ComparisonRow[],
 ): string {
   const lines = [
-    `${meta.fieldName}: ${run.scenarios.length} scenarios, ${run.from} to ${run.to} (${run.scenarios[0]?.annual.length ?? 0} years), reference ET by ${run.refEtMethod}`,
+    `${meta.fieldName}: ${counted(run.scenarios.length, 'scenario')}, ${run.from} to ${run.to} (${counted(run.scenarios[0]?.annual.length ?? 0, 'year')}), reference ET by ${run.refEtMethod}`,
     '',
     headline(comparison, units),
     '',
