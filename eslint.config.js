@@ -37,7 +37,7 @@ export default tseslint.config(
     },
   },
   {
-    // The core runs in browsers and worker threads too: no Node imports there (DESIGN.md section 3).
+    // The core runs in browsers and worker threads too: no Node imports there: see DEVELOPERS.md, Layout.
     files: [
       'src/climate/**',
       'src/drainage/**',

@@ -83,7 +83,7 @@ describe('tileflux weather check', { timeout: 120_000 }, () => {
     expect(Math.abs(j.precip_mean_mm_yr - totals.reduce((a, b) => a + b) / 30)).toBeLessThanOrEqual(
       0.005,
     );
-    // The invented site is meant to get 850 to 950 mm/yr (issue 2) with snowy winters.
+    // The invented site is meant to get 850 to 950 mm/yr with snowy winters.
     expect(j.precip_mean_mm_yr).toBeGreaterThan(850);
     expect(j.precip_mean_mm_yr).toBeLessThan(950);
     expect(j.snow_share_percent).toBeGreaterThan(5);

@@ -103,7 +103,7 @@ describe('Richardson weather generator', () => {
       const { mean, se } = meanAndSe(totals[m]);
       expect(Math.abs(mean - expected), `month ${m + 1}`).toBeLessThan(4.5 * se);
     }
-    // The invented site is meant to get 850 to 950 mm a year (issue 2).
+    // The invented site is meant to get 850 to 950 mm a year.
     expect(annual).toBeGreaterThan(850);
     expect(annual).toBeLessThan(950);
   });

@@ -25,7 +25,7 @@ describe('fixed model', () => {
   });
 
   it('load = flow x concentration / 100 every day, exactly', () => {
-    // DESIGN.md section 4: load (kg N/ha) = flow (mm) x concentration (mg/L) / 100.
+    // README, Nitrate models: load (kg N/ha) = flow (mm) x concentration (mg/L) / 100.
     let flowDays = 0;
     for (let i = 0; i < input.dates.length; i++) {
       expect(r.loadKgHa[i]).toBe((input.drainflowMm[i] * c) / 100);

@@ -26,7 +26,7 @@ function sum(a: Float64Array, from = 0, to = a.length): number {
 
 describe('pool model: N balance', () => {
   it('closes every calendar year within 1e-6 kg N/ha, from the reported terms', () => {
-    // Balance of a control volume (DESIGN.md section 4 / issue 5): start + fertilizer +
+    // Balance of a control volume (README, Nitrate models): start + fertilizer +
     // mineralization = uptake + denitrification + drain + runoff + seepage N + end. Computed here
     // from the daily series, not from the model's own residual.
     for (const seed of [1, 2, 3]) {
