@@ -23,6 +23,8 @@ export interface RunMeta {
   weatherFile: string;
   weatherSha256: string;
   fieldName: string;
+  /** How the weather file was read, in words (format, station, fills; not in the summary). */
+  weatherSource?: string;
   /** Nitrate ratings fitted to observation files named in the field file, by file name. */
   ratingFits?: Record<string, RatingFit>;
   /** Paths of the input files, which an output folder must never hold (not in the summary). */

@@ -132,6 +132,23 @@ function shown(x: number | null, u: Pick<DisplayUnit, 'factor' | 'decimals'>): s
   return fixed(x === null ? null : x * u.factor, u.decimals);
 }
 
+/**
+ * The climate the comparison holds for, in words and in the report's units, e.g. "precipitation
+ * 880 mm/yr, reference ET 702 mm/yr, mean air temperature 9.3 °C; GHCN-Daily, station X".
+ */
+export function climateText(data: Pick<ReportData, 'climate' | 'units'>): string {
+  const du = displayUnits(data.units);
+  const c = data.climate;
+  const water = (mm: number) => `${shown(mm, du.water)} ${du.water.label}/yr`;
+  const temp =
+    data.units === 'us' ? `${fixed(c.tmeanC * 1.8 + 32, 1)} °F` : `${fixed(c.tmeanC, 1)} °C`;
+  return (
+    `precipitation ${water(c.precipMmPerYr)}, reference ET ${water(c.refEtMmPerYr)}, ` +
+    `mean air temperature ${temp}` +
+    (c.source ? `; ${c.source}` : '')
+  );
+}
+
 const DAYS: DisplayUnit = { factor: 1, label: 'days', decimals: 1 };
 const PERCENT_DECIMALS = 1;
 
@@ -725,6 +742,8 @@ export function buildReportHtml(
       `<table class="keep" id="input-table"><tbody>` +
         `<tr><th scope="row">Field</th><td class="text">${escapeHtml(data.fieldName)}</td></tr>` +
         `<tr><th scope="row">Weather file</th><td class="text">${escapeHtml(data.weatherFile)}</td></tr>` +
+        `<tr><th scope="row">Climate of the period</th><td class="text" id="climate">` +
+        `${escapeHtml(climateText(data))}</td></tr>` +
         `<tr><th scope="row">Period</th><td class="text">${escapeHtml(data.period.from)} to ` +
         `${escapeHtml(data.period.to)} (${counted(data.period.years, 'year')})</td></tr>` +
         `<tr><th scope="row">Baseline</th><td class="text">${escapeHtml(data.baseline)}</td></tr>` +

@@ -26,6 +26,12 @@ export interface ReportData {
   generatedBy: string;
   fieldName: string;
   weatherFile: string;
+  /**
+   * The climate of the compared period, so a reader knows which weather the answer holds for:
+   * means per year of precipitation and reference ET (mm/yr) and the mean air temperature
+   * (degC), and how the file was read (format, station, fills), when known.
+   */
+  climate: { precipMmPerYr: number; refEtMmPerYr: number; tmeanC: number; source?: string };
   /** ISO dates of the first and last day, and the number of years compared. */
   period: { from: string; to: string; years: number };
   baseline: string;

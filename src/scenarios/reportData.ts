@@ -13,6 +13,7 @@ import {
   type ComparisonRow,
 } from './compare.js';
 import type { AnnualRow } from './types.js';
+import type { EngineForcing } from '../engine/types.js';
 import { SEEPAGE_BAND, SEEPAGE_SETTINGS, type SeepageBand } from '../engine/seepage.js';
 import { wetnessSchema } from './fieldSchema.js';
 import { windowWaterTable } from './windows.js';
@@ -216,6 +217,36 @@ export function comparisonColumnsOf(run: RunOutput): readonly string[] {
   return run.seepageBand ? [...COMPARISON_COLUMNS, ...BAND_COLUMNS] : COMPARISON_COLUMNS;
 }
 
+/** Days in a mean Gregorian year, for rates per year over records of any length. */
+const DAYS_PER_YEAR = 365.2425;
+
+/**
+ * The climate of a simulated period: precipitation and reference ET per mean year (totals over
+ * the days divided by days / 365.2425, so a partial year is not counted as a whole one) and the
+ * mean daily air temperature.
+ *
+ * @example climateOf(forcing) // { precipMmPerYr: 880.1, refEtMmPerYr: 702.4, tmeanC: 9.3 }
+ */
+export function climateOf(f: EngineForcing): {
+  precipMmPerYr: number;
+  refEtMmPerYr: number;
+  tmeanC: number;
+} {
+  const n = f.dates.length;
+  let p = 0;
+  let et = 0;
+  let t = 0;
+  for (let i = 0; i < n; i++) {
+    p += f.precipMm[i];
+    et += f.refEtMm[i];
+    t += f.tmeanC[i];
+  }
+  const years = n / DAYS_PER_YEAR;
+  return n
+    ? { precipMmPerYr: p / years, refEtMmPerYr: et / years, tmeanC: t / n }
+    : { precipMmPerYr: NaN, refEtMmPerYr: NaN, tmeanC: NaN };
+}
+
 /**
  * Everything the report needs from a run.
  * @example reportDataOf(run, { fieldName: 'North field', weatherFile: 'w.csv', units: 'si' })
@@ -225,6 +256,8 @@ export function reportDataOf(
   o: {
     fieldName: string;
     weatherFile: string;
+    /** How the weather file was read, in words (format, station, fills), for the report. */
+    weatherSource?: string;
     units: 'si' | 'us';
     chartYear?: number;
     comparison?: ComparisonRow[];
@@ -236,6 +269,7 @@ export function reportDataOf(
     generatedBy: `tileflux ${VERSION}`,
     fieldName: o.fieldName,
     weatherFile: o.weatherFile,
+    climate: { ...climateOf(run.forcing), source: o.weatherSource },
     period: { from: run.from, to: run.to, years: run.scenarios[0]?.annual.length ?? 0 },
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => ({

@@ -109,6 +109,31 @@ describe('tileflux demo', () => {
     expect(html).toContain('Seepage setting');
   });
 
+  it('the report names the climate of the compared period, computed here from the weather file', () => {
+    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    const { from, to } = summary.period;
+    const rows = readFileSync('data-demo/weather.csv', 'utf8')
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((l) => l.split(','))
+      .filter(([d]) => d >= from && d <= to);
+    const years = rows.length / 365.2425;
+    const precip = rows.reduce((t, r) => t + Number(r[1]), 0) / years;
+    // Daily mean air temperature as the mean of maximum and minimum (FAO-56 eq. 9).
+    const tmean = mean(rows.map((r) => (Number(r[2]) + Number(r[3])) / 2));
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    const row = html.match(/<td class="text" id="climate">([^<]*)</)?.[1] ?? '';
+    expect(row).toMatch(
+      /^precipitation (\d+) mm\/yr, reference ET (\d+) mm\/yr, mean air temperature (-?\d+\.\d) °C; tileflux&#39;s own CSV$/,
+    );
+    const [, p, , t] = row.match(
+      /(\d+) mm\/yr, reference ET (\d+) mm\/yr, mean air temperature (-?\d+\.\d)/,
+    )!;
+    expect(Number(p)).toBe(Math.round(precip));
+    expect(Number(t)).toBeCloseTo(tmean, 1);
+  });
+
   it("the report says how the crop's conditions changed, counts beside window lengths", () => {
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     for (const name of ['controlled', 'shallow']) {

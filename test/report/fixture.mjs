@@ -149,6 +149,12 @@ export function makeReportData(opts) {
     generatedBy: 'tileflux 0.1.0',
     fieldName: 'North Willow piece, Brackenfold Farm',
     weatherFile: 'weather/brackenfold-synthetic.csv',
+    climate: {
+      precipMmPerYr: 880,
+      refEtMmPerYr: 700,
+      tmeanC: 10,
+      source: 'GHCN-Daily export, station XX000BRACK, metric units',
+    },
     period: { from: dates[0], to: dates[n - 1], years },
     baseline: scenarios[0].name,
     scenarios: scenarios.map(({ controlled: _c, ...s }) => s),

@@ -241,6 +241,20 @@ describe('report content', () => {
     expect(us).toMatch(/Drain depth <span class="unit">\(ft\)/);
   });
 
+  it('names the climate of the period, in the report units', () => {
+    // SI: the fixture's 880 mm/yr, 700 mm/yr and 10 degC. US: 880 / 25.4 = 34.65 in and
+    // 10 * 9/5 + 32 = 50.0 degF (exact definitions of the inch and the Fahrenheit scale).
+    const row = (h: string) => h.match(/<td class="text" id="climate">([^<]*)</)?.[1];
+    expect(row(html)).toBe(
+      'precipitation 880 mm/yr, reference ET 700 mm/yr, mean air temperature 10.0 °C; ' +
+        'GHCN-Daily export, station XX000BRACK, metric units',
+    );
+    const us = buildReportHtml({ ...data, units: 'us' }, specs, stub);
+    expect(row(us)).toMatch(
+      /^precipitation 34\.65 in\/yr, reference ET 27\.56 in\/yr, mean air temperature 50\.0 °F;/,
+    );
+  });
+
   it('formats changes with a sign and no negative zero', () => {
     expect(signed(4.08)).toBe('+4.1');
     expect(signed(-0.04)).toBe('0.0');

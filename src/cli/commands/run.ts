@@ -27,7 +27,7 @@ import {
   seepageText,
 } from '../../scenarios/reportData.js';
 import { counted } from '../../report/format.js';
-import { readWeatherFile } from '../../io/weather.js';
+import { readWeatherFile, type WeatherReadResult } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
 import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
@@ -105,6 +105,7 @@ export function runFromFiles(
       fieldSha256: sha256(fieldPath),
       weatherFile: basename(o.weather),
       weatherSha256: sha256(o.weather),
+      weatherSource: weatherSourceText(weather),
       fieldName: field.base.name,
       ratingFits: field.ratingFits,
       inputPaths: [
@@ -114,6 +115,18 @@ export function runFromFiles(
       ],
     },
   };
+}
+
+/**
+ * How a weather file was read, in words for the report: the format (with station and units for
+ * public exports) and the days that were filled.
+ *
+ * @example weatherSourceText(read) // "tileflux's own CSV; 3 missing days filled"
+ */
+export function weatherSourceText(r: WeatherReadResult): string {
+  const parts = r.format === 'tileflux' ? ["tileflux's own CSV"] : [...r.notes];
+  if (r.filledDays > 0) parts.push(`${counted(r.filledDays, 'missing day')} filled`);
+  return parts.join('; ');
 }
 
 /**
@@ -251,6 +264,7 @@ export async function writeRunFolder(
       const data = reportDataOf(run, {
         fieldName: meta.fieldName,
         weatherFile: meta.weatherFile,
+        weatherSource: meta.weatherSource,
         units,
         chartYear,
         comparison,
