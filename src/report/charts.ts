@@ -9,6 +9,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import { TilefluxError } from '../errors.js';
+import { inWindow } from '../scenarios/annual.js';
 import type { ReportData } from './types.js';
 import { displayUnits } from './units.js';
 
@@ -23,15 +24,18 @@ export const CHART_NAMES = [
   'monthly',
   'tradeoff',
   'concentration',
+  'duration',
+  'hydrograph',
 ] as const;
 export type ChartName = (typeof CHART_NAMES)[number];
 
 /** One-sentence captions that say what each chart shows and how to read it. */
 export const CHART_CAPTIONS: Readonly<Record<ChartName, string>> = {
   'water-table':
-    'Daily water-table depth midway between the drains in the chosen year. Solid lines: water ' +
-    'table; dashed lines: outlet level in force; dotted line: wet threshold. Higher on the ' +
-    'chart is closer to the surface.',
+    'Daily water-table depth midway between the drains in the chosen year, under the daily ' +
+    'precipitation (bars from the top). Solid lines: water table; dashed lines: outlet level in ' +
+    'force; dotted line: wet threshold; grey bands: the spring and fall fieldwork windows. ' +
+    'Higher on the chart is closer to the surface.',
   cumulative:
     'Drain flow and nitrate-N load added up from the first day of the period (weekly or ' +
     'coarser points). A flatter line sends less downstream.',
@@ -45,6 +49,13 @@ export const CHART_CAPTIONS: Readonly<Record<ChartName, string>> = {
   concentration:
     'Flow-weighted nitrate-N concentration of drain water in each calendar month over the ' +
     'period (total load / total flow).',
+  duration:
+    'Water-table duration curve: the share of growing-season days, over all years, on which ' +
+    'the water table midway between the drains stood at each depth or shallower. A curve ' +
+    'further right at the wet threshold (dotted) means more wet days.',
+  hydrograph:
+    'Daily drain flow in the chosen year, one line per scenario: when the drains run and how ' +
+    'high the peaks are.',
 };
 
 /**
@@ -62,6 +73,9 @@ export const PALETTE = [
   '#2e2e2e',
 ];
 const THRESHOLD_COLOUR = '#8c1c13';
+/** Precipitation bars and the fieldwork-window bands: neutral, so scenario colours stay clear. */
+const RAIN_COLOUR = '#6f8fa8';
+const WINDOW_FILL = '#8a8a8a';
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 export const CHART_WIDTH = 640;
 const WIDTH = CHART_WIDTH;
@@ -153,6 +167,38 @@ function monthOf(iso: string): number {
   return (iso.charCodeAt(5) - 48) * 10 + (iso.charCodeAt(6) - 48) - 1;
 }
 
+/** The ISO date one day after `iso` (UTC). */
+function nextDay(iso: string): string {
+  const t = Date.parse(`${iso}T00:00:00Z`) + 86_400_000;
+  return new Date(t).toISOString().slice(0, 10);
+}
+
+/**
+ * The fieldwork windows of `year` as bands from the first day to the end of the last day; a
+ * window that wraps past the new year gives two bands inside the year.
+ */
+function windowBands(data: ReportData, year: number): Array<Record<string, string>> {
+  const y = String(year).padStart(4, '0');
+  const bands: Array<Record<string, string>> = [];
+  const windows: Array<[string, { from: string; to: string }]> = [
+    ['Spring fieldwork', data.measures.springWindow],
+    ['Fall fieldwork', data.measures.fallWindow],
+  ];
+  for (const [label, w] of windows) {
+    const parts: Array<[string, string]> =
+      w.from <= w.to
+        ? [[w.from, w.to]]
+        : [
+            ['01-01', w.to],
+            [w.from, '12-31'],
+          ];
+    for (const [a, b] of parts) {
+      bands.push({ start: `${y}-${a}`, end: nextDay(`${y}-${b}`), window: label });
+    }
+  }
+  return bands;
+}
+
 export function temporalX(
   format: string,
   title: string | null,
@@ -217,45 +263,100 @@ export function waterTableChart(data: ReportData): TopLevelSpec {
       ],
     },
   };
+  const water = displayUnits(data.units).water;
+  const rain: Array<Record<string, string | number>> = [];
+  for (let i = i0; i < i1; i++) {
+    const p = data.daily.precipMm[i];
+    if (p > 0) {
+      rain.push({ date: dates[i], end: nextDay(dates[i]), precip: roundTo(p * water.factor, 3) });
+    }
+  }
+  const xRain = { ...x, title: null, axis: { ...x.axis, labels: false, ticks: false } };
   return {
     $schema: VEGA_LITE_SCHEMA,
     title: {
       text: `Water-table depth midway between drains, ${data.chartYear}`,
-      subtitle: `${data.fieldName}: wet when shallower than ${threshold} ${u.label}`,
+      subtitle: `${data.fieldName}: wet when shallower than ${threshold} ${u.label}; grey bands: fieldwork windows`,
     },
-    width: WIDTH,
-    height: 280,
     config: CONFIG,
-    layer: [
+    spacing: 4,
+    resolve: { scale: { x: 'shared' } },
+    vconcat: [
       {
-        data: { values: table },
-        transform: line('Water table'),
-        mark: { type: 'line', clip: true },
-        encoding: { x, y, color: scenarioColour(names), strokeDash: dash },
-      },
-      {
-        data: { values: outlet },
-        transform: line('Outlet level'),
-        mark: { type: 'line', interpolate: 'step-after', clip: true, strokeWidth: 1.4 },
-        encoding: { x, y, color: scenarioColour(names), strokeDash: dash },
-      },
-      {
-        data: { values: [{}] },
-        mark: { type: 'rule', color: THRESHOLD_COLOUR, strokeDash: [2, 3], strokeWidth: 1.5 },
-        encoding: { y: { datum: threshold, type: 'quantitative' } },
-      },
-      {
-        data: { values: [{}] },
-        mark: { type: 'text', align: 'left', baseline: 'bottom', dx: 4, dy: -3, fontSize: 10 },
+        width: WIDTH,
+        height: 60,
+        data: { values: rain },
+        mark: { type: 'bar', color: RAIN_COLOUR, clip: true },
         encoding: {
-          x: { value: 0 },
-          y: { datum: threshold, type: 'quantitative' },
-          text: { value: `Wet threshold ${threshold} ${u.label}` },
-          color: { value: THRESHOLD_COLOUR },
+          x: xRain,
+          x2: { field: 'end' },
+          y: {
+            field: 'precip',
+            type: 'quantitative',
+            title: [`Precipitation`, `(${water.label}/d)`],
+            // Bars hang from the top, as in a hydrograph.
+            scale: { reverse: true, zero: true, nice: true },
+            axis: { tickCount: 3 },
+          },
         },
       },
+      {
+        width: WIDTH,
+        height: 280,
+        layer: [
+          {
+            data: { values: windowBands(data, data.chartYear) },
+            mark: { type: 'rect', color: WINDOW_FILL, opacity: 0.14 },
+            encoding: { x: { ...x, field: 'start' }, x2: { field: 'end' } },
+          },
+          {
+            data: { values: windowBands(data, data.chartYear) },
+            mark: { type: 'text', align: 'left', baseline: 'top', dx: 3, dy: 3, fontSize: 10 },
+            encoding: {
+              x: { ...x, field: 'start' },
+              y: { value: 0 },
+              text: { field: 'window' },
+              color: { value: '#4a4a4a' },
+            },
+          },
+          {
+            data: { values: table },
+            transform: line('Water table'),
+            mark: { type: 'line', clip: true },
+            encoding: { x, y, color: scenarioColour(names), strokeDash: dash },
+          },
+          {
+            data: { values: outlet },
+            transform: line('Outlet level'),
+            mark: { type: 'line', interpolate: 'step-after', clip: true, strokeWidth: 1.4 },
+            encoding: { x, y, color: scenarioColour(names), strokeDash: dash },
+          },
+          {
+            data: { values: [{}] },
+            mark: { type: 'rule', color: THRESHOLD_COLOUR, strokeDash: [2, 3], strokeWidth: 1.5 },
+            encoding: { y: { datum: threshold, type: 'quantitative' } },
+          },
+          {
+            data: { values: [{}] },
+            mark: {
+              type: 'text',
+              align: 'right',
+              baseline: 'bottom',
+              dx: -4,
+              dy: -4,
+              fontSize: 10,
+            },
+            encoding: {
+              x: { value: WIDTH },
+              y: { datum: threshold, type: 'quantitative' },
+              text: { value: `Wet threshold ${threshold} ${u.label}` },
+              color: { value: THRESHOLD_COLOUR },
+            },
+          },
+        ],
+      },
     ],
-  };
+  } as TopLevelSpec;
 }
 
 /**
@@ -568,6 +669,125 @@ export function concentrationChart(data: ReportData): TopLevelSpec {
   };
 }
 
+/** Points of a duration curve: at most this many per scenario (plus the deepest day). */
+const DURATION_POINTS = 200;
+
+/**
+ * Water-table duration curve over the growing-season days of every year: for each scenario,
+ * points (depth d, share of those days with the water table at depth d or shallower, %), an
+ * empirical distribution thinned to about 200 points. Each point sits at the last of equal
+ * depths, so its share is exactly the count of days no deeper than it.
+ *
+ * @example durationChart(data).layer.length // 2
+ */
+export function durationChart(data: ReportData): TopLevelSpec {
+  const u = displayUnits(data.units).length;
+  const names = scenarioNames(data);
+  const dates = data.daily.dates;
+  const season = data.measures.growingSeason;
+  const inSeason: number[] = [];
+  for (let i = 0; i < dates.length; i++)
+    if (inWindow(dates[i].slice(5, 10), season)) inSeason.push(i);
+  const n = inSeason.length;
+  const values: Array<Record<string, string | number>> = [];
+  for (const name of names) {
+    const wt = dailySeries(data, name).waterTableDepthM;
+    const sorted = Float64Array.from(inSeason, (i) => wt[i]).sort();
+    let last = -1;
+    for (let k = 1; k <= DURATION_POINTS && n > 0; k++) {
+      let idx = Math.ceil((k / DURATION_POINTS) * n) - 1;
+      while (idx + 1 < n && sorted[idx + 1] === sorted[idx]) idx++;
+      if (idx === last) continue;
+      last = idx;
+      values.push({
+        scenario: name,
+        depth: roundTo(sorted[idx] * u.factor, 4),
+        share: roundTo((100 * (idx + 1)) / n, 3),
+      });
+    }
+  }
+  const threshold = roundTo(data.wetThresholdM * u.factor, 3);
+  return {
+    $schema: VEGA_LITE_SCHEMA,
+    title: {
+      text: 'How often the water table stands high in the growing season',
+      subtitle:
+        `${data.fieldName}: growing season ${season.from} to ${season.to}, ` +
+        `${data.period.from} to ${data.period.to}`,
+    },
+    width: WIDTH,
+    height: 260,
+    config: CONFIG,
+    layer: [
+      {
+        data: { values },
+        mark: { type: 'line', interpolate: 'step-after' },
+        encoding: {
+          x: {
+            field: 'depth',
+            type: 'quantitative',
+            title: `Water-table depth below surface (${u.label})`,
+            scale: { zero: true, nice: true },
+          },
+          y: {
+            field: 'share',
+            type: 'quantitative',
+            title: ['Share of growing-season days', 'at this depth or shallower (%)'],
+            scale: { domain: [0, 100] },
+          },
+          color: scenarioColour(names),
+        },
+      },
+      {
+        data: { values: [{}] },
+        mark: { type: 'rule', color: THRESHOLD_COLOUR, strokeDash: [2, 3], strokeWidth: 1.5 },
+        encoding: { x: { datum: threshold, type: 'quantitative' } },
+      },
+    ],
+  };
+}
+
+/**
+ * Daily drain flow through `data.chartYear`, one line per scenario.
+ *
+ * @example hydrographChart(data).mark // { type: 'line', ... }
+ */
+export function hydrographChart(data: ReportData): TopLevelSpec {
+  const water = displayUnits(data.units).water;
+  const names = scenarioNames(data);
+  const dates = data.daily.dates;
+  const [i0, i1] = yearRange(dates, data.chartYear);
+  const values: Array<Record<string, string | number>> = [];
+  for (const name of names) {
+    const q = dailySeries(data, name).drainflowMm;
+    for (let i = i0; i < i1; i++) {
+      values.push({ date: dates[i], scenario: name, flow: roundTo(q[i] * water.factor, 4) });
+    }
+  }
+  return {
+    $schema: VEGA_LITE_SCHEMA,
+    title: {
+      text: `Daily drain flow, ${data.chartYear}`,
+      subtitle: `${data.fieldName}: depth of water per day over the drained area`,
+    },
+    width: WIDTH,
+    height: 240,
+    config: CONFIG,
+    data: { values },
+    mark: { type: 'line', strokeWidth: 1.4 },
+    encoding: {
+      x: temporalX('%b', `Date (${data.chartYear})`, { interval: 'month', step: 1 }),
+      y: {
+        field: 'flow',
+        type: 'quantitative',
+        title: `Drain flow (${water.label}/d)`,
+        scale: { zero: true },
+      },
+      color: scenarioColour(names),
+    },
+  };
+}
+
 const BUILDERS: Readonly<Record<ChartName, (data: ReportData) => TopLevelSpec>> = {
   'water-table': waterTableChart,
   cumulative: cumulativeChart,
@@ -575,6 +795,8 @@ const BUILDERS: Readonly<Record<ChartName, (data: ReportData) => TopLevelSpec>> 
   monthly: monthlyChart,
   tradeoff: tradeoffChart,
   concentration: concentrationChart,
+  duration: durationChart,
+  hydrograph: hydrographChart,
 };
 
 /**

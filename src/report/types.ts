@@ -45,7 +45,8 @@ export interface ReportData {
   }>;
   comparison: ComparisonRow[];
   annual: AnnualRow[];
-  daily: { dates: string[]; series: ScenarioDailySeries[] };
+  /** Daily dates, precipitation (mm/d, rain and snowfall as water) and each scenario's series. */
+  daily: { dates: string[]; precipMm: Float64Array; series: ScenarioDailySeries[] };
   /** Water table shallower than this depth counts as wet, m. */
   wetThresholdM: number;
   /** Windows and thresholds of the crop measures (the field file's `wetness` section, SI). */

@@ -283,6 +283,7 @@ export function reportDataOf(
     annual: run.scenarios.flatMap((s) => s.annual),
     daily: {
       dates: run.forcing.dates,
+      precipMm: run.forcing.precipMm,
       series: run.scenarios.map((s) => ({
         scenario: s.spec.name,
         waterTableDepthM: s.engine.waterTableDepthM,

@@ -26,11 +26,19 @@ const data = makeReportData({ years: 3, compareScenarios }) as ReportData;
 const specs = buildChartSpecs(data);
 
 type Row = Record<string, number | string>;
-/** The inline values of a spec (top level or of its first layer). */
+/** The inline values of a spec (top level or of one of its layers). */
 function valuesOf(spec: unknown, layer?: number): Row[] {
   const s = spec as { data?: { values: Row[] }; layer?: Array<{ data?: { values: Row[] } }> };
   return (layer === undefined ? s.data : s.layer![layer].data)!.values;
 }
+
+/** The water-table chart's two panels: precipitation bars above, the water table below. */
+function waterTablePanels(spec: unknown) {
+  const [rain, table] = (spec as { vconcat: [unknown, unknown] }).vconcat;
+  return { rain, table };
+}
+/** Layers of the water-table panel, in drawing order. */
+const WT = { bands: 0, bandLabels: 1, line: 2, outlet: 3, threshold: 4 } as const;
 
 function compileWarnings(spec: TopLevelSpec): string[] {
   const warnings: string[] = [];
@@ -70,8 +78,9 @@ describe('chart specs', () => {
     const again = buildChartSpecs(makeReportData({ years: 3, compareScenarios }) as ReportData);
     expect(JSON.stringify(again)).toBe(JSON.stringify(specs));
     const big = buildChartSpecs(makeReportData({ years: 30, compareScenarios }) as ReportData);
-    // Budget of our own: a 30-year, 3-scenario report carries under 300 kB of chart data.
-    expect(JSON.stringify(big).length).toBeLessThan(300_000);
+    // Budget of our own: a 30-year, 3-scenario report carries under 50 kB of chart data per
+    // chart on average (400 kB for the eight charts).
+    expect(JSON.stringify(big).length).toBeLessThan(50_000 * CHART_NAMES.length);
   });
 });
 
@@ -83,12 +92,12 @@ describe('chart content equals figures computed here from the fixture', () => {
     .filter(([d]) => d.startsWith(`${data.chartYear}-`));
 
   it('water table: the chosen year only, depth axis reversed, outlet steps and threshold', () => {
-    const spec = specs['water-table'] as unknown as {
+    const spec = waterTablePanels(specs['water-table']).table as {
       layer: Array<{ encoding: { y: { scale?: { reverse?: boolean }; datum?: number } } }>;
     };
-    expect(spec.layer[0].encoding.y.scale?.reverse).toBe(true);
-    expect(spec.layer[2].encoding.y.datum).toBe(data.wetThresholdM);
-    const wt = valuesOf(spec, 0);
+    expect(spec.layer[WT.line].encoding.y.scale?.reverse).toBe(true);
+    expect(spec.layer[WT.threshold].encoding.y.datum).toBe(data.wetThresholdM);
+    const wt = valuesOf(spec, WT.line);
     expect(wt.length).toBe(inYear.length * names.length);
     const s0 = data.daily.series[0];
     for (const r of wt.filter((r) => r.scenario === names[0])) {
@@ -96,12 +105,80 @@ describe('chart content equals figures computed here from the fixture', () => {
       expect(r.depth).toBeCloseTo(s0.waterTableDepthM[i], 3);
     }
     // Expanding the outlet steps (step-after) gives back the daily outlet depth of every day.
-    const steps = valuesOf(spec, 1);
+    const steps = valuesOf(spec, WT.outlet);
     for (const [k, name] of names.entries()) {
       const mine = steps.filter((r) => r.scenario === name);
       for (const [d, i] of inYear) {
         const last = mine.filter((r) => (r.date as string) <= d).pop()!;
         expect(last.depth, `${name} ${d}`).toBeCloseTo(data.daily.series[k].outletDepthM[i], 6);
+      }
+    }
+  });
+
+  it('water table: precipitation bars of each wet day of the year, one day wide', () => {
+    const rain = valuesOf(waterTablePanels(specs['water-table']).rain);
+    const wetDays = inYear.filter(([, i]) => data.daily.precipMm[i] > 0);
+    expect(rain.map((r) => r.date)).toEqual(wetDays.map(([d]) => d));
+    for (const r of rain) {
+      const i = dates.indexOf(r.date as string);
+      expect(r.precip).toBeCloseTo(data.daily.precipMm[i], 3);
+      expect(Date.parse(r.end as string) - Date.parse(r.date as string)).toBe(86_400_000);
+    }
+  });
+
+  it("water table: the fieldwork windows of the field's measures shaded, end day included", () => {
+    const table = waterTablePanels(specs['water-table']).table;
+    // The fixture's windows: 20 Apr - 25 May and 25 Sep - 10 Nov.
+    const y = data.chartYear;
+    expect(valuesOf(table, WT.bands)).toEqual([
+      { start: `${y}-04-20`, end: `${y}-05-26`, window: 'Spring fieldwork' },
+      { start: `${y}-09-25`, end: `${y}-11-11`, window: 'Fall fieldwork' },
+    ]);
+    // A window across the new year is two bands inside the year.
+    const wrapped = waterTableChart({
+      ...data,
+      measures: { ...data.measures, fallWindow: { from: '12-01', to: '01-15' } },
+    });
+    expect(valuesOf(waterTablePanels(wrapped).table, WT.bands).slice(1)).toEqual([
+      { start: `${y}-01-01`, end: `${y}-01-16`, window: 'Fall fieldwork' },
+      { start: `${y}-12-01`, end: `${y + 1}-01-01`, window: 'Fall fieldwork' },
+    ]);
+  });
+
+  it('duration curve: each point is the share of growing-season days no deeper, counted here', () => {
+    // The fixture's growing season is 1 Apr - 31 Oct, every year.
+    const season = dates
+      .map((d, i) => [d.slice(5, 10), i] as const)
+      .filter(([md]) => md >= '04-01' && md <= '10-31')
+      .map(([, i]) => i);
+    const rows = valuesOf(specs.duration, 0);
+    for (const [k, name] of names.entries()) {
+      const wt = season.map((i) => data.daily.series[k].waterTableDepthM[i]);
+      const mine = rows.filter((r) => r.scenario === name);
+      expect(mine.length).toBeGreaterThan(50);
+      expect(mine.at(-1)!.share).toBe(100);
+      expect(mine.at(-1)!.depth).toBeCloseTo(Math.max(...wt), 4);
+      for (const r of mine) {
+        // Depths are rounded to 0.1 mm: count the days no deeper than the point's depth.
+        const atMost = wt.filter((d) => d <= (r.depth as number) + 5e-5).length;
+        const below = wt.filter((d) => d < (r.depth as number) - 5e-5).length;
+        const share = r.share as number;
+        expect(share, `${name} at ${r.depth}`).toBeGreaterThan((100 * below) / wt.length);
+        expect(share, `${name} at ${r.depth}`).toBeLessThanOrEqual(
+          (100 * atMost) / wt.length + 1e-3,
+        );
+      }
+    }
+  });
+
+  it('hydrograph: the daily drain flow of the chosen year, every day of every scenario', () => {
+    const rows = valuesOf(specs.hydrograph);
+    expect(rows.length).toBe(inYear.length * names.length);
+    for (const [k, name] of names.entries()) {
+      const mine = rows.filter((r) => r.scenario === name);
+      expect(mine.map((r) => r.date)).toEqual(inYear.map(([d]) => d));
+      for (const [j, [, i]] of inYear.entries()) {
+        expect(mine[j].flow).toBeCloseTo(data.daily.series[k].drainflowMm[i], 4);
       }
     }
   });
@@ -177,12 +254,25 @@ describe('chart content equals figures computed here from the fixture', () => {
     expect(usRows[0].flow).toBeCloseTo((si[0].flow as number) / 25.4, 2);
     // 1 kg/ha = 0.892179 lb/ac (NIST HB 44 definitions of the pound and the acre).
     expect(usRows[0].load).toBeCloseTo((si[0].load as number) * 0.892179, 2);
-    const wt = valuesOf(us['water-table'], 0);
+    const wt = valuesOf(waterTablePanels(us['water-table']).table, WT.line);
     expect(wt[0].depth).toBeCloseTo(
       data.daily.series[0].waterTableDepthM[inYear[0][1]] / 0.3048,
       2,
     );
     expect(JSON.stringify(us.annual)).toContain('in/yr');
+    const rain = valuesOf(waterTablePanels(us['water-table']).rain);
+    const i = dates.indexOf(rain[0].date as string);
+    expect(rain[0].precip).toBeCloseTo(data.daily.precipMm[i] / 25.4, 3);
+    expect(valuesOf(us.hydrograph)[0].flow).toBeCloseTo(
+      data.daily.series[0].drainflowMm[inYear[0][1]] / 25.4,
+      4,
+    );
+    expect(valuesOf(us.duration, 0).at(-1)!.depth).toBeCloseTo(
+      (valuesOf(specs.duration, 0)
+        .filter((r) => r.scenario === names[0])
+        .at(-1)!.depth as number) / 0.3048,
+      3,
+    );
   });
 
   it('rejects a chart year outside the weather period, naming the period', () => {

@@ -63,11 +63,13 @@ export function makeReportData(opts) {
   // Shared weather signal: a rain-driven wetness index that decays, so every scenario sees the
   // same wet and dry spells.
   const wetness = new Float64Array(n);
+  const precipMm = new Float64Array(n);
   let w = 0.5;
   for (let i = 0; i < n; i++) {
     const doy = Number(dates[i].slice(5, 7)) * 30.4 + Number(dates[i].slice(8, 10));
     const season = 0.5 + 0.5 * Math.cos((2 * Math.PI * (doy - 90)) / 365);
     const rain = rand() < 0.3 ? rand() * 25 : 0;
+    precipMm[i] = rain;
     w = Math.min(1, Math.max(0, w * 0.93 + 0.006 * rain + 0.03 * season - 0.01));
     wetness[i] = w;
   }
@@ -160,7 +162,7 @@ export function makeReportData(opts) {
     scenarios: scenarios.map(({ controlled: _c, ...s }) => s),
     comparison,
     annual,
-    daily: { dates, series },
+    daily: { dates, precipMm, series },
     wetThresholdM,
     // Not the field-file defaults, so a report that printed defaults instead would be caught.
     measures: {
