@@ -337,7 +337,8 @@ function comparisonTable(data: ReportData): string {
     `<table class="comparison keep" id="comparison-table">` +
     `<caption>Mean annual figures over ${counted(data.period.years, 'year')}; under each, the change against ` +
     `${escapeHtml(data.baseline)} (absolute and percent). Pipe length counts the parallel laterals ` +
-    `only (10 000 m/ha divided by the spacing in m); mains and submains are not included.</caption>` +
+    `only (${data.units === 'us' ? '43 560 ft²/ac divided by the spacing in ft' : '10 000 m²/ha divided by the spacing in m'}); ` +
+    `mains and submains are not included.</caption>` +
     `<thead><tr><th scope="col">Measure</th>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table>`
   );
 }
@@ -599,20 +600,21 @@ function closed(x: number, tol: number): string {
 }
 
 function balanceTable(data: ReportData): string {
+  const du = displayUnits(data.units);
   const body = data.balances
     .map(
       (b) =>
         `<tr><th scope="row">${escapeHtml(b.scenario)}</th>` +
-        `<td>${b.maxAnnualWaterErrorMm.toExponential(1)}</td><td>${closed(b.maxAnnualWaterErrorMm, BALANCE_TOLERANCE.waterMm)}</td>` +
-        `<td>${b.maxAnnualNitrogenErrorKgHa.toExponential(1)}</td>` +
+        `<td>${(b.maxAnnualWaterErrorMm * du.water.factor).toExponential(1)}</td><td>${closed(b.maxAnnualWaterErrorMm, BALANCE_TOLERANCE.waterMm)}</td>` +
+        `<td>${(b.maxAnnualNitrogenErrorKgHa * du.load.factor).toExponential(1)}</td>` +
         `<td>${closed(b.maxAnnualNitrogenErrorKgHa, BALANCE_TOLERANCE.nitrogenKgHa)}</td></tr>`,
     )
     .join('\n');
   return (
     `<table class="balances keep" id="balance-table"><thead><tr><th scope="col">Scenario</th>` +
-    `<th scope="col">Largest annual water-balance residual <span class="unit">(mm)</span></th>` +
+    `<th scope="col">Largest annual water-balance residual <span class="unit">(${du.water.label})</span></th>` +
     `<th scope="col">Water</th>` +
-    `<th scope="col">Largest annual nitrogen-balance residual <span class="unit">(kg N/ha)</span></th>` +
+    `<th scope="col">Largest annual nitrogen-balance residual <span class="unit">(${du.load.label})</span></th>` +
     `<th scope="col">Nitrogen</th></tr></thead>\n<tbody>\n${body}\n</tbody></table>`
   );
 }
@@ -769,8 +771,8 @@ export function buildReportHtml(
       'Water and nitrogen balance closure',
       `<p>Every run checks that precipitation equals evapotranspiration, runoff, drain flow, ` +
         `seepage and the change in storage. The table gives the largest annual residual of each ` +
-        `scenario; a residual within ${BALANCE_TOLERANCE.waterMm.toExponential(0)} mm ` +
-        `(${BALANCE_TOLERANCE.nitrogenKgHa.toExponential(0)} kg N/ha for nitrogen) counts as closed.</p>` +
+        `scenario; a residual within ${(BALANCE_TOLERANCE.waterMm * du.water.factor).toExponential(0)} ${du.water.label} ` +
+        `(${(BALANCE_TOLERANCE.nitrogenKgHa * du.load.factor).toExponential(0)} ${du.load.label} for nitrogen) counts as closed.</p>` +
         balanceTable(data),
     ],
     ['cautions', 'Cautions', cautionList(CAUTIONS)],

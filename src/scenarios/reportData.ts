@@ -2,6 +2,9 @@
  * From a run to what the report and the charts need: the comparison table, the daily series of
  * each scenario, balance closure, and the methods with their sources.
  */
+import { MIN_ROOT_DEPTH_M } from '../engine/crops.js';
+import { proseUnits } from '../units/prose.js';
+import { US, type UnitSystem } from '../units/quantity.js';
 import type { ReportData } from '../report/types.js';
 import { ET_METHOD_SOURCE, HARGREAVES_BIAS } from '../climate/referenceEt.js';
 import { VERSION } from '../version.js';
@@ -20,7 +23,7 @@ import { windowWaterTable } from './windows.js';
 import type { RunOutput } from './run.js';
 
 /** The methods behind every number in a run, with their published sources. */
-export function methodsOf(run: RunOutput): ReportData['methods'] {
+export function methodsOf(run: RunOutput, units: UnitSystem = 'si'): ReportData['methods'] {
   const models = [...new Set(run.scenarios.map((s) => s.spec.nitrate.model))];
   const ratings = run.scenarios.filter((s) => s.spec.nitrate.model === 'rating');
   const ratingNote = ratings.map((s) => {
@@ -66,13 +69,13 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
     },
     {
       topic: 'Seepage',
-      text: `${seepageText(run)} Every scenario is also run under the low, medium and high settings; the changes against the baseline under low and high are given beside each change (the seepage band).`,
+      text: `${seepageText(run, units)} Every scenario is also run under the low, medium and high settings; the changes against the baseline under low and high are given beside each change (the seepage band).`,
       source:
         "Leaky-layer leakage q = K'/b' x head difference (Darcy); Dupuit-Forchheimer flow to the field edge; till conductivities after Freeze & Cherry (1979), from memory",
     },
     {
       topic: 'Roots and pipe capacity',
-      text: `${rootText(run)} Drain flow is capped at ${capacityText(run)}.`,
+      text: `${rootText(run, units)} Drain flow is capped at ${capacityText(run, units)}.`,
       source:
         'FAO-56 Table 22 and chapter 8 (Allen et al. 1998); drainage-coefficient tables for humid areas (common practice, from memory)',
     },
@@ -99,48 +102,52 @@ export function methodsOf(run: RunOutput): ReportData['methods'] {
   return methods;
 }
 
-/** What a run assumed about seepage, in words (the first scenario's setting). */
-export function seepageText(run: RunOutput): string {
+/** What a run assumed about seepage, in words (the first scenario's setting), in `units`. */
+export function seepageText(run: RunOutput, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
+  const say = proseUnits(units);
   const { name, setting } = s.seepage;
   const parts: string[] = [];
   if (setting.vertical) {
     parts.push(
-      `vertical leakage to a regional head ${setting.vertical.to} m below the surface with leakance ${setting.vertical.conductance.toExponential(2)} /d`,
+      `vertical leakage to a regional head ${say.length(setting.vertical.to)} below the surface with leakance ${setting.vertical.conductance.toExponential(2)} /d`,
     );
   }
   if (setting.lateral) {
     const k = setting.lateral.conductivity ?? s.params.kAboveMPerDay;
     parts.push(
-      `lateral seepage to an edge ${setting.lateral.distance} m from the field's middle with water ${setting.lateral.level} m deep (K ${k} m/d)`,
+      `lateral seepage to an edge ${say.length(setting.lateral.distance, units === 'us' ? 0 : undefined)} from the field's middle with water ${say.length(setting.lateral.level)} deep (K ${say.conductivity(k)})`,
     );
   }
+  const perHead = units === 'us' ? 'in/d per ft' : 'mm/d per m';
+  const headScale = units === 'us' ? US.mPerFt / US.mmPerIn : 1;
   const extra =
     s.params.seepageMmPerDay > 0 || s.params.seepageConductanceMmPerDayPerM > 0
-      ? `; plus ${s.params.seepageMmPerDay} mm/d and ${s.params.seepageConductanceMmPerDayPerM} mm/d per m of head above the restrictive layer (soil.seepage, soil.seepageConductance)`
+      ? `; plus ${say.rate(s.params.seepageMmPerDay)} and ${+(s.params.seepageConductanceMmPerDayPerM * headScale).toPrecision(3)} ${perHead} of head above the restrictive layer (soil.seepage, soil.seepageConductance)`
       : '';
   return `Seepage setting "${name}": ${parts.length ? parts.join('; ') : 'no seepage'}${extra}.`;
 }
 
-/** The rooting depth a run assumed, in words. */
-export function rootText(run: RunOutput): string {
+/** The rooting depth a run assumed, in words, in `units`. */
+export function rootText(run: RunOutput, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
+  const say = proseUnits(units);
   if (s.roots.fixedM !== undefined)
-    return `Root zone ${s.roots.fixedM} m all year (soil.rootZoneDepth).`;
+    return `Root zone ${say.length(s.roots.fixedM)} all year (soil.rootZoneDepth).`;
   const crops = [...new Set(s.rotation)]
-    .map((c) => `${c} ${Math.min(s.crops[c].maxRootDepth, s.roots.capM ?? Infinity)} m`)
+    .map((c) => `${c} ${say.length(Math.min(s.crops[c].maxRootDepth, s.roots.capM ?? Infinity))}`)
     .join(', ');
-  return `Roots grow from 0.15 m at planting to the crop's maximum at the start of mid-season (${crops}; capped by the restrictive layer).`;
+  return `Roots grow from ${say.length(MIN_ROOT_DEPTH_M)} at planting to the crop's maximum at the start of mid-season (${crops}; capped by the restrictive layer).`;
 }
 
-/** The pipe capacity a run assumed, in words. */
-export function capacityText(run: RunOutput): string {
+/** The pipe capacity a run assumed, in words, in `units`. */
+export function capacityText(run: RunOutput, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
   const c = s.params.capacityMmPerDay;
-  return Number.isFinite(c) ? `${c.toFixed(1)} mm/d (${s.capacitySource})` : 'no limit';
+  return Number.isFinite(c) ? `${proseUnits(units).rate(c)} (${s.capacitySource})` : 'no limit';
 }
 
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */
@@ -314,7 +321,7 @@ export function reportDataOf(
         ...s.annual.map((r) => Math.abs(r.n_balance_error_kg_ha)),
       ),
     })),
-    methods: methodsOf(run),
+    methods: methodsOf(run, o.units),
     units: o.units,
   };
 }

@@ -3,6 +3,8 @@
  * calendar inputs, the outlet schedule and the nitrate model of each scenario. When the field
  * file names no scenarios, the three standard alternatives are derived from the base field.
  */
+import { proseUnits, type Prose } from '../units/prose.js';
+import type { UnitSystem } from '../units/quantity.js';
 import { equivalentDepth } from '../drainage/equivalentDepth.js';
 import { hooghoudtSpacing } from '../drainage/hooghoudt.js';
 import { manningFullCapacity } from '../drainage/manning.js';
@@ -61,14 +63,14 @@ export function drainageIntensityOf(f: Field): number {
   );
 }
 
-/** The outlet schedule of a field, in engine form, and its label. */
-function outletOf(f: Field): { outlet: OutletSchedule; label: string } {
+/** The outlet schedule of a field, in engine form, and its label in the given units. */
+function outletOf(f: Field, say: Prose): { outlet: OutletSchedule; label: string } {
   const o = f.outlet;
   if (o === 'free') return { outlet: 'free', label: 'free outlet' };
   const list = 'schedule' in o ? o.schedule : o.dates;
   const steps = list.map((s) => ({ from: s.from, depthM: s.depth === 'free' ? null : s.depth }));
   const label = steps
-    .map((s) => `${s.depthM === null ? 'free' : `${s.depthM.toFixed(2)} m`} from ${s.from}`)
+    .map((s) => `${s.depthM === null ? 'free' : say.length(s.depthM, 2)} from ${s.from}`)
     .join(', ');
   return { outlet: { steps }, label: `controlled: ${label}` };
 }
@@ -165,9 +167,17 @@ function cropsOf(f: Field): Record<string, CropParams> {
   return out;
 }
 
-/** Resolve one full field into a runnable scenario. */
-export function scenarioOf(name: string, description: string, f: Field): ScenarioSpec {
-  const { outlet, label } = outletOf(f);
+/**
+ * Resolve one full field into a runnable scenario; its outlet label is written in `units`
+ * (SI by default).
+ */
+export function scenarioOf(
+  name: string,
+  description: string,
+  f: Field,
+  units: UnitSystem = 'si',
+): ScenarioSpec {
+  const { outlet, label } = outletOf(f, proseUnits(units));
   return {
     name,
     description,
@@ -193,7 +203,8 @@ export function scenarioOf(name: string, description: string, f: Field): Scenari
  * - controlled: the base layout with the outlet held 0.30 m below the surface from 1 November to
  *   1 April (after harvest to before planting; common practice for winter water management).
  */
-export function standardScenarios(base: Field): ScenarioSpec[] {
+export function standardScenarios(base: Field, units: UnitSystem = 'si'): ScenarioSpec[] {
+  const say = proseUnits(units);
   const intensity = drainageIntensityOf(base);
   const depth = Math.min(SHALLOW_DEPTH_M, 0.75 * base.drains.depth);
   const kBelow = base.soil.conductivityBelowDrains ?? base.soil.conductivity;
@@ -218,22 +229,24 @@ export function standardScenarios(base: Field): ScenarioSpec[] {
       ],
     },
   };
-  const mm = (x: number) => `${(x * 1000).toFixed(1)} mm/d`;
   return [
     scenarioOf(
       'conventional',
-      `drains as given: ${base.drains.depth} m deep, ${base.drains.spacing} m apart, free outlet`,
+      `drains as given: ${say.length(base.drains.depth)} deep, ${say.length(base.drains.spacing)} apart, free outlet`,
       base,
+      units,
     ),
     scenarioOf(
       'shallow',
-      `drains ${depth.toFixed(2)} m deep, ${spacing} m apart: same drainage intensity (${mm(intensity)}) as conventional`,
+      `drains ${say.length(depth, 2)} deep, ${say.length(spacing)} apart: same drainage intensity (${say.rate(intensity * 1000)}) as conventional`,
       shallow,
+      units,
     ),
     scenarioOf(
       'controlled',
-      `conventional layout, outlet held ${depthM} m below the surface ${raise} to ${lower}`,
+      `conventional layout, outlet held ${say.length(depthM)} below the surface ${raise} to ${lower}`,
       controlled,
+      units,
     ),
   ];
 }

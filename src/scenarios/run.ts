@@ -3,6 +3,7 @@
  * the crop calendar, the outlet schedule, the daily water-balance engine, the nitrate model and
  * the annual table. Pure: the caller reads files and writes outputs.
  */
+import type { UnitSystem } from '../units/quantity.js';
 import { TilefluxError } from '../errors.js';
 import type { EtMethod } from '../climate/referenceEt.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
@@ -25,6 +26,8 @@ export interface RunOptions extends PeriodOptions {
    * seepage band of the changes against the baseline. Cheap: the forcing is shared.
    */
   seepageBand?: boolean;
+  /** Units of the scenario descriptions and outlet labels (text only; results stay SI). */
+  units?: UnitSystem;
 }
 
 /** One scenario's results over the reported period. */
@@ -66,10 +69,14 @@ export interface FieldWithScenarios {
  * The scenarios a field defines, or the three standard alternatives when it defines none; with
  * `band`, every scenario under that documented seepage setting instead of the field's own.
  */
-export function scenariosOf(f: FieldWithScenarios, band?: SeepageBand): ScenarioSpec[] {
+export function scenariosOf(
+  f: FieldWithScenarios,
+  band?: SeepageBand,
+  units: UnitSystem = 'si',
+): ScenarioSpec[] {
   const seep = (x: Field) => (band === undefined ? x : withSeepage(x, band));
-  if (f.scenarios.length === 0) return standardScenarios(seep(f.base));
-  return f.scenarios.map((s) => scenarioOf(s.name, s.description ?? '', seep(s.field)));
+  if (f.scenarios.length === 0) return standardScenarios(seep(f.base), units);
+  return f.scenarios.map((s) => scenarioOf(s.name, s.description ?? '', seep(s.field), units));
 }
 
 export { forcingOf, reportPeriod, type PeriodOptions } from './prepared.js';
@@ -174,7 +181,7 @@ export function runField(
   weather: WeatherSeries,
   o: RunOptions = {},
 ): RunOutput {
-  let specs = scenariosOf(field);
+  let specs = scenariosOf(field, undefined, o.units);
   if (o.only && o.only.length) {
     for (const name of o.only) {
       if (!specs.some((s) => s.name === name)) {
@@ -200,7 +207,7 @@ export function runField(
   const bandOf = (band: SeepageBand): AnnualRow[] =>
     band === field.base.seepage
       ? scenarios.flatMap((s) => s.annual)
-      : scenariosOf(field, band)
+      : scenariosOf(field, band, o.units)
           .filter((spec) => names.has(spec.name))
           .flatMap((spec) => runPreparedScenario(period, prepareScenario(period, spec)).annual);
   const seepageBand =

@@ -35,7 +35,7 @@ export function registerDemo(program: Command): void {
     .action(
       action(async (o: { out: string; units?: string; force?: boolean; json?: boolean }) => {
         const units = parseUnits(o.units);
-        const { run, meta } = runFromFiles(DEMO_FIELD, { weather: DEMO_WEATHER });
+        const { run, meta } = runFromFiles(DEMO_FIELD, { weather: DEMO_WEATHER, units: o.units });
         const { summary, written, comparison } = await writeRunFolder(run, meta, o.out, units, {
           force: o.force,
         });

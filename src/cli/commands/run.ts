@@ -95,6 +95,7 @@ export function runFromFiles(
     to: o.to,
     warmupYears,
     only: o.scenario,
+    units: parseUnits(o.units),
     onScenario: (_k, _n, name) => bar.tick(name),
   });
   bar.stop();
@@ -156,7 +157,7 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
  * What the run assumed that decides its answer, always printed: seepage, roots, pipe capacity
  * (with the days it limited flow) and the reference-ET method with its known bias.
  */
-export function assumptionLines(run: RunOutput): string[] {
+export function assumptionLines(run: RunOutput, units: UnitSystem = 'si'): string[] {
   const limited = run.scenarios
     .map((s) => {
       let days = 0;
@@ -169,9 +170,9 @@ export function assumptionLines(run: RunOutput): string[] {
     (run.etFactor !== 1 ? ` x ${run.etFactor} (weather.etFactor)` : '') +
     (run.refEtMethod === 'Hargreaves' ? `. ${HARGREAVES_BIAS}.` : '.');
   return [
-    `Assumed: ${seepageText(run)}`,
-    `Assumed: ${rootText(run)}`,
-    `Assumed: drain flow capped at ${capacityText(run)}; days the cap limited flow: ${limited}.`,
+    `Assumed: ${seepageText(run, units)}`,
+    `Assumed: ${rootText(run, units)}`,
+    `Assumed: drain flow capped at ${capacityText(run, units)}; days the cap limited flow: ${limited}.`,
     et,
   ];
 }
@@ -193,7 +194,7 @@ export function runReport(
     ...headlineLines(comparison),
     ...cropConditionLines(comparison),
     '',
-    ...assumptionLines(run),
+    ...assumptionLines(run, units),
     '',
     `Wrote ${out}/ (${written.join(', ')}).`,
   ];
