@@ -45,6 +45,7 @@ export default tseslint.config(
       'src/nitrate/**',
       'src/scenarios/**',
       'src/units/**',
+      'src/explorer/browser/**',
     ],
     rules: {
       'no-restricted-imports': [

@@ -13,6 +13,7 @@ import { registerFit } from './commands/fit.js';
 import { registerSpacing } from './commands/spacing.js';
 import { registerSize } from './commands/size.js';
 import { registerSystem } from './commands/system.js';
+import { registerExplorer } from './commands/explorer.js';
 
 const program = new Command();
 program
@@ -38,6 +39,7 @@ const registrations: Array<(p: Command) => void> = [
   registerRun,
   registerSweep,
   registerFit,
+  registerExplorer,
   registerInit,
   registerWeather,
   registerSpacing,

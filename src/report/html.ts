@@ -73,7 +73,8 @@ function contentSecurityPolicy(scripts: string[]): string {
   );
 }
 
-const CSS = `
+/** The style of every tileflux page (reports and the explorer). */
+export const PAGE_CSS = `
 :root { --ink: #1b1b1b; --muted: #5a5a5a; --rule: #d4d4d4; --accent: #1f5f8b; --band: #eef3f6;
   --warn: #8c1c13; }
 * { box-sizing: border-box; }
@@ -660,7 +661,8 @@ export function cautionList(items: readonly string[]): string {
   return `<ul class="cautions">${items.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>`;
 }
 
-const CAUTIONS = [
+/** The cautions of every simulation page: planning estimates, then the design cautions. */
+export const PLANNING_CAUTIONS = [
   'The figures are planning estimates from simplified physics: a daily water balance with a ' +
     'single water table midway between the drains, quasi-steady drain equations and simple ' +
     'nitrate models. They compare alternatives under the same assumptions and the same weather; ' +
@@ -775,7 +777,7 @@ export function buildReportHtml(
         `(${(BALANCE_TOLERANCE.nitrogenKgHa * du.load.factor).toExponential(0)} ${du.load.label} for nitrogen) counts as closed.</p>` +
         balanceTable(data),
     ],
-    ['cautions', 'Cautions', cautionList(CAUTIONS)],
+    ['cautions', 'Cautions', cautionList(PLANNING_CAUTIONS)],
   ];
   return buildHtmlPage({
     title: data.title,
@@ -825,7 +827,7 @@ export function buildHtmlPage(page: HtmlPage): string {
 <meta name="generator" content="${escapeHtml(page.generatedBy)}">
 <title>${title}</title>
 <link rel="icon" href="data:,">
-<style>${CSS}</style>
+<style>${PAGE_CSS}</style>
 </head>
 <body>
 <header>

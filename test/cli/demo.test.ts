@@ -30,10 +30,12 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('tileflux demo', () => {
   it('writes the whole run folder and names the report', () => {
-    for (const f of ['daily.csv', 'annual.csv', 'comparison.csv', 'summary.json', 'report.html']) {
+    const files = ['daily.csv', 'annual.csv', 'comparison.csv', 'summary.json', 'report.html'];
+    for (const f of [...files, 'explorer.html']) {
       expect(existsSync(join(out, f))).toBe(true);
     }
     expect(stdout).toMatch(/Report: .*report\.html/);
+    expect(stdout).toMatch(/Explorer \(change the designs in a browser\): .*explorer\.html/);
     expect(stdout).toMatch(/^conventional\s/m);
     expect(stdout).toMatch(/Planning estimate/);
   });

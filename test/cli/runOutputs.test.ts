@@ -19,7 +19,15 @@ import { ensureBuilt, FIELD, tileflux, WEATHER } from './cli.js';
 let dir: string;
 
 const run = (args: string[], cwd?: string) => tileflux(args, { cwd });
-const year2001 = ['--from', '2001-01-01', '--to', '2001-12-31', '--no-charts', '--no-report'];
+const year2001 = [
+  '--from',
+  '2001-01-01',
+  '--to',
+  '2001-12-31',
+  '--no-charts',
+  '--no-report',
+  '--no-explorer',
+];
 
 /** `run` of the demo field with these scenario names over 2001 into `out`. */
 function runNames(names: string[], out: string) {
@@ -45,6 +53,24 @@ beforeAll(() => {
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('run outputs', () => {
+  it('writes explorer.html beside the other files unless --no-explorer, for the same period', () => {
+    const out = join(dir, 'with-explorer');
+    const args = year2001.filter((a) => a !== '--no-explorer');
+    const r = run(['run', FIELD, '-w', WEATHER, ...args, '--out', out, '--daily', 'none']);
+    expect(r.code).toBe(0);
+    expect(readdirSync(out).sort()).toEqual([
+      '.tileflux-run',
+      'annual.csv',
+      'comparison.csv',
+      'explorer.html',
+      'summary.json',
+    ]);
+    expect(r.stdout).toMatch(/Explorer \(change the designs in a browser\): .*explorer\.html/);
+    // The page runs the period the run reported (its figures then match the run's).
+    const html = readFileSync(join(out, 'explorer.html'), 'utf8');
+    expect(html).toContain('"period":{"from":"2001-01-01","to":"2001-12-31"}');
+  });
+
   it('--daily none skips daily.csv; --daily accepts only csv or none', () => {
     const out = join(dir, 'nodaily');
     const r = run(['run', FIELD, '-w', WEATHER, ...year2001, '--out', out, '--daily', 'none']);

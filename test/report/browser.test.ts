@@ -5,8 +5,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { chromium, type Browser } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchChromium } from '../support/chromium.js';
 import { compareScenarios } from '../../src/scenarios/compare.js';
 import { buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
 import { buildReportHtml } from '../../src/report/html.js';
@@ -14,7 +15,6 @@ import type { ReportData } from '../../src/report/types.js';
 import { makeReportData } from './fixture.mjs';
 
 const XSS = '<img src=x onerror=alert(1)>';
-const CHROMIUM = '/usr/bin/chromium';
 
 describe('report in a browser', () => {
   const dir = mkdtempSync(join(tmpdir(), 'tileflux-report-'));
@@ -28,17 +28,7 @@ describe('report in a browser', () => {
 
   beforeAll(async () => {
     writeFileSync(file, buildReportHtml(data, buildChartSpecs(data)));
-    browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-      ],
-    });
+    browser = await launchChromium();
   }, 120_000);
 
   afterAll(async () => {

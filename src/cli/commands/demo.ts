@@ -21,7 +21,7 @@ export function registerDemo(program: Command): void {
     .description(
       'Run the comparison on the bundled demo: an invented field on an invented farm with 30 years ' +
         'of synthetic weather, under conventional, shallow and controlled drainage. Writes the ' +
-        'run folder (daily.csv, annual.csv, comparison.csv, summary.json, charts/, report.html) ' +
+        'run folder (daily.csv, annual.csv, comparison.csv, summary.json, charts/, report.html, explorer.html) ' +
         'and prints the headline table and the path of the report.',
     )
     .option('-o, --out <dir>', 'output folder', 'tileflux-demo')
@@ -35,9 +35,13 @@ export function registerDemo(program: Command): void {
     .action(
       action(async (o: { out: string; units?: string; force?: boolean; json?: boolean }) => {
         const units = parseUnits(o.units);
-        const { run, meta } = runFromFiles(DEMO_FIELD, { weather: DEMO_WEATHER, units: o.units });
+        const { run, meta, explorerHtml } = runFromFiles(DEMO_FIELD, {
+          weather: DEMO_WEATHER,
+          units: o.units,
+        });
         const { summary, written, comparison } = await writeRunFolder(run, meta, o.out, units, {
           force: o.force,
+          explorerHtml: () => explorerHtml(units),
         });
         emit(o.json, summary, () => runReport(run, meta, units, o.out, written, comparison));
       }),

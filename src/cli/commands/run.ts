@@ -31,6 +31,7 @@ import { readWeatherFile, type WeatherReadResult } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
 import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
+import { explorerHtmlOf } from '../../explorer/page.js';
 import { progress } from '../progress.js';
 import {
   addWeatherReadOptions,
@@ -52,6 +53,7 @@ export interface RunCommandOptions extends WeatherReadFlags {
   report?: boolean;
   year?: string;
   daily?: string;
+  explorer?: boolean;
 }
 
 const ISO = /^\d{4}-\d{2}-\d{2}$/;
@@ -70,7 +72,7 @@ export function parseUnits(u: string | undefined): UnitSystem {
 export function runFromFiles(
   fieldPath: string,
   o: RunCommandOptions,
-): { run: RunOutput; meta: RunMeta } {
+): { run: RunOutput; meta: RunMeta; explorerHtml: (units: UnitSystem) => string } {
   for (const [opt, v] of [
     ['--from', o.from],
     ['--to', o.to],
@@ -101,6 +103,12 @@ export function runFromFiles(
   bar.stop();
   return {
     run,
+    explorerHtml: (units) =>
+      explorerHtmlOf(field, weather.series, o.weather, units, {
+        from: o.from,
+        to: o.to,
+        warmupYears,
+      }),
     meta: {
       fieldFile: basename(fieldPath),
       fieldSha256: sha256(fieldPath),
@@ -199,6 +207,9 @@ export function runReport(
     `Wrote ${out}/ (${written.join(', ')}).`,
   ];
   if (written.includes('report.html')) lines.push(`Report: ${join(out, 'report.html')}`);
+  if (written.includes('explorer.html')) {
+    lines.push(`Explorer (change the designs in a browser): ${join(out, 'explorer.html')}`);
+  }
   lines.push(CAUTION);
   return lines.join('\n');
 }
@@ -231,7 +242,15 @@ export async function writeRunFolder(
   meta: RunMeta,
   out: string,
   units: UnitSystem,
-  o: { force?: boolean; charts?: boolean; report?: boolean; year?: string; daily?: string },
+  o: {
+    force?: boolean;
+    charts?: boolean;
+    report?: boolean;
+    year?: string;
+    daily?: string;
+    /** The explorer page to write beside the report (explorer.html); none when absent. */
+    explorerHtml?: () => string;
+  },
 ): Promise<{
   summary: ReturnType<typeof buildSummary>;
   written: string[];
@@ -261,6 +280,10 @@ export async function writeRunFolder(
           units,
         ),
       );
+      if (o.explorerHtml) {
+        writeFileSync(join(dir, 'explorer.html'), o.explorerHtml());
+        written.push('explorer.html');
+      }
       if (o.charts === false && o.report === false) return;
       const data = reportDataOf(run, {
         fieldName: meta.fieldName,
@@ -315,6 +338,7 @@ export function registerRun(program: Command): void {
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
     .option('--no-charts', 'skip the charts/ folder (faster, for scripted use)')
     .option('--no-report', 'skip report.html (faster, for scripted use)')
+    .option('--no-explorer', 'skip explorer.html, the interactive page (faster, for scripted use)')
     .option('--daily <what>', 'csv writes daily.csv, none skips it (large studies)', 'csv')
     .option('--year <year>', 'year shown in the water-table chart (default: the wettest year)')
     .option('-f, --force', 'replace the output folder if it exists and tileflux wrote it')
@@ -327,9 +351,12 @@ export function registerRun(program: Command): void {
     .action(
       action(async (fieldPath: string, o: RunCommandOptions) => {
         const units = parseUnits(o.units);
-        const { run, meta } = runFromFiles(fieldPath, o);
+        const { run, meta, explorerHtml } = runFromFiles(fieldPath, o);
         const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-run`;
-        const { summary, written, comparison } = await writeRunFolder(run, meta, out, units, o);
+        const { summary, written, comparison } = await writeRunFolder(run, meta, out, units, {
+          ...o,
+          explorerHtml: o.explorer === false ? undefined : () => explorerHtml(units),
+        });
         emit(o.json, summary, () => runReport(run, meta, units, out, written, comparison));
       }),
     );
