@@ -10,7 +10,7 @@ import type { NitrateConfig } from '../nitrate/types.js';
 import type { Field } from '../scenarios/fieldSchema.js';
 import type { PeriodOptions } from '../scenarios/prepared.js';
 import { standardScenarios, STANDARD_CONTROL } from '../scenarios/resolve.js';
-import type { UnitSystem } from '../units/quantity.js';
+import { US, type UnitSystem } from '../units/quantity.js';
 import type { DesignSource, ExplorerData, WeatherColumns } from './browser/model.js';
 
 type Raw = Record<string, unknown>;
@@ -71,12 +71,15 @@ function winterHoldRaw(): Raw {
  * derives them; with scenarios, the first (the baseline) and the first later one with an outlet
  * schedule, or else the first with the standard winter hold.
  */
-export function designsOf(loaded: LoadedField): { a: DesignSource; b: DesignSource; baseRaw: Raw } {
+export function designsOf(
+  loaded: LoadedField,
+  units: UnitSystem = 'si',
+): { a: DesignSource; b: DesignSource; baseRaw: Raw } {
   const raw = parse(loaded.text.replace(/^\uFEFF/, '')) as Raw;
   const { scenarios: rawScenarios, ...rest } = raw;
   const baseRaw = resolved(rest, loaded.base);
   if (loaded.scenarios.length === 0) {
-    const [conv, , ctrl] = standardScenarios(loaded.base);
+    const [conv, , ctrl] = standardScenarios(loaded.base, units);
     return {
       baseRaw,
       a: { name: conv.name, description: conv.description, field: conv.field, overrides: {} },
@@ -105,6 +108,10 @@ export function designsOf(loaded: LoadedField): { a: DesignSource; b: DesignSour
   );
   if (k > 0) return { baseRaw, a, b: source(k) };
   const taken = new Set(loaded.scenarios.map((s) => s.name));
+  const held =
+    units === 'us'
+      ? `${(STANDARD_CONTROL.depthM / US.mPerFt).toFixed(2)} ft`
+      : `${STANDARD_CONTROL.depthM.toFixed(2)} m`;
   let name = 'winter hold';
   while (taken.has(name)) name += ' (explorer)';
   return {
@@ -112,7 +119,7 @@ export function designsOf(loaded: LoadedField): { a: DesignSource; b: DesignSour
     a,
     b: {
       name,
-      description: `${a.name} with the outlet held ${STANDARD_CONTROL.depthM} m below the surface ${STANDARD_CONTROL.raise} to ${STANDARD_CONTROL.lower}`,
+      description: `${a.name} with the outlet held ${held} below the surface ${STANDARD_CONTROL.raise} to ${STANDARD_CONTROL.lower}`,
       field: winterHold(a.field),
       overrides: { ...a.overrides, ...winterHoldRaw() },
     },
@@ -140,7 +147,7 @@ export function explorerDataOf(
   weather: WeatherSeries,
   o: { weatherFile: string; units: UnitSystem; generatedBy: string; period?: PeriodOptions },
 ): ExplorerData {
-  const { a, b, baseRaw } = designsOf(loaded);
+  const { a, b, baseRaw } = designsOf(loaded, o.units);
   return {
     title: `Drainage explorer: ${loaded.base.name}`,
     generatedBy: o.generatedBy,
