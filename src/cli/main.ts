@@ -31,7 +31,31 @@ program
   .showHelpAfterError(
     '(run with --help for usage; quote a value that has a unit, e.g. --k "1 m/d")',
   )
-  .configureHelp({ sortSubcommands: false });
+  .configureHelp({ sortSubcommands: false })
+  .addHelpText(
+    'after',
+    `
+Main tasks, one example each (add --units us for inches, feet and lb N/ac):
+  See what tileflux does, on the bundled demo field:
+    tileflux demo
+  Check your weather file and what it holds:
+    tileflux weather check my-weather.csv
+  Start a field file of your own, then compare its drainage alternatives:
+    tileflux init my-field.yaml
+    tileflux run my-field.yaml --weather my-weather.csv --out my-run
+  Drain spacing for a soil and a drainage rate:
+    tileflux spacing --k "1 m/d" --drain-depth "1.2 m" --barrier-depth "2.5 m" --water-table "0.3 m" --rate "12 mm/d"
+  Pipe size for a lateral:
+    tileflux size --length "1300 ft" --spacing "60 ft" --rate "0.5 in/d" --slope "0.2 %" --units us
+  Rank designs and managements under uncertain soils, with costs:
+    tileflux sweep my-field.yaml --weather my-weather.csv --out my-study
+  Fit the soil to a monitored outlet before trusting a comparison:
+    tileflux fit my-field.yaml --weather my-weather.csv --observed my-outlet.csv --out my-fit
+  Lay out mains and laterals with grades and depth of cut:
+    tileflux system my-system.yaml --out my-plan
+
+Each command's --help has more examples.`,
+  );
 
 const registrations: Array<(p: Command) => void> = [
   // Each command module adds its registration here, in the order --help lists them.

@@ -62,6 +62,50 @@ describe('tileflux spacing (steady state)', () => {
     expect(a.spacing_m).toBeCloseTo(b.spacing_m, 9);
   });
 
+  it('--units us echoes every input in feet and inches per day, defaults too (1 ft = 0.3048 m)', () => {
+    const r = cli([
+      'spacing',
+      '--k',
+      '3 ft/d',
+      '--drain-depth',
+      '4 ft',
+      '--barrier-depth',
+      '2.5 m',
+      '--water-table',
+      '1 ft',
+      '--rate',
+      '0.5 in/d',
+      '--units',
+      'us',
+    ]);
+    expect(r.status).toBe(0);
+    const inputs = r.stdout.split('Result')[0];
+    expect(inputs).toMatch(/conductivity above drains\s+3 ft\/d\n/);
+    // 2.5 / 0.3048 = 8.202 ft; 8.202 - 4 = 4.20 ft of layer below the drains.
+    expect(inputs).toContain('2.5 m = 8.202 ft (4.20 ft below the drains)');
+    // The default radius 0.1 m = 0.328 ft.
+    expect(inputs).toContain('0.328 ft (default)');
+    expect(inputs).not.toMatch(/\d (m|mm)(\/d)?\b(?! =)/);
+  });
+
+  it('an input given in the unit shown is echoed once, not "1 m/d = 1.000 m/d"', () => {
+    const r = cli([
+      'spacing',
+      '--k',
+      '1 m/d',
+      '--drain-depth',
+      '1.2 m',
+      '--barrier-depth',
+      '2.5 m',
+      '--water-table',
+      '0.3 m',
+      '--rate',
+      '12 mm/d',
+    ]);
+    expect(r.stdout).toMatch(/drain depth\s+1\.2 m\n/);
+    expect(r.stdout).not.toMatch(/(\d+(\.\d+)?) (m|m\/d|mm\/d) = /);
+  });
+
   it('human output echoes the inputs as given, the result, the method and the caution', () => {
     const r = cli([...STEADY, '--water-table', '20 in', '--rate', '0.3 in/d']);
     expect(r.status).toBe(0);

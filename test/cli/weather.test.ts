@@ -200,6 +200,38 @@ describe('tileflux weather check', { timeout: 120_000 }, () => {
   });
 });
 
+describe('tileflux weather check --units us', { timeout: 120_000 }, () => {
+  it('prints precipitation in inches and temperatures in degF (1 in = 25.4 mm; F = 9/5 C + 32)', () => {
+    const j = JSON.parse(tileflux('weather', 'check', vega, ...NY, '--json').out);
+    const r = tileflux('weather', 'check', vega, ...NY, '--units', 'us');
+    expect(r.code).toBe(0);
+    const inches = (j.precip_mean_mm_yr / 25.4).toFixed(2);
+    expect(r.out).toContain(`precipitation  ${inches} in/yr`);
+    expect(r.out).toContain(`driest ${(j.precip_min_mm_yr / 25.4).toFixed(2)} in`);
+    // The degree-day snow threshold of 1 degC is 33.8 degF.
+    expect(r.out).toContain('daily mean of 33.8 degF or below');
+    const summary = r.out.split('\n').slice(3).join('\n');
+    expect(summary).not.toMatch(/\bmm\b|degC/);
+  });
+
+  it('compares two records in inches and degF, the monthly figures converted', () => {
+    const si = tileflux('weather', 'check', '--compare', demo, demo);
+    const us = tileflux('weather', 'check', '--compare', demo, demo, '--units', 'us');
+    expect(us.code, us.err).toBe(0);
+    const jan = (t: string) =>
+      t
+        .split('\n')
+        .find((l) => l.startsWith('Jan'))!
+        .trim()
+        .split(/\s+/);
+    const [, pA, , , , tA] = jan(si.out);
+    const [, pAus, , , , tAus] = jan(us.out);
+    expect(Number(pAus)).toBeCloseTo(Number(pA) / 25.4, 1);
+    expect(Number(tAus)).toBeCloseTo((Number(tA) * 9) / 5 + 32, 0);
+    expect(us.out).not.toMatch(/\bmm\b|degC/);
+  });
+});
+
 describe('tileflux weather make', { timeout: 120_000 }, () => {
   it('regenerates the demo file byte for byte (data-demo/README.md gives the command)', () => {
     const r = tileflux('weather', 'make', '--years', '30', '--seed', '7');

@@ -30,7 +30,11 @@ export function registerDemo(program: Command): void {
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(
       'after',
-      `\nThe demo's inputs are data-demo/field.yaml and data-demo/weather.csv; copy them to start a study of your own.\n\n${CAUTION}`,
+      `\nThe demo's inputs are data-demo/field.yaml and data-demo/weather.csv; copy them to start a study of your own.\n\n` +
+        'Examples:\n' +
+        '  tileflux demo                                  # SI units (mm, m, kg N/ha), into tileflux-demo/\n' +
+        '  tileflux demo --units us --out demo-us         # US units (in, ft, lb N/ac)\n' +
+        `  tileflux demo --json > demo-summary.json       # the summary for scripts\n\n${CAUTION}`,
     )
     .action(
       action(async (o: { out: string; units?: string; force?: boolean; json?: boolean }) => {

@@ -231,6 +231,9 @@ export function registerFit(program: Command): void {
       'after',
       '\nExamples:\n' +
         '  tileflux fit field.yaml --weather weather.csv --observed outlet.csv --out field-fit\n' +
+        '  Flow measured in L/s at an outlet draining 16 ha (SI):\n' +
+        '    tileflux fit field.yaml --weather weather.csv --observed outlet.csv --area "16 ha" --out fit-si\n' +
+        '  Flow in gpm from 40 acres (US), two parameters, calibration and validation years:\n' +
         '  tileflux fit field.yaml --weather weather.csv --observed outlet.csv --area "40 ac" \\\n' +
         '    --params soil.conductivity,drains.capacity --calibrate 2013-01-01..2014-12-31 \\\n' +
         '    --validate 2015-01-01..2015-12-31 --objective nse --seed 7\n\n' +

@@ -19,7 +19,13 @@ export function registerInit(program: Command): void {
     .option('--json', 'print the JSON Schema of field files instead (for editors and scripts)')
     .addHelpText(
       'after',
-      '\nExample:\n  tileflux init my-field.yaml && tileflux run my-field.yaml --weather weather.csv',
+      '\nExamples:\n' +
+        '  A starter file, then a run in SI units:\n' +
+        '    tileflux init my-field.yaml && tileflux run my-field.yaml --weather weather.csv\n' +
+        '  Values take unit strings in either system (depth: 4 ft, spacing: 60 ft); results in US units:\n' +
+        '    tileflux init my-field.yaml && tileflux run my-field.yaml --weather weather.csv --units us\n' +
+        '  The JSON Schema of field files, for an editor:\n' +
+        '    tileflux init --json > field.schema.json',
     )
     .action(
       action((file: string | undefined, o: { force?: boolean; json?: boolean }) => {

@@ -345,7 +345,15 @@ export function registerRun(program: Command): void {
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(
       'after',
-      '\nExample:\n  tileflux run data-demo/field.yaml --weather data-demo/weather.csv --out demo-run\n\n' +
+      '\nExamples:\n' +
+        '  The demo field and weather, SI units (mm, m, kg N/ha):\n' +
+        '    tileflux run data-demo/field.yaml --weather data-demo/weather.csv --out demo-run\n' +
+        '  The same in US units (in, ft, lb N/ac), the water-table chart for 1995:\n' +
+        '    tileflux run data-demo/field.yaml --weather data-demo/weather.csv --out demo-run-us \\\n' +
+        '      --units us --year 1995\n' +
+        '  Your field on a GHCN-Daily export in standard units, from 2001, without daily.csv:\n' +
+        '    tileflux run my-field.yaml --weather export.csv --station XX000000001 \\\n' +
+        '      --export-units standard --from 2001-01-01 --daily none --out my-run --units us\n\n' +
         CAUTION,
     )
     .action(

@@ -43,20 +43,36 @@ interface SpacingFlags {
 
 const BARE = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
+/** SI input units and their US customary display: label and factor from the SI value. */
+const US_ECHO: Readonly<Record<string, [label: string, factor: number]>> = {
+  m: ['ft', 1 / US.mPerFt],
+  'm/d': ['ft/d', 1 / US.mPerFt],
+  'mm/d': ['in/d', 1 / US.mmPerIn],
+  ha: ['ac', 1 / US.haPerAc],
+};
+
 /**
  * An input as the user gave it, followed by the value used when the two differ:
- * "48 in = 1.219 m", "0.5 m/d", "0.1 m (default)".
+ * "48 in = 1.219 m", "0.5 m/d", "0.1 m (default)". `value` is in the SI `unit`; with `units`
+ * 'us' the value used is shown in feet, inches per day or acres instead ("1.2 m = 3.937 ft"),
+ * and an input already given in the unit shown is shown as given ("1 m/d", not "1 m/d = 1.000 m/d").
  */
 export function echo(
   raw: string | undefined,
   value: number,
   unit: string,
   decimals: number,
+  units: UnitSystem = 'si',
 ): string {
-  const used = `${fmt(value, decimals)} ${unit}`.trim();
+  const us = units === 'us' ? US_ECHO[unit] : undefined;
+  const label = us ? us[0] : unit;
+  const used = `${fmt(us ? value * us[1] : value, decimals)} ${label}`.trim();
   if (raw === undefined) return `${used} (default)`;
   const given = raw.trim();
-  return BARE.test(given) ? `${given} ${unit}`.trim() : `${given} = ${used}`;
+  if (BARE.test(given)) return us ? `${given} ${unit} = ${used}` : `${given} ${unit}`.trim();
+  // Given in the unit shown: nothing to convert.
+  if (given.replace(/^[-+\d.eE\s]+/, '') === label) return given;
+  return `${given} = ${used}`;
 }
 
 /** Sections of aligned "label   value" lines under headings, one width for all. */
@@ -151,14 +167,14 @@ function layout(o: SpacingFlags) {
 
 type Layout = ReturnType<typeof layout>;
 
-function layoutRows(o: SpacingFlags, l: Layout): Array<[string, string]> {
+function layoutRows(o: SpacingFlags, l: Layout, units: UnitSystem): Array<[string, string]> {
   return [
-    ['drain depth', echo(o.drainDepth, l.drainDepthM, 'm', 3)],
+    ['drain depth', echo(o.drainDepth, l.drainDepthM, 'm', 3, units)],
     [
       'barrier depth',
-      `${echo(o.barrierDepth, l.barrierDepthM, 'm', 3)} (${fmt(l.layerBelowDrainsM, 2)} m below the drains)`,
+      `${echo(o.barrierDepth, l.barrierDepthM, 'm', 3, units)} (${len(l.layerBelowDrainsM, units)} below the drains)`,
     ],
-    ['drain radius', echo(o.radius, l.radiusM, 'm', 3)],
+    ['drain radius', echo(o.radius, l.radiusM, 'm', 3, units)],
   ];
 }
 
@@ -245,19 +261,19 @@ function steady(o: SpacingFlags, units: UnitSystem): void {
         [
           'Inputs',
           [
-            ['conductivity above drains', echo(o.k, l.kMPerDay, 'm/d', 3)],
+            ['conductivity above drains', echo(o.k, l.kMPerDay, 'm/d', 3, units)],
             [
               'conductivity below drains',
               o.kBelow === undefined
-                ? `${fmt(kBelowMPerDay, 3)} m/d (as --k)`
-                : echo(o.kBelow, kBelowMPerDay, 'm/d', 3),
+                ? `${echo(undefined, kBelowMPerDay, 'm/d', 3, units).replace(' (default)', '')} (as --k)`
+                : echo(o.kBelow, kBelowMPerDay, 'm/d', 3, units),
             ],
-            ...layoutRows(o, l),
+            ...layoutRows(o, l, units),
             [
               'midpoint water table',
-              `${echo(o.waterTable, waterTableM, 'm', 3)} below the surface`,
+              `${echo(o.waterTable, waterTableM, 'm', 3, units)} below the surface`,
             ],
-            ['drainage rate', echo(o.rate, rateMmPerDay, 'mm/d', 2)],
+            ['drainage rate', echo(o.rate, rateMmPerDay, 'mm/d', 2, units)],
           ],
         ],
         [
@@ -362,12 +378,12 @@ function transient(o: SpacingFlags, units: UnitSystem): void {
         [
           'Inputs',
           [
-            ['conductivity', echo(o.k, l.kMPerDay, 'm/d', 3)],
+            ['conductivity', echo(o.k, l.kMPerDay, 'm/d', 3, units)],
             ['drainable porosity', echo(o.drainablePorosity, porosity, '', 3)],
-            ...layoutRows(o, l),
+            ...layoutRows(o, l, units),
             [
               'midpoint water table',
-              `from ${echo(o.from, fromM, 'm', 3)} to ${echo(o.to, toM, 'm', 3)} below the surface`,
+              `from ${echo(o.from, fromM, 'm', 3, units)} to ${echo(o.to, toM, 'm', 3, units)} below the surface`,
             ],
             ['time allowed', echo(o.days, days, 'd', 2)],
           ],
@@ -400,23 +416,24 @@ function transient(o: SpacingFlags, units: UnitSystem): void {
 
 const HELP = `
 Steady state (Hooghoudt): the spacing at which drains remove --rate with the water table
-midway held at --water-table below the surface.
-
-  tileflux spacing --k 0.5 --drain-depth 1.2 --barrier-depth 3.2 --water-table 0.5 --rate 7
-      (0.5 m/d soil, drains 1.2 m deep, restrictive layer at 3.2 m, 7 mm/d drainage rate)
-  tileflux spacing --k "0.8 in/h" --drain-depth "4 ft" --barrier-depth "10 ft" \\
-      --water-table "1 ft" --rate "0.375 in/d" --units us
-
-Falling water table (Glover-Dumm): the spacing that lowers the water table midway from
---from to --to below the surface in --days after a wetting, with no further recharge.
-
-  tileflux spacing --transient --k 0.5 --drainable-porosity 0.05 --drain-depth 1.2 \\
-      --barrier-depth 3.2 --from 0 --to 0.3 --days 2
+midway held at --water-table below the surface. Falling water table (Glover-Dumm, with
+--transient): the spacing that lowers the water table midway from --from to --to below the
+surface in --days after a wetting, with no further recharge.
 
 Depths are below the soil surface. The equivalent depth d accounts for the flow converging on
 the pipe; --radius is the effective drain radius (0.1 m, the value of Hooghoudt's tables, when
 not given; a bare corrugated pipe without envelope has a much smaller effective radius and
 calls for a closer spacing).
+
+Examples:
+  Steady state: 0.5 m/d soil, drains 1.2 m deep, restrictive layer at 3.2 m, 7 mm/d:
+    tileflux spacing --k 0.5 --drain-depth 1.2 --barrier-depth 3.2 --water-table 0.5 --rate 7
+  The same kind of design in US units:
+    tileflux spacing --k "0.8 in/h" --drain-depth "4 ft" --barrier-depth "10 ft" \\
+      --water-table "1 ft" --rate "0.375 in/d" --units us
+  Falling water table, surface to 0.3 m in 2 days:
+    tileflux spacing --transient --k 0.5 --drainable-porosity 0.05 --drain-depth 1.2 \\
+      --barrier-depth 3.2 --from 0 --to 0.3 --days 2
 
 ${CAUTION}`;
 

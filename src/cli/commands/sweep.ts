@@ -121,7 +121,15 @@ export function registerSweep(program: Command): void {
     .option('--json', 'print summary.json on stdout instead of the summary')
     .addHelpText(
       'after',
-      '\nExample:\n  tileflux sweep my-field.yaml --weather weather.csv --out study --samples 40 --seed 7\n\n' +
+      '\nExamples:\n' +
+        '  A sweep written in SI units (sweep: depth: [0.9 m, 1.2 m], spacing: { from: 10 m, ... }):\n' +
+        '    tileflux sweep my-field.yaml --weather weather.csv --out study --samples 40 --seed 7\n' +
+        '  A study written in US units (depth: [3 ft, 4 ft], spacing: { from: 30 ft, ... }) on a\n' +
+        '  GHCN-Daily export in standard units (inches, degF); results are written in SI:\n' +
+        '    tileflux sweep my-field-us.yaml --weather export.csv --station XX000000001 \\\n' +
+        '      --export-units standard --out study-us --samples 40 --seed 7\n' +
+        '  A quick look on the demo field with two workers:\n' +
+        '    tileflux sweep data-demo/field.yaml --weather data-demo/weather.csv --out quick --samples 8 --workers 2\n\n' +
         CAUTION,
     )
     .action(

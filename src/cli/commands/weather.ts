@@ -40,6 +40,8 @@ import {
 } from '../weatherOptions.js';
 import { describeChange, monthlyChange } from '../climateOptions.js';
 import { action, emit, fmt, quantityOption, writeFileAtomic } from '../common.js';
+import { parseUnits } from './run.js';
+import { US, type UnitSystem } from '../../units/quantity.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
 export const DEFAULT_LATITUDE_DEG = 42;
@@ -97,27 +99,49 @@ function summaryJson(s: WeatherSummary, latitudeDeg: number, assumed: boolean, e
   };
 }
 
-/** Human lines for the summary figures shared by check and make. */
-function summaryLines(s: WeatherSummary, latitudeDeg: number, latitudeNote: string): string[] {
+/** How the weather summaries show depths of water and temperatures in a unit system. */
+function weatherDisplay(units: UnitSystem) {
+  const us = units === 'us';
+  return {
+    /** A depth of water from mm, with its unit: "944.9 mm" or "37.20 in". */
+    water: (mm: number, d = 1) => (us ? `${fmt(mm / US.mmPerIn, d + 1)} in` : `${fmt(mm, d)} mm`),
+    waterUnit: us ? 'in' : 'mm',
+    /** A depth of water from mm without its unit. */
+    waterValue: (mm: number, d = 1) => (us ? fmt(mm / US.mmPerIn, d + 1) : fmt(mm, d)),
+    /** A temperature from degC without its unit (degF by 9/5 C + 32). */
+    temp: (c: number, d = 1) => fmt(us ? (c * 9) / 5 + 32 : c, d),
+    tempUnit: us ? 'degF' : 'degC',
+  };
+}
+
+/** Human lines for the summary figures shared by check and make, in `units`. */
+function summaryLines(
+  s: WeatherSummary,
+  latitudeDeg: number,
+  latitudeNote: string,
+  units: UnitSystem = 'si',
+): string[] {
+  const u = weatherDisplay(units);
   const years = s.completeYears.length;
   const precip =
     years > 0
-      ? `${fmt(s.precipMeanMmYr)} mm/yr, mean of ${years} complete year${years > 1 ? 's' : ''}; ` +
-        `driest ${fmt(s.precipMin!.mm)} mm (${s.precipMin!.year}), ` +
-        `wettest ${fmt(s.precipMax!.mm)} mm (${s.precipMax!.year})`
-      : `${fmt(s.precipMeanMmYr)} mm/yr, scaled from the daily mean (no complete calendar year)`;
-  let et = `${fmt(s.refEtMeanMmYr)} mm/yr by ${s.refEtMethod} (${ET_METHOD_SOURCE[s.refEtMethod]})`;
+      ? `${u.water(s.precipMeanMmYr)}/yr, mean of ${years} complete year${years > 1 ? 's' : ''}; ` +
+        `driest ${u.water(s.precipMin!.mm)} (${s.precipMin!.year}), ` +
+        `wettest ${u.water(s.precipMax!.mm)} (${s.precipMax!.year})`
+      : `${u.water(s.precipMeanMmYr)}/yr, scaled from the daily mean (no complete calendar year)`;
+  let et = `${u.water(s.refEtMeanMmYr)}/yr by ${s.refEtMethod} (${ET_METHOD_SOURCE[s.refEtMethod]})`;
   if (s.refEtMethod !== 'pet column') {
     et += ` at latitude ${latitudeDeg} deg${latitudeNote}`;
   }
   const snow =
     `${fmt(s.snowSharePercent)} % of precipitation falls as snow (degree-day model: snow at a ` +
-    `daily mean of ${DEFAULT_SNOW.rainSnowThresholdC} degC or below)`;
+    `daily mean of ${units === 'us' ? u.temp(DEFAULT_SNOW.rainSnowThresholdC) : DEFAULT_SNOW.rainSnowThresholdC} ${u.tempUnit} or below)`;
   return [`  precipitation  ${precip}`, `  reference ET   ${et}`, `  snow           ${snow}`];
 }
 
 interface CheckFlags extends WeatherReadFlags {
   compare?: string[];
+  units?: string;
   latitude?: string;
   elevation?: string;
   json?: boolean;
@@ -125,6 +149,7 @@ interface CheckFlags extends WeatherReadFlags {
 
 interface MakeFlags extends WeatherReadFlags {
   like?: string;
+  units?: string;
   precipChange?: string;
   tempChange?: string;
   years?: string;
@@ -181,6 +206,7 @@ ${Object.entries(WEATHER_FORMAT_HELP)
 
 Examples
   tileflux weather check data-demo/weather.csv --latitude 42.5
+  tileflux weather check data-demo/weather.csv --units us       (inches and degF)
   tileflux weather check export.csv --station XX000000001 --export-units metric --fill
   tileflux weather check daymet-point.csv
   tileflux weather check --compare data-demo/weather.csv future.csv
@@ -212,6 +238,8 @@ Examples
   tileflux weather make --like data-demo/weather.csv --years 30 --seed 1 \\
       --precip-change "djf:+15%,jja:-10%" --temp-change +2C --out future.csv
   tileflux weather make --years 5 --seed 1 --start-year 2001 > short.csv
+  tileflux weather make --years 30 --seed 7 --latitude 44 --units us --out weather.csv
+      (the file is always in mm and degC; --units us prints its summary in inches and degF)
 `;
 
 /** Long-run mean annual precipitation of the default generator, mm (for the help text). */
@@ -265,18 +293,26 @@ function compareJson(files: string[], a: RecordStatistics, b: RecordStatistics) 
   return { wet_day_mm: WET_DAY_MM, a: statisticsJson(files[0], a), b: statisticsJson(files[1], b) };
 }
 
-/** Side-by-side table of two records' statistics. */
-function compareLines(files: string[], a: RecordStatistics, b: RecordStatistics): string[] {
-  const pair = (x: number, y: number, d: number) =>
-    `${fmt(x, d).padStart(7)} ${fmt(y, d).padStart(7)}`;
+/** Side-by-side table of two records' statistics, in `units`. */
+function compareLines(
+  files: string[],
+  a: RecordStatistics,
+  b: RecordStatistics,
+  units: UnitSystem = 'si',
+): string[] {
+  const u = weatherDisplay(units);
+  const pad = (x: string) => x.padStart(7);
+  const pairWater = (x: number, y: number) => `${pad(u.waterValue(x))} ${pad(u.waterValue(y))}`;
+  const pairTemp = (x: number, y: number) => `${pad(u.temp(x))} ${pad(u.temp(y))}`;
+  const pair = (x: number, y: number, d: number) => `${pad(fmt(x, d))} ${pad(fmt(y, d))}`;
   const lines = [
     `A = ${files[0]} (${a.firstDate} to ${a.lastDate}), B = ${files[1]} (${b.firstDate} to ${b.lastDate})`,
-    `month   precip mm/month   wet-day share (>= ${WET_DAY_MM} mm)   mean Tmax degC   mean Tmin degC`,
+    `month   precip ${u.waterUnit}/month   wet-day share (>= ${units === 'us' ? `${fmt(WET_DAY_MM / US.mmPerIn, 3)} in` : `${WET_DAY_MM} mm`})   mean Tmax ${u.tempUnit}   mean Tmin ${u.tempUnit}`,
     `             A       B               A       B            A       B        A       B`,
   ];
   for (let m = 0; m < 12; m++) {
     lines.push(
-      `${MONTHS[m]}   ${pair(a.precipMonthMm[m], b.precipMonthMm[m], 1)}       ${pair(a.wetDayFraction[m], b.wetDayFraction[m], 3)}    ${pair(a.tmaxMonthC[m], b.tmaxMonthC[m], 1)}  ${pair(a.tminMonthC[m], b.tminMonthC[m], 1)}`,
+      `${MONTHS[m]}   ${pairWater(a.precipMonthMm[m], b.precipMonthMm[m])}       ${pair(a.wetDayFraction[m], b.wetDayFraction[m], 3)}    ${pairTemp(a.tmaxMonthC[m], b.tmaxMonthC[m])}  ${pairTemp(a.tminMonthC[m], b.tminMonthC[m])}`,
     );
   }
   const ya = annual(a);
@@ -284,12 +320,12 @@ function compareLines(files: string[], a: RecordStatistics, b: RecordStatistics)
   const yearLine = (y: ReturnType<typeof annual>) =>
     y.years === 0
       ? 'no complete year'
-      : `mean ${fmt(y.mean_mm!, 0)} mm, sd ${fmt(y.sd_mm!, 0)}, driest ${fmt(y.min_mm!, 0)}, wettest ${fmt(y.max_mm!, 0)} (${y.years} years)`;
+      : `mean ${u.water(y.mean_mm!, 0)}, sd ${u.waterValue(y.sd_mm!, 0)}, driest ${u.waterValue(y.min_mm!, 0)}, wettest ${u.waterValue(y.max_mm!, 0)} (${y.years} years)`;
   lines.push(
     `annual precipitation  A: ${yearLine(ya)}`,
     `                      B: ${yearLine(yb)}`,
-    `extremes  largest day A ${fmt(a.maxDailyPrecipMm, 1)} mm (${a.maxDailyPrecipDate}), B ${fmt(b.maxDailyPrecipMm, 1)} mm (${b.maxDailyPrecipDate}); ` +
-      `highest Tmax A ${fmt(a.maxTmaxC, 1)}, B ${fmt(b.maxTmaxC, 1)} degC; lowest Tmin A ${fmt(a.minTminC, 1)}, B ${fmt(b.minTminC, 1)} degC`,
+    `extremes  largest day A ${u.water(a.maxDailyPrecipMm)} (${a.maxDailyPrecipDate}), B ${u.water(b.maxDailyPrecipMm)} (${b.maxDailyPrecipDate}); ` +
+      `highest Tmax A ${u.temp(a.maxTmaxC)}, B ${u.temp(b.maxTmaxC)} ${u.tempUnit}; lowest Tmin A ${u.temp(a.minTminC)}, B ${u.temp(b.minTminC)} ${u.tempUnit}`,
   );
   return lines;
 }
@@ -326,6 +362,11 @@ export function registerWeather(program: Command): void {
       '--compare <files...>',
       'compare two records side by side (monthly means, wet-day frequency, extremes, annual totals)',
     )
+    .option(
+      '--units <system>',
+      'units of the printed summary: si (mm, degC) or us (in, degF); JSON stays SI',
+      'si',
+    )
     .option('--json', 'print the summary as JSON')
     .addHelpText('after', CHECK_HELP)
     .action(
@@ -341,7 +382,7 @@ export function registerWeather(program: Command): void {
           const sa = recordStatistics(a.series);
           const sb = recordStatistics(b.series);
           emit(f.json, compareJson(f.compare, sa, sb), () =>
-            compareLines(f.compare!, sa, sb).join('\n'),
+            compareLines(f.compare!, sa, sb, parseUnits(f.units)).join('\n'),
           );
           return;
         }
@@ -379,6 +420,7 @@ export function registerWeather(program: Command): void {
               s,
               latitudeDeg,
               assumed ? ', assumed: give --latitude for your site' : '',
+              parseUnits(f.units),
             ),
           ].join('\n');
         });
@@ -402,6 +444,11 @@ export function registerWeather(program: Command): void {
     .option('-o, --out <file>', 'write the CSV here (default: standard output)')
     .option('-f, --force', 'overwrite --out if it exists')
     .option('--json', 'with --out, print a JSON summary of the written record')
+    .option(
+      '--units <system>',
+      'units of the printed summary: si (mm, degC) or us (in, degF); the file is always mm and degC',
+      'si',
+    )
     .option(
       '--like <file>',
       'fit the generator to this daily record (any format of --format) instead of the invented site',
@@ -477,7 +524,7 @@ export function registerWeather(program: Command): void {
             `Wrote ${f.out}: synthetic weather${like ? '' : ' of an invented site'}, ${s.firstDate} to ${s.lastDate} ` +
               `(${years} years, seed ${seed}, ${s.days} days)`,
             `  climate        ${climate}`,
-            ...summaryLines(s, latitudeDeg, assumed ? ' (the default)' : ''),
+            ...summaryLines(s, latitudeDeg, assumed ? ' (the default)' : '', parseUnits(f.units)),
           ].join('\n'),
         );
       }),
