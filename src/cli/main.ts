@@ -9,6 +9,7 @@ import { registerDemo } from './commands/demo.js';
 import { registerInit } from './commands/init.js';
 import { registerRun } from './commands/run.js';
 import { registerSweep } from './commands/sweep.js';
+import { registerBatch } from './commands/batch.js';
 import { registerFit } from './commands/fit.js';
 import { registerSpacing } from './commands/spacing.js';
 import { registerSize } from './commands/size.js';
@@ -62,6 +63,7 @@ const registrations: Array<(p: Command) => void> = [
   registerDemo,
   registerRun,
   registerSweep,
+  registerBatch,
   registerFit,
   registerExplorer,
   registerInit,

@@ -274,19 +274,77 @@ export function locatedIssue(
 }
 
 /**
+ * A change to one key of a field file's base given outside the file (a cell of a batch
+ * manifest): the key's path, its value as YAML would read it, and where it was given, for
+ * messages (e.g. "jobs.csv: line 4, column 5 (drains.spacing)").
+ */
+export interface FieldOverride {
+  path: string[];
+  value: unknown;
+  where: string;
+}
+
+/**
+ * Why `path` (e.g. ["drains", "spacing"]) names no key of a field file, or undefined when it
+ * does; with a "did you mean" when a key is misspelt.
+ */
+export function fieldKeyProblem(path: readonly string[]): string | undefined {
+  for (let k = 0; k < path.length; k++) {
+    const accepted = acceptedKeys(fieldSchema, path.slice(0, k));
+    if (!accepted.includes(path[k])) {
+      const hint = suggest(path[k], accepted);
+      const name = path.slice(0, k + 1).join('.');
+      return (
+        `"${name}" is not a field-file key` +
+        (hint
+          ? `; did you mean "${[...path.slice(0, k), hint].join('.')}"?`
+          : accepted.length
+            ? `; keys accepted here: ${accepted.join(', ')}`
+            : '')
+      );
+    }
+  }
+  return undefined;
+}
+
+/** `{ a: { b: value } }` from the path ["a", "b"]. */
+function nested(path: readonly string[], value: unknown): unknown {
+  return path.reduceRight<unknown>((inner, key) => ({ [key]: inner }), value);
+}
+
+/**
  * Parse and validate a field file's text.
  * @param text the YAML text
  * @param file the name used in messages
+ * @param overrides changes to the base given outside the file: merged into the base before it
+ *   is validated (scenarios of the file then merge on top), and a value that fails the schema
+ *   is reported where the override was given
  */
-export function parseField(text: string, file = 'field file'): LoadedField {
+export function parseField(
+  text: string,
+  file = 'field file',
+  overrides: readonly FieldOverride[] = [],
+): LoadedField {
   const src = readYamlMapping(text, file, 'name, soil, drains, ...');
   const { doc, lc, raw } = src;
   const fail = (issue: z.core.$ZodIssue, input: unknown, prefix: Path): never => {
+    const issuePath = issue.path.map(String);
+    // A value the override gave (checked with the base; a scenario's own keys are its own).
+    const given =
+      prefix.length === 0
+        ? overrides.find((o) => o.path.every((key, k) => issuePath[k] === key))
+        : undefined;
+    if (given !== undefined) {
+      throw new TilefluxError(describeIssue(issue, fieldSchema, input).message, given.where);
+    }
     const note = prefix.length ? `in scenario ${prefix[1]}: ` : '';
     throw new TilefluxError(locatedIssue(src, fieldSchema, [issue], input, prefix, note), file);
   };
 
-  const baseRaw = raw as Record<string, unknown>;
+  const baseRaw = overrides.reduce<Record<string, unknown>>(
+    (acc, o) => mergeOverrides(acc, nested(o.path, o.value)) as Record<string, unknown>,
+    raw as Record<string, unknown>,
+  );
   const parsed = fieldSchema.safeParse(baseRaw);
   if (!parsed.success) fail(firstIssue(parsed.error.issues), baseRaw, []);
   const base = parsed.data as Field;
@@ -351,11 +409,10 @@ export function parseField(text: string, file = 'field file'): LoadedField {
   return { base, scenarios, text, ratingFits: {} };
 }
 
-/** Read and validate a field file from disk. */
-export function readFieldFile(path: string): LoadedField {
-  let text: string;
+/** A text file's content; a file that cannot be read is a user error naming it and why. */
+export function readTextFile(path: string): string {
   try {
-    text = readFileSync(path, 'utf8');
+    return readFileSync(path, 'utf8');
   } catch (err) {
     const code = (err as NodeJS.ErrnoException).code;
     throw new TilefluxError(
@@ -363,7 +420,12 @@ export function readFieldFile(path: string): LoadedField {
       path,
     );
   }
-  const loaded = parseField(text, path);
+}
+
+/** Read and validate a field file from disk, with changes to its base given outside it. */
+export function readFieldFile(path: string, overrides: readonly FieldOverride[] = []): LoadedField {
+  const text = readTextFile(path);
+  const loaded = parseField(text, path, overrides);
   // A rating given by observations is fitted now, from a file named relative to the field file.
   const fields = [loaded.base, ...loaded.scenarios.map((s) => s.field)];
   for (const f of fields) {

@@ -3,7 +3,6 @@
  * checked with every problem located by file, line and column, and PROFILE.csv (ground
  * elevations along each main, `main,station_m,elevation_m` or with `_ft` columns).
  */
-import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { CsvError, parse } from 'csv-parse/sync';
 import { TilefluxError } from '../errors.js';
@@ -14,7 +13,7 @@ import { designSystem, type SystemSettings } from '../drainage/systemDesign.js';
 import { systemSchema, type SystemFile } from '../drainage/systemSchema.js';
 import { buildSystemTree, type SystemTree } from '../drainage/systemTree.js';
 import { US } from '../units/quantity.js';
-import { locate, locatedIssue, readYamlMapping, type Path } from './field.js';
+import { locate, locatedIssue, readTextFile, readYamlMapping, type Path } from './field.js';
 
 /** A read system: the validated file, its checked tree and the design settings. */
 export interface LoadedSystem {
@@ -37,18 +36,6 @@ function coefficientOf(c: SystemFile['coefficient']): { mmD: number; text: strin
       `preset ${c.soil} soil, ${c.crop} crops, ${c.inlets} inlets: ${inD(dc.lowInPerDay)}-` +
       `${inD(dc.highInPerDay)} in/d tabulated, middle taken; ${dc.source}`,
   };
-}
-
-function readText(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (err) {
-    const code = (err as NodeJS.ErrnoException).code;
-    throw new TilefluxError(
-      code === 'ENOENT' ? 'file not found' : `cannot read the file (${code ?? String(err)})`,
-      path,
-    );
-  }
 }
 
 /** "mains[0].reaches[1].grade" as a path. */
@@ -99,7 +86,7 @@ export function parseSystem(text: string, file = 'system file'): LoadedSystem {
 
 /** Read, validate and check a system file from disk. */
 export function readSystemFile(path: string): LoadedSystem {
-  return parseSystem(readText(path), path);
+  return parseSystem(readTextFile(path), path);
 }
 
 type CsvRecord = { record: string[]; info: { lines: number } };
@@ -203,7 +190,7 @@ export function parseProfile(text: string, file = 'profile'): Map<string, Ground
 
 /** Read ground profiles from a CSV file. */
 export function readProfileFile(path: string): Map<string, GroundProfile> {
-  return parseProfile(readText(path), path);
+  return parseProfile(readTextFile(path), path);
 }
 
 /**

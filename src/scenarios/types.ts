@@ -50,3 +50,34 @@ export interface AnnualRow {
 
 /** Numeric keys of an annual row (everything but the scenario name). */
 export type AnnualMeasure = Exclude<keyof AnnualRow, 'scenario'>;
+
+/** Column order of annual.csv: the keys of an AnnualRow in the order `annualRows` makes them. */
+export const ANNUAL_COLUMNS: ReadonlyArray<keyof AnnualRow> = [
+  'scenario',
+  'year',
+  'days',
+  'drainflow_mm',
+  'runoff_mm',
+  'seepage_mm',
+  'et_mm',
+  'no3_load_kg_ha',
+  'fwmc_mg_l',
+  'runoff_n_kg_ha',
+  'seepage_n_kg_ha',
+  'aeration_stress_days',
+  'aeration_deficit_days',
+  'stress_days',
+  'wet_days',
+  'spring_fieldwork_days',
+  'spring_window_days',
+  'fall_fieldwork_days',
+  'fall_window_days',
+  'wt_mean_depth_m',
+  'wt_shallowest_depth_m',
+  'precip_mm',
+  'snowmelt_mm',
+  'ref_et_mm',
+  'storage_change_mm',
+  'balance_error_mm',
+  'n_balance_error_kg_ha',
+];

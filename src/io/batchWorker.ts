@@ -1,0 +1,9 @@
+/**
+ * Worker thread of a batch (piscina): runs one job and returns its rows. See batchPool.ts.
+ */
+import { runJob, type JobRows } from '../scenarios/batch.js';
+import type { BatchTask } from './batchPool.js';
+
+export default function run(t: BatchTask): JobRows {
+  return runJob(t.id, t.field, t.weather, { only: t.only });
+}

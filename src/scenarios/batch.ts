@@ -1,0 +1,160 @@
+/**
+ * Batches of fields (`tileflux batch`): which manifest rows a shard runs, the columns of the
+ * annual and summary tables, and one job's rows. Pure: the manifest, the weather files and the
+ * Parquet files are read and written in `io/`.
+ */
+import { TilefluxError } from '../errors.js';
+import type { WeatherSeries } from '../climate/weatherSeries.js';
+import { BAND_COLUMNS, COMPARISON_COLUMNS } from './compare.js';
+import { comparisonOf } from './reportData.js';
+import { runField, type FieldWithScenarios, type PeriodOptions } from './run.js';
+import { ANNUAL_COLUMNS } from './types.js';
+
+/** One shard of a manifest: rows whose 0-based index i has i mod `count` = `index`. */
+export interface Shard {
+  index: number;
+  count: number;
+}
+
+/** The file-name tag of a shard: `0of4`. */
+export function shardTag(s: Shard): string {
+  return `${s.index}of${s.count}`;
+}
+
+/** Environment variables that give a shard's index, in the order they are looked at. */
+export const SHARD_INDEX_VARIABLES = ['JOB_COMPLETION_INDEX', 'SLURM_ARRAY_TASK_ID'] as const;
+
+const WHOLE = /^(0|[1-9]\d{0,5})$/;
+
+/**
+ * The shard to run, from `--shard K/N`, else the index from the environment
+ * (JOB_COMPLETION_INDEX of a Kubernetes Indexed Job, SLURM_ARRAY_TASK_ID of a Slurm array) with
+ * the count from `--shards N`; without either, the whole manifest as shard 0/1.
+ *
+ * @example shardOf({ shards: '4' }, { JOB_COMPLETION_INDEX: '2' }) // { index: 2, count: 4 }
+ */
+export function shardOf(
+  o: { shard?: string; shards?: string },
+  env: Readonly<Record<string, string | undefined>>,
+): Shard {
+  let count: number | undefined;
+  if (o.shards !== undefined) {
+    if (!WHOLE.test(o.shards) || Number(o.shards) < 1)
+      throw new TilefluxError(
+        `--shards expects a whole number of shards, 1 or more; got ${o.shards}`,
+      );
+    count = Number(o.shards);
+  }
+  if (o.shard !== undefined) {
+    const m = /^(\d+)\/(\d+)$/.exec(o.shard.trim());
+    if (!m || !WHOLE.test(m[1]) || !WHOLE.test(m[2]) || Number(m[2]) < 1)
+      throw new TilefluxError(`--shard expects K/N with 0 <= K < N, e.g. 0/4; got ${o.shard}`);
+    const s = { index: Number(m[1]), count: Number(m[2]) };
+    if (s.index >= s.count)
+      throw new TilefluxError(
+        `--shard ${o.shard}: K must be below N (shards are numbered 0 to ${s.count - 1})`,
+      );
+    if (count !== undefined && count !== s.count)
+      throw new TilefluxError(`--shard ${o.shard} and --shards ${o.shards} disagree on the count`);
+    return s;
+  }
+  const name = SHARD_INDEX_VARIABLES.find((v) => (env[v] ?? '').trim() !== '');
+  if (name === undefined) {
+    if (count !== undefined && count > 1)
+      throw new TilefluxError(
+        `--shards ${count} needs the shard's index: --shard K/${count}, or ${SHARD_INDEX_VARIABLES.join(' or ')} in the environment`,
+      );
+    return { index: 0, count: 1 };
+  }
+  const value = env[name]!.trim();
+  if (count === undefined)
+    throw new TilefluxError(
+      `${name}=${value} is set but --shards is not; give --shards N (the number of shards) or --shard K/N`,
+    );
+  if (!WHOLE.test(value))
+    throw new TilefluxError(`${name} expects a whole number from 0 to ${count - 1}; got ${value}`);
+  const index = Number(value);
+  if (index >= count)
+    throw new TilefluxError(
+      `${name}=${index} is not below --shards ${count}; shards are numbered 0 to ${count - 1}` +
+        (name === 'SLURM_ARRAY_TASK_ID' ? ` (sbatch --array=0-${count - 1})` : ''),
+    );
+  return { index, count };
+}
+
+/**
+ * The 0-based manifest row indices of a shard.
+ * @example shardRows(10, { index: 1, count: 4 }) // [1, 5, 9]
+ */
+export function shardRows(rows: number, s: Shard): number[] {
+  const out: number[] = [];
+  for (let i = s.index; i < rows; i += s.count) out.push(i);
+  return out;
+}
+
+/** Column types of the batch tables, as written to Parquet. */
+export type BatchColumnType = 'text' | 'integer' | 'number' | 'boolean';
+export interface BatchColumn {
+  name: string;
+  type: BatchColumnType;
+}
+
+const INTEGERS = new Set(['year', 'days', 'years']);
+const typed = (name: string): BatchColumn => ({
+  name,
+  type:
+    name === 'scenario'
+      ? 'text'
+      : name === 'is_baseline'
+        ? 'boolean'
+        : INTEGERS.has(name)
+          ? 'integer'
+          : 'number',
+});
+
+/** Columns of the annual table: job_id, then annual.csv's (SI units in the names). */
+export const BATCH_ANNUAL_COLUMNS: readonly BatchColumn[] = [
+  { name: 'job_id', type: 'text' },
+  ...ANNUAL_COLUMNS.map(typed),
+];
+
+/** Columns of the summary table: job_id, then comparison.csv's with the seepage band. */
+export const BATCH_SUMMARY_COLUMNS: readonly BatchColumn[] = [
+  { name: 'job_id', type: 'text' },
+  ...[...COMPARISON_COLUMNS, ...BAND_COLUMNS].map(typed),
+];
+
+/** A table row: values by column name (null where comparison.csv has an empty cell). */
+export type BatchRow = Record<string, string | number | boolean | null>;
+
+/** One job's rows: per scenario and year, and per scenario. */
+export interface JobRows {
+  annual: BatchRow[];
+  summary: BatchRow[];
+}
+
+/**
+ * Run one job: every scenario of the field (or the named ones, in the field's order) over the
+ * weather, with the seepage band, as `tileflux run` does; rows as in annual.csv and
+ * comparison.csv with the job's id in front.
+ *
+ * @example runJob('north-18m', field, weather.series).summary[0].drainflow_mm
+ */
+export function runJob(
+  id: string,
+  field: FieldWithScenarios,
+  weather: WeatherSeries,
+  o: PeriodOptions & { only?: string[] } = {},
+): JobRows {
+  const run = runField(field, weather, { ...o, seepageBand: true });
+  const pick = (r: object, columns: readonly BatchColumn[]): BatchRow => {
+    const out: BatchRow = { job_id: id };
+    const rec = r as Record<string, unknown>;
+    for (const c of columns) if (c.name !== 'job_id') out[c.name] = rec[c.name] as BatchRow[string];
+    return out;
+  };
+  return {
+    annual: run.scenarios.flatMap((s) => s.annual.map((r) => pick(r, BATCH_ANNUAL_COLUMNS))),
+    summary: comparisonOf(run).map((r) => pick(r, BATCH_SUMMARY_COLUMNS)),
+  };
+}
