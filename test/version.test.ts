@@ -22,7 +22,9 @@ describe('project metadata', () => {
     >;
     for (const deps of [pkg.dependencies, pkg.devDependencies]) {
       for (const [name, v] of Object.entries(deps))
-        expect(`${name}@${v}`).toMatch(/@\d+\.\d+\.\d+$/);
+        // An exact version, with a pre-release or revision tag where the package uses one
+        // (semver 2.0.0 section 9, e.g. 1.5.6-r.1); no range operators.
+        expect(`${name}@${v}`).toMatch(/@\d+\.\d+\.\d+(-[0-9A-Za-z.]+)?$/);
     }
   });
 });

@@ -34,6 +34,15 @@ function append(a: DuckDBAppender, c: BatchColumn, v: BatchRow[string] | undefin
 
 /** The tables of one shard: rows added job by job, written out as Parquet. */
 export class BatchStore {
+  /** Every statement goes through this chain: one connection, one statement at a time. */
+  private queue: Promise<unknown> = Promise.resolve();
+
+  private serial<T>(fn: () => Promise<T>): Promise<T> {
+    const next = this.queue.then(fn, fn);
+    this.queue = next.catch(() => undefined);
+    return next;
+  }
+
   private constructor(
     private readonly db: DuckDBInstance,
     private readonly con: DuckDBConnection,
@@ -52,7 +61,11 @@ export class BatchStore {
   }
 
   /** Add one job's rows under its manifest row index. */
-  async add(job: number, rows: JobRows): Promise<void> {
+  add(job: number, rows: JobRows): Promise<void> {
+    return this.serial(() => this.addNow(job, rows));
+  }
+
+  private async addNow(job: number, rows: JobRows): Promise<void> {
     for (const table of Object.keys(TABLES) as Table[]) {
       const a = await this.con.createAppender(table);
       rows[table].forEach((r, k) => {
@@ -106,13 +119,21 @@ export class BatchStore {
   }
 
   /** Number of rows of a table. */
-  async rows(table: Table): Promise<number> {
+  rows(table: Table): Promise<number> {
+    return this.serial(() => this.rowsNow(table));
+  }
+
+  private async rowsNow(table: Table): Promise<number> {
     const r = await this.con.runAndReadAll(`SELECT count(*)::INTEGER AS n FROM ${table}`);
     return Number(r.getRowObjects()[0].n);
   }
 
   /** Write a table to a Parquet file: a temporary file beside it, then renamed into place. */
-  async write(table: Table, path: string): Promise<void> {
+  write(table: Table, path: string): Promise<void> {
+    return this.serial(() => this.writeNow(table, path));
+  }
+
+  private async writeNow(table: Table, path: string): Promise<void> {
     const tmp = join(dirname(path), `.${basename(path)}.tmp-${process.pid}`);
     const cols = TABLES[table].map((c) => ident(c.name)).join(', ');
     try {

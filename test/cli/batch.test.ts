@@ -16,12 +16,13 @@ import {
   rmSync,
   writeFileSync,
 } from 'node:fs';
+import { spawn } from 'node:child_process';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { DuckDBInstance, type DuckDBConnection } from '@duckdb/node-api';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { toCsv } from '../../src/io/tables.js';
-import { FIELD, tileflux, WEATHER } from './cli.js';
+import { CLI, FIELD, tileflux, WEATHER } from './cli.js';
 
 let dir: string;
 let db: DuckDBInstance;
@@ -272,6 +273,63 @@ describe('tileflux batch: failures and resume', () => {
     const changed = batch([join(d, 'jobs.csv'), '--out', out, '--resume']);
     expect(changed.code).toBe(1);
     expect(changed.stderr).toMatch(/line 2, column 2 \(field\): no such field file/);
+  });
+});
+
+describe('tileflux batch: stopped while running', () => {
+  it('SIGTERM records the finished jobs; --resume runs the rest and equals a run in one go', async () => {
+    const d = join(dir, 'stopped');
+    mkdirSync(d);
+    copyFileSync(FIELD, join(d, 'field.yaml'));
+    shortWeather(join(d, 'w.csv'), 5);
+    const rows = Array.from({ length: 24 }, (_, j) => `j${j},field.yaml,w.csv,${12 + j} m`);
+    writeFileSync(
+      join(d, 'jobs.csv'),
+      ['id,field,weather,drains.spacing', ...rows].join('\n') + '\n',
+    );
+    const out = join(d, 'out');
+    const status = join(out, 'status-0of1.csv');
+    const child = spawn(
+      process.execPath,
+      [CLI, 'batch', join(d, 'jobs.csv'), '--out', out, '--workers', '0'],
+      { env: { ...process.env, TILEFLUX_TEST_CHECKPOINT_S: '0', JOB_COMPLETION_INDEX: '' } },
+    );
+    let stderr = '';
+    child.stderr.on('data', (b: Buffer) => (stderr += b.toString()));
+    const exited = new Promise<number | null>((r) => child.on('exit', (code) => r(code)));
+    // Stop it once the files record a finished job (they are rewritten after every job here).
+    const t0 = Date.now();
+    while (!(existsSync(status) && /,ok,/.test(readFileSync(status, 'utf8')))) {
+      if (Date.now() - t0 > 60_000) throw new Error(`no job finished: ${stderr}`);
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    child.kill('SIGTERM');
+    expect(await exited, stderr).toBe(143);
+    expect(stderr).toMatch(
+      /stopped by SIGTERM; \d+ of 24 jobs of shard 0\/1 are recorded.*--resume/,
+    );
+    const states = readFileSync(status, 'utf8')
+      .trim()
+      .split('\n')
+      .slice(1)
+      .map((l) => l.split(',')[1]);
+    const done = states.filter((s) => s === 'ok').length;
+    expect(states.filter((s) => s === 'pending').length).toBe(24 - done);
+    expect(done).toBeGreaterThan(0);
+    expect(done).toBeLessThan(24);
+    expect(readdirSync(out).filter((n) => n.startsWith('.'))).toEqual([]);
+
+    const r = batch([join(d, 'jobs.csv'), '--out', out, '--resume', '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    expect(JSON.parse(r.stdout)).toMatchObject({ jobs: 24, ok: 24, kept_from_earlier_run: done });
+    const ref = batch([join(d, 'jobs.csv'), '--out', join(d, 'ref'), '--workers', '2']);
+    expect(ref.code, ref.stderr).toBe(0);
+    for (const table of ['annual', 'summary']) {
+      const a = await query(`SELECT * FROM '${out}/${table}-0of1.parquet'`);
+      const b = await query(`SELECT * FROM '${d}/ref/${table}-0of1.parquet'`);
+      expect(a.length).toBe(table === 'annual' ? 24 * 3 * 4 : 24 * 3);
+      expect(a).toEqual(b);
+    }
   });
 });
 

@@ -45,6 +45,8 @@ export const EXIT_JOBS_FAILED = 3;
 
 /** Seconds between the rewrites of a shard's files while it runs (what --resume picks up). */
 const CHECKPOINT_S = 30;
+/** Test hook: `TILEFLUX_TEST_CHECKPOINT_S=0` rewrites the files after every job. */
+const checkpointS = () => Number(process.env.TILEFLUX_TEST_CHECKPOINT_S ?? CHECKPOINT_S);
 
 const SIGNALS = { SIGINT: 2, SIGTERM: 15, SIGHUP: 1 } as const;
 
@@ -276,7 +278,7 @@ async function batch(manifestPath: string, o: BatchCommandOptions): Promise<void
             done('failed', oneLine(err));
           }
           bar.tick(job.id);
-          if (performance.now() - lastWrite > CHECKPOINT_S * 1000) void writeFiles();
+          if (performance.now() - lastWrite >= checkpointS() * 1000) void writeFiles();
         }
       };
       // Two jobs in flight per worker keep every worker busy while results are stored.
