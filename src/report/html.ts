@@ -9,6 +9,7 @@ import type { ComparisonRow } from '../scenarios/compare.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import { CHART_CAPTIONS, type ChartName } from './charts.js';
 import { counted, fixed, signed } from './format.js';
+import { boardTable } from '../scenarios/boards.js';
 import { cropConditionLines, headlineLines } from './summary.js';
 import type { ReportData } from './types.js';
 import { displayUnits, type DisplayUnit } from './units.js';
@@ -500,6 +501,87 @@ function dayMonth(key: string): string {
   return `${Number(key.slice(3))} ${MONTHS[Number(key.slice(0, 2)) - 1]}`;
 }
 
+/** A step date in words: "25 Oct" for a yearly step, "25 Oct 2015" for a dated one. */
+function stepDate(from: string): string {
+  return from.length === 5 ? dayMonth(from) : `${dayMonth(from.slice(5))} ${from.slice(0, 4)}`;
+}
+
+/** "3 boards", "1 board". */
+function boardsText(n: number): string {
+  return counted(Math.abs(n), 'board');
+}
+
+/**
+ * The outlet schedule of every scenario with a control structure: dates, levels and, when the
+ * field gives a board height, boards standing and boards to add or take out on each date.
+ * Empty when every outlet is free.
+ */
+export function outletScheduleTable(data: ReportData): string {
+  const du = displayUnits(data.units);
+  const level = (m: number) => `${shown(m, { ...du.length, decimals: 2 })} ${du.length.label}`;
+  const managed = data.scenarios.filter((s) => s.outletSteps && s.outletSteps.length > 0);
+  if (managed.length === 0) return '';
+  const withBoards = managed.some((s) => s.boardHeightM !== undefined);
+  const rows = managed.flatMap((s) => {
+    const table = boardTable(s.outletSteps!, s.drainDepthM, s.boardHeightM);
+    return table.map((r, k) => {
+      const free = r.levelM === null || r.levelM >= s.drainDepthM;
+      const asked = free ? 'free' : shown(r.levelM, { ...du.length, decimals: 2 });
+      let action: string;
+      if (r.change !== null) {
+        action =
+          r.change > 0
+            ? `add ${boardsText(r.change)}`
+            : r.change < 0
+              ? r.boards === 0
+                ? `take out all ${boardsText(r.change)} (free outlet)`
+                : `take out ${boardsText(r.change)}`
+              : 'no change';
+      } else {
+        action = free ? 'free the outlet' : `set the outlet to ${level(r.levelM!)}`;
+      }
+      const boards =
+        r.boards === null
+          ? withBoards
+            ? '<td class="text">no board height given</td>'
+            : ''
+          : `<td class="text">${boardsText(r.boards)}` +
+            (r.levelM !== null && r.boards > 0 && Math.abs(r.boardLevelM! - r.levelM) > 0.005
+              ? ` (outlet at ${escapeHtml(level(r.boardLevelM!))})`
+              : '') +
+            `</td>`;
+      return (
+        `<tr>${k === 0 ? `<th scope="row" rowspan="${table.length}">${escapeHtml(s.name)}</th>` : ''}` +
+        `<td class="text">${escapeHtml(stepDate(r.from))}</td>` +
+        `<td class="text">${escapeHtml(asked)}</td>${boards}` +
+        `<td class="text">${escapeHtml(action)}</td></tr>`
+      );
+    });
+  });
+  const heights = managed
+    .filter((s) => s.boardHeightM !== undefined)
+    .map((s) => {
+      const h =
+        data.units === 'us'
+          ? `${fixed(s.boardHeightM! / 0.0254, 1)} in`
+          : `${fixed(s.boardHeightM! * 100, 1)} cm`;
+      return `${s.name}: boards ${h} high`;
+    });
+  return (
+    `<table class="keep" id="outlet-table"><caption>The control structure through the year. ` +
+    `Dates given as day and month repeat every year; the level is the outlet's height below the ` +
+    `surface (free: at the drains). ` +
+    (withBoards
+      ? `Boards are counted up from the outlet pipe at drain depth, rounded to whole boards ` +
+        `(${escapeHtml(heights.join('; '))}).`
+      : `Give outlet.boardHeight in the field file (e.g. 6 in) to see the schedule in boards.`) +
+    `</caption><thead><tr><th scope="col">Scenario</th><th scope="col">From</th>` +
+    `<th scope="col">Outlet level <span class="unit">(${du.length.label} below surface)</span></th>` +
+    (withBoards ? `<th scope="col">Boards standing</th>` : '') +
+    `<th scope="col">On that date</th></tr></thead>\n<tbody>\n${rows.join('\n')}\n</tbody></table>`
+  );
+}
+
 function windowText(w: { from: string; to: string }): string {
   return `${dayMonth(w.from)} to ${dayMonth(w.to)}`;
 }
@@ -756,6 +838,7 @@ export function buildReportHtml(
         `</tbody></table>` +
         scenarioTable(data),
     ],
+    ['outlet', 'The outlet schedule', outletScheduleTable(data)],
     ['comparison', 'Comparison', comparisonTable(data)],
     ['windows', 'Water table in the fieldwork windows', windowTable(data)],
     [
@@ -783,7 +866,7 @@ export function buildReportHtml(
     title: data.title,
     meta: `${data.fieldName} \u00b7 ${data.period.from} to ${data.period.to} \u00b7 ${data.generatedBy}`,
     generatedBy: data.generatedBy,
-    sections,
+    sections: sections.filter(([, , body]) => body !== ''),
     specs,
     bundles,
   });

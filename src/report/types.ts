@@ -7,6 +7,7 @@ import type { ComparisonRow } from '../scenarios/compare.js';
 import type { WetnessSettings } from '../scenarios/annual.js';
 import type { WindowWaterTable } from '../scenarios/windows.js';
 import type { AnnualRow } from '../scenarios/types.js';
+import type { OutletStep } from '../engine/outletSchedule.js';
 
 /** Daily series of one scenario, aligned with `ReportData.daily.dates`. */
 export interface ScenarioDailySeries {
@@ -42,6 +43,10 @@ export interface ReportData {
     spacingM: number;
     /** Outlet management in words, e.g. "free" or "held at 0.3 m Nov-Mar". */
     outlet: string;
+    /** The control-structure schedule (absent for a free outlet), SI. */
+    outletSteps?: OutletStep[];
+    /** Height of one stop-log board, m, when the field file gives it. */
+    boardHeightM?: number;
   }>;
   comparison: ComparisonRow[];
   annual: AnnualRow[];

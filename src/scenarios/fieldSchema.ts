@@ -195,15 +195,22 @@ const outletStep = (from: z.ZodString) =>
       .describe('Outlet level below the surface, or "free"'),
   });
 
+/** Height of one stop-log board: the report then gives the schedule in boards. */
+const boardHeight = zQuantity(
+  'length',
+  'Height of one stop-log board of the control structure, e.g. 6 in; the report then gives the schedule in boards (counted up from the outlet pipe at drain depth)',
+  { min: 0.01, max: 0.6 },
+).optional();
+
 export const outletSchema = z
   .union([
     z.literal('free'),
-    z.strictObject({ schedule: z.array(outletStep(mmdd)).min(1) }),
-    z.strictObject({ dates: z.array(outletStep(isoDate)).min(1) }),
+    z.strictObject({ schedule: z.array(outletStep(mmdd)).min(1), boardHeight }),
+    z.strictObject({ dates: z.array(outletStep(isoDate)).min(1), boardHeight }),
   ])
   .default('free')
   .describe(
-    'Outlet: "free", a yearly schedule {schedule: [{from: "MM-DD", depth}]}, or a one-off dated list {dates: [{from: "YYYY-MM-DD", depth}]}',
+    'Outlet: "free", a yearly schedule {schedule: [{from: "MM-DD", depth}]}, or a one-off dated list {dates: [{from: "YYYY-MM-DD", depth}]}; either may give boardHeight',
   );
 
 const cropOverride = z.strictObject({

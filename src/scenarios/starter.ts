@@ -136,7 +136,7 @@ function emit(
       out.push(`${indent}#   - { name: shallow, drains: { depth: 0.75 m, spacing: 12 m } }`);
       out.push(`${indent}#   - name: controlled`);
       out.push(
-        `${indent}#     outlet: { schedule: [ { from: "11-01", depth: 0.3 m }, { from: "04-01", depth: free } ] }`,
+        `${indent}#     outlet: { boardHeight: 6 in, schedule: [ { from: "11-01", depth: 0.3 m }, { from: "04-01", depth: free } ] }`,
       );
     } else if (child && dflt !== undefined && typeof dflt === 'object') {
       out.push(`${indent}# ${key}:`);

@@ -136,6 +136,14 @@ describe('tileflux demo', () => {
     expect(Number(t)).toBeCloseTo(tmean, 1);
   });
 
+  it("the report gives the demo's control structure in boards: (1.1 - 0.5) / 0.15 = 4 boards", () => {
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    expect(html).toContain('id="outlet-table"');
+    expect(html).toContain('add 4 boards');
+    // (1.1 - 0.15) / 0.15 = 6.33: 6 boards, which hold the outlet at 1.1 - 0.9 = 0.20 m.
+    expect(html).toContain('6 boards (outlet at 0.20 m)');
+  });
+
   it("the report says how the crop's conditions changed, counts beside window lengths", () => {
     const html = readFileSync(join(out, 'report.html'), 'utf8');
     for (const name of ['controlled', 'shallow']) {

@@ -255,6 +255,40 @@ describe('report content', () => {
     );
   });
 
+  it('the outlet schedule: dates, levels, boards standing and boards to move (worked by hand)', () => {
+    const steps = [
+      { from: '10-25', depthM: 0.15 },
+      { from: '04-05', depthM: null },
+    ];
+    const withBoards: ReportData = {
+      ...data,
+      scenarios: data.scenarios.map((s, i) =>
+        i === 2 ? { ...s, drainDepthM: 1.1, outletSteps: steps, boardHeightM: 0.1524 } : s,
+      ),
+    };
+    const page = buildReportHtml(withBoards, specs, stub);
+    const table = page.match(/<table class="keep" id="outlet-table">[\s\S]*?<\/table>/)![0];
+    const cells = (row: string) =>
+      [...row.matchAll(/<t[hd][^>]*>([^<]*)</g)].map((m) => m[1].trim()).filter(Boolean);
+    const rows = table.split('<tr>').slice(2).map(cells);
+    // (1.1 - 0.15) / 0.1524 = 6.23 -> 6 boards, giving an outlet 1.1 - 0.9144 = 0.19 m deep.
+    expect(rows[0]).toEqual([
+      'controlled',
+      '25 Oct',
+      '0.15',
+      '6 boards (outlet at 0.19 m)',
+      'add 6 boards',
+    ]);
+    expect(rows[1]).toEqual(['5 Apr', 'free', '0 boards', 'take out all 6 boards (free outlet)']);
+    expect(table).toContain('controlled: boards 15.2 cm high');
+    // US: the board height in inches, levels in feet (0.15 m = 0.49 ft).
+    const us = buildReportHtml({ ...withBoards, units: 'us' }, specs, stub);
+    expect(us).toContain('controlled: boards 6.0 in high');
+    expect(us).toMatch(/<td class="text">0\.49<\/td>/);
+    // Without any managed outlet, the section is left out.
+    expect(html).not.toContain('id="outlet-table"');
+  });
+
   it('formats changes with a sign and no negative zero', () => {
     expect(signed(4.08)).toBe('+4.1');
     expect(signed(-0.04)).toBe('0.0');
