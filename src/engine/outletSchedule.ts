@@ -21,7 +21,7 @@ export interface OutletStep {
 export type OutletSchedule = 'free' | { steps: OutletStep[] };
 
 /** A sortable integer key of a step date: MMDD for "MM-DD", YYYYMMDD for "YYYY-MM-DD". */
-function stepKey(from: string): number {
+export function stepKey(from: string): number {
   return from.length === 5
     ? monthDayKey(from)
     : Number(from.slice(0, 4)) * 10000 + monthDayKey(from.slice(5));

@@ -8,8 +8,7 @@
  * (common practice for inline water-control structures). Levels that are not a whole number of
  * boards are rounded to the nearest board, and the level those boards give is stated beside it.
  */
-import type { OutletStep } from '../engine/outletSchedule.js';
-import { monthDayKey } from '../climate/calendar.js';
+import { stepKey, type OutletStep } from '../engine/outletSchedule.js';
 
 /** One row of the board table: a schedule step and what it means in the structure. */
 export interface BoardRow {
@@ -23,13 +22,6 @@ export interface BoardRow {
   change: number | null;
   /** The level the boards give, m below the surface (the drain depth when there are none). */
   boardLevelM: number | null;
-}
-
-/** Sort key of a step date: yearly steps by month and day, dated ones by date. */
-function key(from: string): number {
-  return from.length === 5
-    ? monthDayKey(from)
-    : Number(from.slice(0, 4)) * 10000 + monthDayKey(from.slice(5));
 }
 
 /**
@@ -52,7 +44,7 @@ export function boardTable(
     if (levelM === null || levelM >= drainDepthM) return 0;
     return Math.round((drainDepthM - levelM) / boardHeightM);
   };
-  const sorted = [...steps].sort((a, b) => key(a.from) - key(b.from));
+  const sorted = [...steps].sort((a, b) => stepKey(a.from) - stepKey(b.from));
   const yearly = steps[0]?.from.length === 5;
   return steps.map((s) => {
     const at = sorted.indexOf(s);
