@@ -74,6 +74,18 @@ export const PALETTE = [
 ];
 const THRESHOLD_COLOUR = '#8c1c13';
 /** Precipitation bars and the fieldwork-window bands: neutral, so scenario colours stay clear. */
+/**
+ * The dotted line of the wet threshold. The threshold is named in text (a label beside the line
+ * or the figure's caption), so the line is left out of the accessibility tree, where an unnamed
+ * graphic would be a barrier.
+ */
+const THRESHOLD_RULE = {
+  type: 'rule' as const,
+  color: THRESHOLD_COLOUR,
+  strokeDash: [2, 3],
+  strokeWidth: 1.5,
+  aria: false,
+};
 const RAIN_COLOUR = '#6f8fa8';
 const WINDOW_FILL = '#8a8a8a';
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -333,7 +345,7 @@ export function waterTableChart(data: ReportData): TopLevelSpec {
           },
           {
             data: { values: [{}] },
-            mark: { type: 'rule', color: THRESHOLD_COLOUR, strokeDash: [2, 3], strokeWidth: 1.5 },
+            mark: THRESHOLD_RULE,
             encoding: { y: { datum: threshold, type: 'quantitative' } },
           },
           {
@@ -740,7 +752,7 @@ export function durationChart(data: ReportData): TopLevelSpec {
       },
       {
         data: { values: [{}] },
-        mark: { type: 'rule', color: THRESHOLD_COLOUR, strokeDash: [2, 3], strokeWidth: 1.5 },
+        mark: THRESHOLD_RULE,
         encoding: { x: { datum: threshold, type: 'quantitative' } },
       },
     ],

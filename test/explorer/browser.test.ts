@@ -8,6 +8,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchChromium } from '../support/chromium.js';
@@ -43,16 +44,23 @@ async function pageRow(page: Page, design: 'a' | 'b') {
   };
 }
 
-/** Wait until the page has shown `n` runs and is idle. */
+/** Wait until the page has shown at least `n` runs and shows the latest settings. */
 async function runsShown(page: Page, n: number): Promise<void> {
-  await page.waitForSelector(`html[data-runs="${n}"][data-state="ready"]`, { timeout: 60_000 });
+  await page.waitForFunction(
+    (k) => {
+      const html = document.documentElement;
+      return Number(html.getAttribute('data-runs')) >= k && html.dataset.state === 'ready';
+    },
+    n,
+    { timeout: 60_000 },
+  );
 }
 
-/** Set a control and fire its change event (as leaving the box does). */
+/** Type a value into a control and leave it with the Tab key, as a person would. */
 async function setControl(page: Page, control: string, value: string): Promise<void> {
   const box = page.locator(`[data-control="${control}"]`);
   await box.fill(value);
-  await box.dispatchEvent('change');
+  await box.press('Tab');
 }
 
 describe('explorer page in a browser', () => {
@@ -177,11 +185,72 @@ describe('explorer page in a browser', () => {
     expect(printedRow(again, 'conventional')).toEqual(a);
     expect(printedRow(again, 'controlled')).toEqual(b);
 
+    // Every chart drawn for the latest run, with data marks, and no chart error.
+    await page.waitForFunction(
+      () => {
+        const html = document.documentElement;
+        return html.dataset.charts !== undefined && html.dataset.charts === html.dataset.runs;
+      },
+      null,
+      { timeout: 60_000 },
+    );
+    for (const name of ['water-table', 'cumulative', 'annual', 'duration']) {
+      const box = page.locator(`.chart[data-chart="${name}"]`);
+      expect(await box.locator('svg').count(), `${name}: an svg`).toBe(1);
+      const marks = await box.locator('g.mark-line > path, g.mark-rect > path').count();
+      expect(marks, `${name}: data marks drawn`).toBeGreaterThan(0);
+      expect(await page.locator('.chart-error').count()).toBe(0);
+    }
+
     expect(problems).toEqual([]);
     for (const url of requests) expect(url).toMatch(/^(file|blob):/);
     expect(requests.filter((u) => u.startsWith('file:'))).toEqual([pathToFileURL(file).href]);
     await page.close();
   }, 180_000);
+
+  it('keeps the settings and chart year in the address: the link reproduces the view', async () => {
+    const page = await browser.newPage();
+    await page.goto(pathToFileURL(file).href);
+    await runsShown(page, 1);
+    await setControl(page, 'a-spacing', '22');
+    await runsShown(page, 2);
+    await page.click('[data-control="a-add-row"]');
+    await runsShown(page, 3);
+    await setControl(page, 'a-from-1', '11-15');
+    await runsShown(page, 4);
+    await page.selectOption('[data-control="chart-year"]', '2001');
+    await runsShown(page, 5);
+    const link = page.url();
+    expect(link).toMatch(/#v1=/);
+    const headline = await page.locator('#headline').innerText();
+
+    const again = await browser.newPage();
+    await again.goto(link);
+    await runsShown(again, 1);
+    expect(await again.locator('[data-control="a-spacing"]').inputValue()).toBe('22');
+    expect(await again.locator('[data-control="a-from-1"]').inputValue()).toBe('11-15');
+    expect(await again.locator('[data-control="chart-year"]').inputValue()).toBe('2001');
+    expect(await again.locator('#headline').innerText()).toBe(headline);
+    // The changed spacing did change the figures of the unchanged page.
+    const plain = await browser.newPage();
+    await plain.goto(pathToFileURL(file).href);
+    await runsShown(plain, 1);
+    expect(await plain.locator('#headline').innerText()).not.toBe(headline);
+    await Promise.all([page.close(), again.close(), plain.close()]);
+  }, 120_000);
+
+  it('has no serious or critical accessibility violations (axe-core)', async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await page.goto(pathToFileURL(file).href);
+    await page.waitForSelector('html[data-charts="1"]', { timeout: 60_000 });
+    const result = await new AxeBuilder({ page }).analyze();
+    const bad = result.violations
+      .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+      .map((v) => `${v.id}: ${v.help} at ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+    expect(bad).toEqual([]);
+    await context.close();
+  }, 120_000);
 
   it('shows hostile field and scenario names as text only', async () => {
     const hostile = join(dir, 'hostile.yaml');
@@ -210,7 +279,11 @@ describe('explorer page in a browser', () => {
     expect(await page.locator('#design-b legend .name').textContent()).toBe(
       '</script><script>alert(2)</script>',
     );
-    expect(await page.locator('script').count()).toBe(2);
+    expect(await page.locator('script').count()).toBe(5);
+    await page.waitForSelector('html[data-charts="1"]', { timeout: 60_000 });
+    // Legends may shorten a long name with an ellipsis; it is still text.
+    const texts = await page.locator('.chart svg text').allTextContents();
+    expect(texts.some((t) => t.startsWith('<img src=x onerror'))).toBe(true);
     await page.waitForTimeout(300);
     expect(dialogs).toEqual([]);
     expect(problems).toEqual([]);

@@ -22,14 +22,27 @@ import {
   type ExplorerSettings,
 } from './model.js';
 import { savedFieldYaml } from './savedField.js';
+import { EXPLORER_CHARTS, explorerChartSpecs, type ExplorerChart } from './charts.js';
+import { readHash, writeHash } from './hashState.js';
 import type { NitrateConfig } from '../../nitrate/types.js';
 
 /** Request and answer between the page and the worker. */
 type Request =
-  { type: 'init'; data: ExplorerData } | { type: 'run'; id: number; settings: ExplorerSettings };
+  | { type: 'init'; data: ExplorerData }
+  | { type: 'run'; id: number; settings: ExplorerSettings; year: number | null };
 type Answer =
-  | { type: 'result'; id: number; rows: ComparisonRow[] }
+  | {
+      type: 'result';
+      id: number;
+      rows: ComparisonRow[];
+      specs: Record<ExplorerChart, object>;
+      year: number;
+      years: number[];
+    }
   | { type: 'error'; id: number; message: string };
+
+/** vega-embed's entry point, inlined on the page as a global (not in the worker). */
+type VegaEmbed = (el: Element, spec: object, opts: Record<string, unknown>) => Promise<unknown>;
 
 /** Answer run requests on a prepared field (in the worker, or on the page). */
 function engine() {
@@ -44,7 +57,16 @@ function engine() {
     try {
       if (!data) throw new Error('no field loaded');
       prepared ??= prepareExplorer(data);
-      return { type: 'result', id: req.id, rows: runBoth(prepared, data, req.settings).rows };
+      const both = runBoth(prepared, data, req.settings);
+      const charts = explorerChartSpecs(prepared, data, both.runs, both.rows, req.year);
+      return {
+        type: 'result',
+        id: req.id,
+        rows: both.rows,
+        specs: charts.specs,
+        year: charts.year,
+        years: both.runs[0].annual.map((r) => r.year),
+      };
     } catch (err) {
       return {
         type: 'error',
@@ -214,6 +236,13 @@ function startPage(source: string): void {
   const cu = controlUnits(data.units);
   const du = displayUnits(data.units);
   const settings: ExplorerSettings = settingsOf(data);
+  // A link with settings in its fragment reproduces that view.
+  let year: number | null = null;
+  const linked = readHash(location.hash, settings);
+  if (linked) {
+    Object.assign(settings, linked.settings);
+    year = linked.year;
+  }
   const root = document.getElementById('explorer')!;
   const status = document.getElementById('status')!;
   const problemsBox = document.getElementById('problems')!;
@@ -238,7 +267,9 @@ function startPage(source: string): void {
       return;
     }
     showResults(a.rows);
+    showYears(a.years, a.year);
     shown++;
+    drawCharts(a.specs, shown);
     status.textContent = `Updated: ${a.rows[0].years} years of weather run for both designs in ${Math.round(took.duration)} ms, ${mode()}.`;
     document.documentElement.setAttribute('data-runs', String(shown));
     document.documentElement.setAttribute('data-state', 'ready');
@@ -278,7 +309,13 @@ function startPage(source: string): void {
       document.documentElement.setAttribute('data-state', 'invalid');
       return;
     }
-    const req: Request = { type: 'run', id: ++runId, settings: structuredClone(settings) };
+    writeHash(settings, year);
+    const req: Request = {
+      type: 'run',
+      id: ++runId,
+      settings: structuredClone(settings),
+      year,
+    };
     performance.mark(`tileflux-run-start-${req.id}`);
     status.textContent = 'Computing every year for both designs\u2026';
     document.documentElement.setAttribute('data-state', 'busy');
@@ -560,6 +597,57 @@ function startPage(source: string): void {
       head,
       body,
     );
+  }
+
+  // --- charts: drawn on the page by vega-embed, with vega's expression interpreter (no eval) ---
+  const yearBox = document.getElementById('chart-year') as HTMLSelectElement;
+  yearBox.addEventListener('change', () => {
+    year = Number(yearBox.value);
+    request();
+  });
+  function showYears(years: number[], chosen: number): void {
+    if (yearBox.options.length !== years.length) {
+      yearBox.replaceChildren(...years.map((y) => el('option', { value: String(y) }, String(y))));
+    }
+    yearBox.value = String(chosen);
+  }
+  // One drawing at a time; specs that arrive meanwhile wait, and only the latest is drawn.
+  let drawing = false;
+  let next: { specs: Record<ExplorerChart, object>; run: number } | undefined;
+  function drawCharts(specs: Record<ExplorerChart, object>, run: number): void {
+    next = { specs, run };
+    if (!drawing) void drawLatest();
+  }
+  async function drawLatest(): Promise<void> {
+    const embed = (globalThis as { vegaEmbed?: VegaEmbed }).vegaEmbed;
+    if (!embed) return;
+    drawing = true;
+    while (next) {
+      const { specs, run } = next;
+      next = undefined;
+      performance.mark(`tileflux-draw-start-${run}`);
+      await Promise.all(
+        EXPLORER_CHARTS.map(async (name) => {
+          const box = document.querySelector(`.chart[data-chart="${name}"]`);
+          if (!box) return;
+          try {
+            await embed(box, specs[name], { actions: false, renderer: 'svg', ast: true });
+            box.classList.remove('chart-error');
+          } catch (err) {
+            box.textContent = `This chart could not be drawn: ${err instanceof Error ? err.message : String(err)}`;
+            box.classList.add('chart-error');
+          }
+        }),
+      );
+      performance.mark(`tileflux-draw-end-${run}`);
+      performance.measure(
+        'tileflux-draw',
+        `tileflux-draw-start-${run}`,
+        `tileflux-draw-end-${run}`,
+      );
+      if (!next) document.documentElement.setAttribute('data-charts', String(run));
+    }
+    drawing = false;
   }
 
   // --- save ---

@@ -21,6 +21,7 @@ import type { Field } from '../../scenarios/fieldSchema.js';
 import {
   prepareField,
   runDesign,
+  type DesignRun,
   type PeriodOptions,
   type PreparedField,
 } from '../../scenarios/prepared.js';
@@ -285,6 +286,8 @@ export const MONTH_DAY = /^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/;
 export interface BothRuns {
   rows: ComparisonRow[];
   annual: AnnualRow[];
+  /** Each design's full run (daily columns over the simulated period), A then B. */
+  runs: [DesignRun, DesignRun];
 }
 
 /**
@@ -298,7 +301,8 @@ export function runBoth(
 ): BothRuns {
   const a = scenarioOf(data.a.name, data.a.description, designField(data.a, s, s.a));
   const b = scenarioOf(data.b.name, data.b.description, designField(data.b, s, s.b));
-  const annual = [...runDesign(prepared, a).annual, ...runDesign(prepared, b).annual];
+  const runs: [DesignRun, DesignRun] = [runDesign(prepared, a), runDesign(prepared, b)];
+  const annual = [...runs[0].annual, ...runs[1].annual];
   const rows = compareScenarios(annual, {
     baseline: a.name,
     scenarios: [
@@ -306,5 +310,5 @@ export function runBoth(
       { name: b.name, spacingM: b.params.spacingM },
     ],
   });
-  return { rows, annual };
+  return { rows, annual, runs };
 }
