@@ -7,6 +7,8 @@ import { compareScenarios } from '../../src/scenarios/compare.js';
 import {
   buildChartSpecs,
   CHART_NAMES,
+  niceCeil,
+  placeLabels,
   VEGA_LITE_SCHEMA,
   waterTableChart,
 } from '../../src/report/charts.js';
@@ -245,6 +247,42 @@ describe('chart content equals figures computed here from the fixture', () => {
       expect(r.load).toBeCloseTo(c.no3_load_kg_ha, 3);
       expect(r.label).toBe(c.is_baseline ? `${c.scenario} (baseline)` : c.scenario);
     }
+  });
+
+  it('trade-off: labels of close points never overlap each other or a point', () => {
+    // Three scenarios within 0.1 wet day and 0.3 kg N/ha of each other: on a 520 x 320 px plot
+    // of 0-5 days and 0-50 kg their points are a few pixels apart.
+    const pts = [
+      { label: 'conventional (baseline)', wet: 1.0, load: 30 },
+      { label: 'controlled', wet: 1.05, load: 30.2 },
+      { label: 'shallow', wet: 1.1, load: 29.9 },
+    ];
+    const placed = placeLabels(pts, 5, 50);
+    const px = (wet: number, load: number) => [(wet / 5) * 520, 320 - (load / 50) * 320];
+    // Label boxes from the label centres, 0.62 em a character at 12 px, 14 px high.
+    const boxes = placed.map((p) => {
+      const [cx, cy] = px(p.labelWet, p.labelLoad);
+      const w = 0.62 * 12 * p.label.length;
+      return [cx - w / 2, cx + w / 2, cy - 7, cy + 7];
+    });
+    const hit = (a: number[], b: number[]) =>
+      a[0] < b[1] && b[0] < a[1] && a[2] < b[3] && b[2] < a[3];
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++)
+        expect(hit(boxes[i], boxes[j]), `${i} ${j}`).toBe(false);
+      for (const p of pts) {
+        const [x, y] = px(p.wet, p.load);
+        expect(hit(boxes[i], [x - 6, x + 6, y - 6, y + 6]), `${i} on ${p.label}`).toBe(false);
+      }
+    }
+    // A lone point keeps its label on the right.
+    const [lone] = placeLabels([{ label: 'a', wet: 2, load: 20 }], 5, 50);
+    expect(lone.labelWet).toBeGreaterThan(2);
+    expect(lone.labelLoad).toBeCloseTo(20, 6);
+  });
+
+  it('axis ends are round numbers: 1, 2, 2.5 or 5 times a power of ten', () => {
+    expect([4.2, 5, 6.5, 11, 23, 0.37].map(niceCeil)).toEqual([5, 5, 10, 20, 25, 0.5]);
   });
 
   it('converts to US units: inches of water and feet of depth (1 in = 25.4 mm, 1 ft = 0.3048 m, NIST HB 44)', () => {
