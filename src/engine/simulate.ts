@@ -30,6 +30,7 @@
  * 1e-6 mm in any year is a defect and throws.
  */
 import { dayIndexOf } from '../climate/calendar.js';
+import { TilefluxError } from '../errors.js';
 import { equivalentDepth } from '../drainage/equivalentDepth.js';
 import { kirkhamFlux, kirkhamGeometryFactor } from '../drainage/kirkham.js';
 import {
@@ -58,6 +59,12 @@ export const ACTIVE_ZONE_M = 1.0;
  * step-halving checks in test/engine and test/scenarios).
  */
 export const MIN_SUBSTEPS_PER_DAY = 8;
+/**
+ * Most internal sub-steps a day. Beyond this the drains empty the profile in minutes of model
+ * time (very high conductivity, very close spacing or a near-zero drainable porosity): a daily
+ * engine is the wrong tool, and the run would take minutes per simulated year.
+ */
+export const MAX_SUBSTEPS_PER_DAY = 20000;
 /** Largest annual water-balance residual tolerated (README, A short tour: 1e-6 mm a year), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
@@ -184,11 +191,17 @@ export function simulate(
   // (the linearised rate dq/dh / mu at the largest head), at least what the caller asks and
   // never fewer than MIN_SUBSTEPS_PER_DAY.
   const kMax = (free.a + 2 * free.b * p.drainDepthM) / table.minValue;
-  const steps = Math.max(
-    MIN_SUBSTEPS_PER_DAY,
-    p.substepsPerDay,
-    Math.ceil(kMax / MAX_RELATIVE_STEP),
-  );
+  const needed = Math.ceil(kMax / MAX_RELATIVE_STEP);
+  if (!(needed <= MAX_SUBSTEPS_PER_DAY)) {
+    const shown = Number.isFinite(needed) ? `${needed}` : 'unboundedly many';
+    throw new TilefluxError(
+      `the drains react too fast for a daily water balance: ${shown} sub-steps a day would be ` +
+        `needed (at most ${MAX_SUBSTEPS_PER_DAY}), from conductivity ${p.kAboveMPerDay} m/d above ` +
+        `and ${p.kBelowMPerDay} m/d below the drains, spacing ${p.spacingM} m and drainable ` +
+        `porosity ${table.minValue}; widen the spacing or check the conductivity and porosity`,
+    );
+  }
+  const steps = Math.max(MIN_SUBSTEPS_PER_DAY, p.substepsPerDay, needed);
   // Days without rain, melt or ponded water need no splitting of infiltration against drainage:
   // drainage is integrated exactly and FAO-56 ET is itself a daily method, so they take fewer.
   const dryDaySteps = Math.max(1, Math.ceil(steps / 8));

@@ -10,7 +10,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument, isMap, isScalar, type Document } from 'yaml';
 import type { z } from 'zod';
-import { TilefluxError } from '../errors.js';
+import { clip, TilefluxError } from '../errors.js';
 import { fieldSchema, OVERRIDABLE, type Field } from '../scenarios/fieldSchema.js';
 import { ratingFromObservations, type RatingObservationsSection } from '../nitrate/schema.js';
 import type { RatingFit } from '../nitrate/types.js';
@@ -26,6 +26,23 @@ export interface LoadedField {
   text: string;
   /** Rating fits made from observation files named in the field file, by file name. */
   ratingFits: Record<string, RatingFit>;
+  /** Legal but probably unintended settings, one line each, for stderr. */
+  warnings: string[];
+}
+
+/** Outlet steps set below the drains: legal (the outlet is then free) but rarely meant. */
+function outletWarnings(f: Field, label: string): string[] {
+  const o = f.outlet;
+  if (o === 'free') return [];
+  const [key, steps] = 'schedule' in o ? ['schedule', o.schedule] : ['dates', o.dates];
+  return steps.flatMap((s, i) =>
+    s.depth !== 'free' && s.depth > f.drains.depth
+      ? [
+          `${label}outlet.${key} step ${i + 1} (from ${s.from}) holds the outlet at ${s.depth} m, ` +
+            `below the drains at ${f.drains.depth} m: the outlet is free then`,
+        ]
+      : [],
+  );
 }
 
 export type Path = Array<string | number>;
@@ -179,24 +196,108 @@ function describeIssue(
   for (const k of path) value = (value as Record<string | number, unknown> | undefined)?.[k];
   const where = keyPath(path) || 'the file';
   if (value === undefined) return { path, message: `${where} is required` };
+  if (typeof value === 'number' && !Number.isFinite(value)) {
+    // YAML's .nan and .inf: JSON would show them as null.
+    const what = Number.isNaN(value) ? 'is not a number (.nan)' : 'is infinite (.inf)';
+    const accepted = acceptedOf(schema, path);
+    return { path, message: `${where} ${what}${accepted ? `; accepted: ${accepted}` : ''}` };
+  }
   if (issue.code === 'invalid_union') {
-    // Report the most specific branch message when a quantity or schedule failed.
-    const inner = issue.errors
-      .flat()
-      .find((e) => e.code === 'custom' || e.code === 'invalid_format');
-    if (inner) return { path, message: `${where} ${inner.message}` };
-    return { path, message: `${where} has an unexpected value ${JSON.stringify(value)}` };
+    // The branch the value was meant for (its shape matched) reports its own, deeper issue.
+    const branch = issue.errors.find(
+      (errs) =>
+        errs.length > 0 &&
+        !errs.some(
+          (e) =>
+            e.path.length === 0 &&
+            (e.code === 'invalid_type' ||
+              e.code === 'unrecognized_keys' ||
+              e.code === 'invalid_value' ||
+              e.code === 'invalid_union'),
+        ),
+    );
+    if (branch) {
+      const inner = describeIssue(
+        { ...firstIssue(branch), path: [...issue.path, ...firstIssue(branch).path] },
+        schema,
+        input,
+      );
+      if (inner.path.length > path.length) return inner;
+      const accepted = acceptedOf(schema, path);
+      return {
+        path,
+        message:
+          accepted && !inner.message.includes('; accepted: ')
+            ? `${inner.message}; accepted: ${accepted}`
+            : inner.message,
+      };
+    }
+    const accepted = acceptedOf(schema, path);
+    return {
+      path,
+      message:
+        `${where} has an unexpected value ${show(value)}` +
+        (accepted ? `; accepted: ${accepted}` : ''),
+    };
   }
   if (issue.code === 'invalid_value') {
     return {
       path,
-      message: `${where} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}; got ${JSON.stringify(value)}`,
+      message: `${where} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}; got ${show(value)}`,
     };
   }
   if (issue.code === 'invalid_type') {
-    return { path, message: `${where} expects ${issue.expected}; got ${JSON.stringify(value)}` };
+    return { path, message: `${where} expects ${issue.expected}; got ${show(value)}` };
   }
   return { path, message: `${where} ${issue.message}` };
+}
+
+/** A value as echoed in a message: JSON, cut to about 80 characters. */
+function show(value: unknown): string {
+  return clip(JSON.stringify(value) ?? String(value));
+}
+
+/** The description of the schema at `path` (what it accepts), if it has one. */
+function acceptedOf(schema: z.ZodType, path: Path): string | undefined {
+  type Def = { type: string; [k: string]: unknown };
+  const defOf = (x: unknown) => (x as { _zod?: { def?: Def } } | undefined)?._zod?.def;
+  const descOf = (x: unknown) => (x as { description?: string } | undefined)?.description;
+  // Walk down, remembering the outermost description of the node at the end of the path.
+  const unwrap = (x: unknown): unknown => {
+    for (let k = 0; k < 10; k++) {
+      const def = defOf(x);
+      if (def?.innerType) x = def.innerType;
+      else if (def?.type === 'pipe') x = def.in;
+      else return x;
+    }
+    return x;
+  };
+  const child = (x: unknown, key: string | number): unknown => {
+    const def = defOf(unwrap(x));
+    if (!def) return undefined;
+    if (def.type === 'object') return (def.shape as Record<string, unknown>)[String(key)];
+    if (def.type === 'array') return def.element;
+    if (def.type === 'record') return def.valueType;
+    if (def.type === 'union') {
+      for (const o of def.options as unknown[]) {
+        const c = child(o, key);
+        if (c !== undefined) return c;
+      }
+    }
+    return undefined;
+  };
+  let s: unknown = schema;
+  for (const key of path) {
+    s = child(s, key);
+    if (s === undefined) return undefined;
+  }
+  for (let k = 0; k < 10 && s; k++) {
+    const d = descOf(s);
+    if (d) return d.replace(/\.$/, '');
+    const def = defOf(s);
+    s = def?.innerType ?? (def?.type === 'pipe' ? def.in : undefined);
+  }
+  return undefined;
 }
 
 /** The issue to report first: a misspelt key explains the missing key it usually causes. */
@@ -327,7 +428,7 @@ export function parseField(
 ): LoadedField {
   const src = readYamlMapping(text, file, 'name, soil, drains, ...');
   const { doc, lc, raw } = src;
-  const fail = (issue: z.core.$ZodIssue, input: unknown, prefix: Path): never => {
+  const fail = (issue: z.core.$ZodIssue, input: unknown, prefix: Path, scenario = ''): never => {
     const issuePath = issue.path.map(String);
     // A value the override gave (checked with the base; a scenario's own keys are its own).
     const given =
@@ -337,7 +438,7 @@ export function parseField(
     if (given !== undefined) {
       throw new TilefluxError(describeIssue(issue, fieldSchema, input).message, given.where);
     }
-    const note = prefix.length ? `in scenario ${prefix[1]}: ` : '';
+    const note = scenario ? `in scenario ${scenario}: ` : '';
     throw new TilefluxError(locatedIssue(src, fieldSchema, [issue], input, prefix, note), file);
   };
 
@@ -361,7 +462,7 @@ export function parseField(
         const hint = suggest(key, allowed);
         const at = locate(doc, lc, ['scenarios', i], key);
         throw new TilefluxError(
-          `${at}: unknown key "scenarios[${i}].${key}"` +
+          `${at}: unknown key "${key}" in scenario ${scenarioLabel(sc.name, i)}` +
             (hint ? `; did you mean "${hint}"?` : `; a scenario may set ${allowed.join(', ')}`),
           file,
         );
@@ -397,8 +498,8 @@ export function parseField(
         top in sc &&
         doc.getIn(['scenarios', i, ...issue.path.map((p) => p as string | number)], true);
       if (inScenario || (top in sc && issue.code === 'unrecognized_keys'))
-        fail(issue, merged, ['scenarios', i]);
-      fail(issue, merged, []);
+        fail(issue, merged, ['scenarios', i], scenarioLabel(sc.name, i));
+      fail(issue, merged, [], scenarioLabel(sc.name, i));
     }
     scenarios.push({
       name,
@@ -406,7 +507,20 @@ export function parseField(
       field: r.data as Field,
     });
   });
-  return { base, scenarios, text, ratingFits: {} };
+  const warnings = [
+    ...outletWarnings(base, ''),
+    ...scenarios.flatMap((sc) =>
+      JSON.stringify(sc.field.outlet) === JSON.stringify(base.outlet)
+        ? []
+        : outletWarnings(sc.field, `scenario "${sc.name}": `),
+    ),
+  ];
+  return { base, scenarios, text, ratingFits: {}, warnings: [...new Set(warnings)] };
+}
+
+/** How messages name a scenario: its name, else its 1-based place in the list. */
+function scenarioLabel(name: unknown, i: number): string {
+  return typeof name === 'string' && name !== '' ? `"${clip(name, 40)}"` : `number ${i + 1}`;
 }
 
 /** A text file's content; a file that cannot be read is a user error naming it and why. */

@@ -15,13 +15,22 @@ import {
   COEFFICIENT_SOILS,
 } from '../drainage/drainageCoefficient.js';
 import { SEEPAGE_SETTINGS } from '../engine/seepage.js';
+import { dayNumber } from '../climate/calendar.js';
 
+// Real calendar days only: "02-30" and "2015-02-30" are refused ("02-29" is a month-day of leap
+// years, and a yearly step from it takes effect on 1 March in the other years).
 const mmdd = z
   .string()
-  .regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'expects a month-day such as "10-25"');
+  .refine(
+    (s) => /^\d{2}-\d{2}$/.test(s) && dayNumber(`2000-${s}`) !== undefined,
+    'expects a real month-day such as "10-25" (MM-DD)',
+  );
 const isoDate = z
   .string()
-  .regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'expects a date such as "2024-10-25"');
+  .refine(
+    (s) => dayNumber(s) !== undefined,
+    'expects a real calendar date such as "2024-10-25" (YYYY-MM-DD)',
+  );
 
 const fraction = (description: string) => zQuantity('fraction', description, { min: 0, max: 1 });
 
@@ -42,12 +51,16 @@ export const siteSchema = z
   })
   .describe('Where the field is');
 
+/** A drainable porosity: above 0 (at 0 a millimetre of recharge would raise the water table without bound). */
+const porosity = (description: string) =>
+  zQuantity('fraction', description, { min: 0, exclusiveMin: true, max: 1 });
+
 const porosityLayer = z.strictObject({
   depth: zQuantity('length', 'Bottom of this layer below the surface', {
     min: 0,
     exclusiveMin: true,
   }),
-  value: fraction('Drainable porosity of the layer'),
+  value: porosity('Drainable porosity of the layer'),
 });
 
 export const soilSchema = z
@@ -77,7 +90,7 @@ export const soilSchema = z
     ),
     drainablePorosity: z
       .union([
-        fraction('Drainable porosity (specific yield), one value for the whole profile'),
+        porosity('Drainable porosity (specific yield), one value for the whole profile'),
         z.array(porosityLayer).min(1),
       ])
       .default(0.05)
@@ -184,7 +197,7 @@ export const drainsSchema = z
   })
   .describe('Drain layout');
 
-const outletStep = (from: z.ZodString) =>
+const outletStep = (from: z.ZodType<string>) =>
   z.strictObject({
     from,
     depth: z
@@ -192,7 +205,7 @@ const outletStep = (from: z.ZodString) =>
         z.literal('free'),
         zQuantity('length', 'Outlet level below the surface', { min: 0, max: 5 }),
       ])
-      .describe('Outlet level below the surface, or "free"'),
+      .describe('Outlet level below the surface from 0 to 5 m, or "free"'),
   });
 
 /** Height of one stop-log board: the report then gives the schedule in boards. */
@@ -202,11 +215,30 @@ const boardHeight = zQuantity(
   { min: 0.01, max: 0.6 },
 ).optional();
 
+/** A list of outlet steps, each `from` at most once (a repeated day would silently drop a step). */
+const outletSteps = (from: z.ZodType<string>) =>
+  z
+    .array(outletStep(from))
+    .min(1)
+    .superRefine((steps, ctx) => {
+      const seen = new Map<string, number>();
+      steps.forEach((s, i) => {
+        const first = seen.get(s.from);
+        if (first === undefined) seen.set(s.from, i);
+        else
+          ctx.addIssue({
+            code: 'custom',
+            path: [i, 'from'],
+            message: `repeats "${s.from}" of step ${first + 1}; each step needs its own day`,
+          });
+      });
+    });
+
 export const outletSchema = z
   .union([
     z.literal('free'),
-    z.strictObject({ schedule: z.array(outletStep(mmdd)).min(1), boardHeight }),
-    z.strictObject({ dates: z.array(outletStep(isoDate)).min(1), boardHeight }),
+    z.strictObject({ schedule: outletSteps(mmdd), boardHeight }),
+    z.strictObject({ dates: outletSteps(isoDate), boardHeight }),
   ])
   .default('free')
   .describe(
@@ -444,6 +476,14 @@ export const fieldSchema = z
     checkSweep(f, soilSchema.shape, (path, message) =>
       ctx.addIssue({ code: 'custom', path, message }),
     );
+    // Plant-available water is field capacity minus wilting point: it must be positive.
+    if (f.soil.fieldCapacity <= f.soil.wiltingPoint) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['soil', 'fieldCapacity'],
+        message: `must be above soil.wiltingPoint (${f.soil.wiltingPoint}); got ${f.soil.fieldCapacity}`,
+      });
+    }
     // Hooghoudt's and Kirkham's equations need flow below the drains: the pipe must lie above
     // the restrictive layer by more than its radius.
     const below = f.soil.restrictiveLayerDepth - f.drains.depth;

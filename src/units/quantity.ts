@@ -7,7 +7,7 @@
  * spellings (ha, ac, cfs, gpm) and the rule that a bare number means the documented unit.
  */
 import Qty from 'js-quantities';
-import { TilefluxError } from '../errors.js';
+import { clip, TilefluxError } from '../errors.js';
 
 /** What a quantity measures, and therefore which unit the core receives it in. */
 export type QuantityKind =
@@ -82,7 +82,8 @@ const ALIASES: ReadonlyArray<[RegExp, string]> = [
 ];
 
 function normalise(text: string): string {
-  let s = text.trim();
+  // "12ha", "10mm/d", "1.2m": a unit written against its number reads as if spaced.
+  let s = text.trim().replace(/^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)(?=[A-Za-z%])/, '$1 ');
   for (const [re, to] of ALIASES) s = s.replace(re, to);
   return s;
 }
@@ -98,10 +99,12 @@ export function tryParseQuantity(
   const spec = KINDS[kind];
   const expects = `expects ${spec.noun} such as ${spec.examples}`;
   const fail = (got: string) => ({ ok: false as const, reason: `${expects}; got ${got}` });
-  if (typeof value === 'number')
-    return Number.isFinite(value) ? { ok: true, value } : fail(String(value));
+  if (typeof value === 'number') {
+    if (Number.isFinite(value)) return { ok: true, value };
+    return fail(Number.isNaN(value) ? 'not a number' : 'an infinite value');
+  }
   if (typeof value !== 'string')
-    return fail(value === null ? 'nothing' : `${typeof value} ${JSON.stringify(value)}`);
+    return fail(value === null ? 'nothing' : `${typeof value} ${clip(JSON.stringify(value))}`);
   const text = value.trim();
   if (text === '') return fail('an empty value');
   // A bare number is in the documented unit.
@@ -111,18 +114,18 @@ export function tryParseQuantity(
   try {
     q = Qty(normalise(text));
   } catch {
-    return fail(`"${text}", which is not a number with a known unit`);
+    return fail(`"${clip(text)}", which is not a number with a known unit`);
   }
   let out: number;
   if (kind === 'latitude' && q.kind() === 'unitless') out = q.scalar;
   else if (spec.target === '') {
-    if (q.kind() !== 'unitless') return fail(text);
+    if (q.kind() !== 'unitless') return fail(clip(text));
     out = q.toBase().scalar;
   } else {
-    if (!q.isCompatible(spec.target)) return fail(text);
+    if (!q.isCompatible(spec.target)) return fail(clip(text));
     out = q.to(spec.target).scalar;
   }
-  return Number.isFinite(out) ? { ok: true, value: out } : fail(text);
+  return Number.isFinite(out) ? { ok: true, value: out } : fail(clip(text));
 }
 
 /**

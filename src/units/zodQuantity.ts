@@ -4,6 +4,7 @@
  * schema as metadata, so `tileflux init` and error messages come from the same source.
  */
 import { z } from 'zod';
+import { clip } from '../errors.js';
 import { KINDS, tryParseQuantity, type QuantityKind } from './quantity.js';
 
 /** A quantity of `kind`, optionally bounded (bounds in the core unit, inclusive). */
@@ -26,14 +27,14 @@ export function zQuantity(
       if (min !== undefined && (exclusiveMin ? v <= min : v < min)) {
         ctx.addIssue({
           code: 'custom',
-          message: `must be ${exclusiveMin ? 'greater than' : 'at least'} ${min} ${spec.unit}; got ${value}`,
+          message: `must be ${exclusiveMin ? 'greater than' : 'at least'} ${min} ${spec.unit}; got ${clip(String(value))}`,
         });
         return z.NEVER;
       }
       if (max !== undefined && v > max) {
         ctx.addIssue({
           code: 'custom',
-          message: `must be at most ${max} ${spec.unit}; got ${value}`,
+          message: `must be at most ${max} ${spec.unit}; got ${clip(String(value))}`,
         });
         return z.NEVER;
       }

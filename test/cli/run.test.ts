@@ -110,7 +110,7 @@ describe('tileflux run', () => {
     [
       'bad date',
       [FIELD, '--weather', WEATHER, '--from', '2001/01/01'],
-      /--from expects a date such as 2015-01-01/,
+      /--from expects a real calendar date YYYY-MM-DD such as 2015-01-01; got 2001\/01\/01/,
     ],
     [
       'date outside the record',

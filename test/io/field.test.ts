@@ -87,12 +87,12 @@ describe('field files', () => {
     [
       'unknown scenario key',
       GOOD + 'scenarios:\n  - name: a\n  - name: b\n    drain: { depth: 0.8 m }\n',
-      /line 11, column 5: unknown key "scenarios\[1\]\.drain"; did you mean "drains"\?/,
+      /line 11, column 5: unknown key "drain" in scenario "b"; did you mean "drains"\?/,
     ],
     [
       'bad scenario override located in the scenario',
       GOOD + 'scenarios:\n  - name: a\n  - name: b\n    drains: { depth: deep }\n',
-      /line 11, column \d+: in scenario 1: drains\.depth expects a length/,
+      /line 11, column \d+: in scenario "b": drains\.depth expects a length/,
     ],
     [
       'duplicate scenario names',

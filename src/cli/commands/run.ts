@@ -7,7 +7,8 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
-import { TilefluxError } from '../../errors.js';
+import { clip, TilefluxError } from '../../errors.js';
+import { dayNumber } from '../../climate/calendar.js';
 import { HARGREAVES_BIAS } from '../../climate/referenceEt.js';
 import { readFieldFile } from '../../io/field.js';
 import { writeFileSync } from 'node:fs';
@@ -30,7 +31,7 @@ import { counted } from '../../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
-import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
+import { action, emit, fmt, warn, writeDirAtomic, CAUTION } from '../common.js';
 import { explorerHtmlOf } from '../../explorer/page.js';
 import { progress } from '../progress.js';
 import {
@@ -56,8 +57,6 @@ export interface RunCommandOptions extends WeatherReadFlags {
   explorer?: boolean;
 }
 
-const ISO = /^\d{4}-\d{2}-\d{2}$/;
-
 function sha256(path: string): string {
   return createHash('sha256').update(readFileSync(path)).digest('hex');
 }
@@ -77,8 +76,10 @@ export function runFromFiles(
     ['--from', o.from],
     ['--to', o.to],
   ] as const) {
-    if (v !== undefined && !ISO.test(v))
-      throw new TilefluxError(`${opt} expects a date such as 2015-01-01; got ${v}`);
+    if (v !== undefined && dayNumber(v) === undefined)
+      throw new TilefluxError(
+        `${opt} expects a real calendar date YYYY-MM-DD such as 2015-01-01; got ${clip(v)}`,
+      );
   }
   let warmupYears: number | undefined;
   if (o.warmupYears !== undefined) {
@@ -90,6 +91,7 @@ export function runFromFiles(
     }
   }
   const field = readFieldFile(fieldPath);
+  for (const w of field.warnings) warn(w);
   const weather = readWeatherFile(o.weather, weatherReadOptions(o));
   const bar = progress(field.scenarios.length || 3, 'simulating');
   const run = runField(field, weather.series, {
