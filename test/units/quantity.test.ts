@@ -48,3 +48,26 @@ describe('parseQuantity', () => {
     expect(() => parseQuantity('', 'length', 'soil.depth')).toThrow(/soil.depth expects/);
   });
 });
+
+describe('units written against their number', () => {
+  // Exact definitions (common practice): 1 ha = 10,000 m2, 1 in = 25.4 mm, 1 ft = 0.3048 m.
+  it.each([
+    ['12ha', 'area', 12],
+    ['40ac', 'area', 40 * 0.40468564224],
+    ['10mm/d', 'rate', 10],
+    ['0.5in/d', 'rate', 12.7],
+    ['1.2m', 'length', 1.2],
+    ['4ft', 'length', 4 * 0.3048],
+    ['0.2%', 'slope', 0.002],
+  ] as const)('%s', (text, kind, want) => {
+    // Within 1e-5: the survey acre differs from the international acre by 2 ppm (from memory).
+    const spaced = parseQuantity(text.replace(/^([\d.]+)/, '$1 '), kind, 'x');
+    expect(Math.abs(parseQuantity(text, kind, 'x') / want - 1)).toBeLessThan(1e-5);
+    expect(parseQuantity(text, kind, 'x')).toBe(spaced);
+  });
+  it('still refuses a word that is no unit', () => {
+    expect(() => parseQuantity('12hands', 'area', '--area')).toThrow(
+      /not a number with a known unit/,
+    );
+  });
+});
