@@ -183,6 +183,12 @@ const cases: Case[] = [
     args: () => run(field('long', `initial: { waterTableDepth: "${'x'.repeat(300)} m" }\n`)),
     first: /got "x{77}\.\.\. \(302 characters\)", which is not a number with a known unit/,
   },
+  // A bare slope is ambiguous: "0.2" is 0.2 m/m to some and 0.2 % to others, 100 times apart.
+  {
+    what: 'size --slope without a unit',
+    args: () => ['size', '--area', '12 ha', '--rate', '10 mm/d', '--slope', '0.2'],
+    first: /^tileflux: error: --slope needs a unit: "0\.2 %", "0\.2 m\/m" or "0\.2 ft\/100ft"/,
+  },
   // Output folders the system refuses.
   {
     what: '--out under /proc',
@@ -237,6 +243,28 @@ describe('bad-input catalogue', () => {
 });
 
 describe('legal but doubtful input warns on stderr', () => {
+  it('units written against the number, and a steep grade', () => {
+    const r = cli(['size', '--area', '12ha', '--rate', '10mm/d', '--slope', '8%', '--json']);
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.area_ha).toBe(12);
+    expect(out.rate_mm_d).toBe(10);
+    expect(out.slope_m_m).toBeCloseTo(0.08, 12);
+    expect(r.stderr).toMatch(/warning: --slope 8% is .*steeper than the 5 %/);
+    // Manning full pipe, V = (1/n) (D/4)^(2/3) S^(1/2) (Chow 1959), independently for the
+    // selected size: n 0.015, S 0.08 gives over 1.07 m/s (3.5 ft/s) for any pipe above 2 in.
+    const d = (out.selected_diameter_in * 25.4) / 1000;
+    const v = (1 / 0.015) * (d / 4) ** (2 / 3) * Math.sqrt(0.08);
+    expect(out.full_flow_velocity_m_s).toBeCloseTo(v, 6);
+    expect(r.stderr).toMatch(/warning: full-flow velocity .* exceeds 3\.5 ft\/s/);
+  });
+
+  it('a gentle grade warns of nothing', () => {
+    const r = cli(['size', '--area', '12 ha', '--rate', '10 mm/d', '--slope', '0.2 %']);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+  });
+
   it('an outlet held below the drains', () => {
     const out = join(dir, 'deep-run');
     const r = cli([

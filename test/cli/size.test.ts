@@ -45,7 +45,7 @@ describe('tileflux size', () => {
       '--rate',
       '12',
       '--slope',
-      '0.001',
+      '0.1 %',
       '--material',
       'smooth',
       '--sizes',
@@ -64,7 +64,7 @@ describe('tileflux size', () => {
       '--rate',
       '0.5 in/d',
       '--slope',
-      '0.001',
+      '0.1 %',
       '--sizes',
       '6,8,10,12,14 in',
       '--roughness',
@@ -113,7 +113,7 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
   const cases: Array<[string, string[], RegExp]> = [
     [
       'zero slope',
-      [...LATERAL.slice(0, 5), '--slope', '0', '--rate', '10'],
+      [...LATERAL.slice(0, 5), '--slope', '0 %', '--rate', '10'],
       /--slope must be greater than 0/,
     ],
     [
@@ -123,29 +123,29 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
     ],
     [
       'flow beyond the largest size',
-      ['size', '--area', '2000', '--rate', '25', '--slope', '0.001'],
+      ['size', '--area', '2000', '--rate', '25', '--slope', '0.1 %'],
       /larger than the largest size in --sizes \(24 in\)/,
     ],
     [
       'area and lateral both',
-      ['size', '--area', '10', '--length', '400', '--rate', '10', '--slope', '0.001'],
+      ['size', '--area', '10', '--length', '400', '--rate', '10', '--slope', '0.1 %'],
       /either --area, or --length with --spacing/,
     ],
     [
       'lateral without spacing',
-      ['size', '--length', '400', '--rate', '10', '--slope', '0.001'],
+      ['size', '--length', '400', '--rate', '10', '--slope', '0.1 %'],
       /--length needs --spacing/,
     ],
-    ['no area', ['size', '--rate', '10', '--slope', '0.001'], /give the drained area/],
-    ['no rate', ['size', '--area', '1', '--slope', '0.001'], /give the drainage rate: --rate/],
+    ['no area', ['size', '--rate', '10', '--slope', '0.1 %'], /give the drained area/],
+    ['no rate', ['size', '--area', '1', '--slope', '0.1 %'], /give the drainage rate: --rate/],
     [
       'rate and coefficient',
-      ['size', '--area', '1', '--slope', '0.001', '--rate', '10', '--coefficient', 'organic'],
+      ['size', '--area', '1', '--slope', '0.1 %', '--rate', '10', '--coefficient', 'organic'],
       /--rate or --coefficient, not both/,
     ],
     [
       'unknown coefficient word',
-      ['size', '--area', '1', '--slope', '0.001', '--coefficient', 'sandy'],
+      ['size', '--area', '1', '--slope', '0.1 %', '--coefficient', 'sandy'],
       /--coefficient: does not know "sandy"/,
     ],
     [
@@ -157,7 +157,7 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
         '--rate',
         '10',
         '--slope',
-        '0.001',
+        '0.1 %',
         '--roughness',
         '0.013',
         '--material',
@@ -167,17 +167,17 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
     ],
     [
       'unknown material',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--material', 'steel'],
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--material', 'steel'],
       /--material expects corrugated or smooth/,
     ],
     [
       'sizes out of order',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--sizes', '8,6'],
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--sizes', '8,6'],
       /--sizes accepts .* increasing order/,
     ],
     [
       'velocity not a speed',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.001', '--velocity', '2 kg'],
+      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--velocity', '2 kg'],
       /--velocity expects a velocity/,
     ],
   ];

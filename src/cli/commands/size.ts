@@ -23,7 +23,7 @@ import {
   type PipeMaterial,
 } from '../../drainage/index.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
-import { action, CAUTION, emit, fmt, requiredQuantity } from '../common.js';
+import { action, CAUTION, emit, fmt, requiredQuantity, warn } from '../common.js';
 import { parseUnits } from './run.js';
 import { blocks, echo } from './spacing.js';
 
@@ -43,6 +43,31 @@ interface SizeFlags {
   velocity?: string;
   units?: string;
   json?: boolean;
+}
+
+/** Grades above this are rare for drain lines and usually a unit slip (common practice). */
+const STEEP_GRADE = 0.05;
+/**
+ * Full-flow velocity above which a drain line risks scouring the soil into the pipe unless the
+ * joints and envelope are protected: 3.5 ft/s for sandy and sandy-loam soils, the lowest of the
+ * soil-texture limits in US conservation practice standards for subsurface drains (silt loam
+ * 5, silty clay loam 6, clay loam 7 ft/s; from memory). The limit is set by the soil around
+ * the pipe, for corrugated and smooth pipe alike.
+ */
+const SCOUR_VELOCITY_MS = 3.5 * 0.3048;
+
+/**
+ * --slope: a grade with its unit. A bare number is refused, since "0.2" is read as m/m by
+ * some and as percent by others, a factor of 100 apart.
+ */
+function slopeOption(value: string | undefined): number {
+  if (value !== undefined && /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(value)) {
+    throw new TilefluxError(
+      `--slope needs a unit: "${value.trim()} %", "${value.trim()} m/m" or "${value.trim()} ft/100ft" ` +
+        `(a bare number could be either, a factor of 100 apart); got ${value.trim()}`,
+    );
+  }
+  return requiredQuantity(value, 'slope', '--slope');
 }
 
 /** A velocity option: bare numbers are m/s, unit strings such as "1.4 ft/s" are converted. */
@@ -148,7 +173,7 @@ function run(o: SizeFlags): void {
   const area = drainedArea(o);
   const rate = designRate(o);
   const rateMmPerDay = rate.mmPerDay;
-  const slope = requiredQuantity(o.slope, 'slope', '--slope');
+  const slope = slopeOption(o.slope);
   if (!(slope > 0)) {
     throw new TilefluxError(
       `--slope must be greater than 0 (the pipe needs a fall toward its outlet, such as 0.2 %); got ${o.slope}`,
@@ -164,6 +189,16 @@ function run(o: SizeFlags): void {
   const capacity = manningFullCapacity(pipe.diameterM, slope, rough.n);
   const velocity = fullFlowVelocity(pipe.diameterM, slope, rough.n);
   const minGrade = minimumGrade(pipe.diameterM, velocityMs, rough.n);
+  if (slope > STEEP_GRADE) {
+    warn(
+      `--slope ${o.slope} is ${fmt(slope * 100, 3)} %, steeper than the 5 % drain lines rarely exceed (common practice); check the unit (0.2 % = 0.002 m/m)`,
+    );
+  }
+  if (velocity > SCOUR_VELOCITY_MS) {
+    warn(
+      `full-flow velocity ${fmt(velocity, 2)} m/s (${fmt(velocity / US.mPerFt, 2)} ft/s) exceeds 3.5 ft/s, the usual limit for drains in sandy soils without protected joints or envelope (US conservation practice standards for subsurface drains, from memory; finer soils allow 5-7 ft/s)`,
+    );
+  }
   const selectedKey = pipe.unit === 'in' ? 'selected_diameter_in' : 'selected_diameter_mm';
   const data = {
     method: 'manning-full-pipe',
@@ -269,7 +304,7 @@ Examples:
   A lateral 400 m long draining a 20 m strip at 3/8 inch per day on a 0.2 % grade:
     tileflux size --length 400 --spacing 20 --rate "0.375 in/d" --slope "0.2 %"
   A main serving 16 ha at 12 mm/d, smooth pipe, metric sizes:
-    tileflux size --area 16 --rate 12 --slope 0.001 --material smooth --sizes mm
+    tileflux size --area 16 --rate 12 --slope 0.1% --material smooth --sizes mm
   The same lateral at the tabulated coefficient for vegetables on an organic soil with blind inlets:
     tileflux size --length 400 --spacing 20 --coefficient "organic truck blind" --slope "0.2 %"
   Your own list of inside diameters:
@@ -303,7 +338,10 @@ export function registerSize(program: Command): void {
       '--coefficient <words>',
       'tabulated drainage coefficient instead of --rate: soil, crop, inlets (e.g. "mineral field none")',
     )
-    .option('--slope <slope>', 'pipe grade, m/m (e.g. 0.002 or "0.2 %")')
+    .option(
+      '--slope <slope>',
+      'pipe grade with its unit: %, m/m or ft/100ft (e.g. "0.2 %" or 0.002m/m); a bare number is refused',
+    )
     .option('--roughness <n>', 'Manning n (overrides --material)')
     .option('--material <kind>', 'corrugated (n 0.015) or smooth (n 0.012); default corrugated')
     .option(
