@@ -83,7 +83,12 @@ const ALIASES: ReadonlyArray<[RegExp, string]> = [
 
 function normalise(text: string): string {
   // "12ha", "10mm/d", "1.2m": a unit written against its number reads as if spaced.
-  let s = text.trim().replace(/^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)(?=[A-Za-z%])/, '$1 ');
+  let s = text
+    .trim()
+    .replace(
+      /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)(?![\d.]|[eE][-+]?\d)(?=[A-Za-z%])/,
+      '$1 ',
+    );
   for (const [re, to] of ALIASES) s = s.replace(re, to);
   return s;
 }

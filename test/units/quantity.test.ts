@@ -71,3 +71,11 @@ describe('units written against their number', () => {
     );
   });
 });
+
+describe('an exponent is not a unit', () => {
+  it('1e1 m and 1.2E2 mm keep their exponents', () => {
+    expect(parseQuantity('1e1 m', 'length', 'x')).toBe(10);
+    expect(parseQuantity('1e1m', 'length', 'x')).toBe(10);
+    expect(parseQuantity('1.2E2 mm', 'diameter', 'x')).toBe(120);
+  });
+});
