@@ -2,8 +2,10 @@
 // field (3 scenarios, with the seepage band as in `tileflux run`) with its own lateral spacing
 // and conductivity over one of 4 synthetic weather files of 31 years (30 reported), 2 workers.
 // Figures: wall time and jobs per second on 2 workers, the process's peak resident memory
-// (getrusage maxrss, worker threads included), and the parallel efficiency of 2 workers against
-// 1 on the first min(N, 40) jobs (one run each, interleaved). N is 100 by default;
+// (getrusage maxrss, worker threads included), the parallel efficiency of 2 workers against 1 on
+// the first min(N, 40) jobs (one run each, interleaved), and the CPU time per job of both (user +
+// system of the whole process, all threads): on a machine shared with other work the wall-clock
+// efficiency falls with the load, while the CPU time per job shows what a second worker costs. N is 100 by default;
 // TILEFLUX_BENCH_BATCH_JOBS=1000 runs the full size (about ten minutes here).
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -52,7 +54,8 @@ function run(dir, manifestPath, workers) {
   const s = (performance.now() - t) / 1000;
   if (r.status !== 0) throw new Error(`batch failed (${r.status}): ${r.stderr}`);
   rmSync(out, { recursive: true, force: true });
-  return { s, mb: Number(readFileSync(rss, 'utf8')) / 1024 };
+  const u = JSON.parse(readFileSync(rss, 'utf8'));
+  return { s, mb: u.maxRSS / 1024, cpu: u.cpuUs / 1e6 };
 }
 
 export default async function () {
@@ -68,7 +71,7 @@ export default async function () {
     writeFileSync(
       join(dir, 'rss.mjs'),
       "import { writeFileSync } from 'node:fs';\n" +
-        "process.on('exit', () => writeFileSync(process.env.BENCH_RSS_FILE, String(process.resourceUsage().maxRSS)));\n",
+        "process.on('exit', () => { const u = process.resourceUsage(); writeFileSync(process.env.BENCH_RSS_FILE, JSON.stringify({ maxRSS: u.maxRSS, cpuUs: u.userCPUTime + u.systemCPUTime })); });\n",
     );
     const big = run(dir, manifest(dir, jobs), 2);
     const small = manifest(dir, Math.min(jobs, 40));
@@ -88,6 +91,8 @@ export default async function () {
         value: (100 * one.s) / (2 * two.s),
         unit: '%',
       },
+      { name: `CPU time per job, 1 worker`, value: one.cpu / Math.min(jobs, 40), unit: 's' },
+      { name: `CPU time per job, 2 workers`, value: two.cpu / Math.min(jobs, 40), unit: 's' },
     ];
   } finally {
     rmSync(dir, { recursive: true, force: true });
