@@ -6,6 +6,7 @@
 import { closeSync, openSync, writeFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
 import { flowWeightedMeanMgL } from '../nitrate/annual.js';
+import { isPartialYear, withPartialYear } from '../scenarios/annual.js';
 import type { RatingFit } from '../nitrate/types.js';
 import type { ComparisonRow } from '../scenarios/compare.js';
 import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
@@ -155,6 +156,10 @@ export function buildSummary(
       to: run.to,
       years: run.scenarios[0]?.annual.length ?? 0,
       warmup_years: run.warmupYears,
+      warmup_years_requested: run.warmupYearsRequested,
+      partial_years: (run.scenarios[0]?.annual ?? [])
+        .filter((r) => isPartialYear(r.year, r.days))
+        .map((r) => r.year),
       simulated_from: run.simulatedFrom,
     },
     reference_et_method: run.refEtMethod,
@@ -236,7 +241,9 @@ export async function writeRunFiles(
   daily = true,
 ): Promise<void> {
   if (daily) await writeDailyCsv(join(dir, 'daily.csv'), run, units);
-  const annual = run.scenarios.flatMap((s) => s.annual) as unknown as Array<
+  // A year the reported period covers only in part is marked, so its sums are not read as
+  // annual rates.
+  const annual = run.scenarios.flatMap((s) => s.annual.map(withPartialYear)) as unknown as Array<
     Record<string, string | number>
   >;
   writeFileSync(join(dir, 'annual.csv'), toCsv(annual, units));

@@ -15,7 +15,7 @@
  *   155-168 (from memory)); spring_window_days / fall_window_days are the window lengths;
  * - stress_days: growing-season days with the FAO-56 water-stress coefficient Ks below 1.
  */
-import { dayIndexOf, monthDayKey } from '../climate/calendar.js';
+import { dayIndexOf, isLeapYear, monthDayKey } from '../climate/calendar.js';
 import { porosityTable } from '../engine/porosityProfile.js';
 import type { EngineForcing, EngineResult } from '../engine/types.js';
 import { flowWeightedMeanMgL } from '../nitrate/annual.js';
@@ -197,4 +197,18 @@ export function annualRows(
   }
   close();
   return rows;
+}
+
+/** Whether an annual row of `days` days covers less than its calendar year. */
+export function isPartialYear(year: number, days: number): boolean {
+  return days < (isLeapYear(year) ? 366 : 365);
+}
+
+/**
+ * An annual row as annual.csv writes it: `partial_year` ("yes" or "no") after `days`, so the
+ * sums of a year the reported period covers only in part are not read as annual rates.
+ * @example withPartialYear(row).partial_year // "yes" for 1991 with 300 days
+ */
+export function withPartialYear({ scenario, year, days, ...rest }: AnnualRow) {
+  return { scenario, year, days, partial_year: isPartialYear(year, days) ? 'yes' : 'no', ...rest };
 }

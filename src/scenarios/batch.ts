@@ -9,6 +9,7 @@ import { BAND_COLUMNS, COMPARISON_COLUMNS } from './compare.js';
 import { comparisonOf } from './reportData.js';
 import { runField, type FieldWithScenarios, type PeriodOptions } from './run.js';
 import { ANNUAL_COLUMNS } from './types.js';
+import { withPartialYear } from './annual.js';
 
 /** One shard of a manifest: rows whose 0-based index i has i mod `count` = `index`. */
 export interface Shard {
@@ -115,7 +116,9 @@ const typed = (name: string): BatchColumn => ({
 /** Columns of the annual table: job_id, then annual.csv's (SI units in the names). */
 export const BATCH_ANNUAL_COLUMNS: readonly BatchColumn[] = [
   { name: 'job_id', type: 'text' },
-  ...ANNUAL_COLUMNS.map(typed),
+  ...ANNUAL_COLUMNS.flatMap((c) =>
+    c === 'days' ? [typed(c), { name: 'partial_year', type: 'text' as const }] : [typed(c)],
+  ),
 ];
 
 /** Columns of the summary table: job_id, then comparison.csv's with the seepage band. */
@@ -154,7 +157,9 @@ export function runJob(
     return out;
   };
   return {
-    annual: run.scenarios.flatMap((s) => s.annual.map((r) => pick(r, BATCH_ANNUAL_COLUMNS))),
+    annual: run.scenarios.flatMap((s) =>
+      s.annual.map((r) => pick(withPartialYear(r), BATCH_ANNUAL_COLUMNS)),
+    ),
     summary: comparisonOf(run).map((r) => pick(r, BATCH_SUMMARY_COLUMNS)),
   };
 }

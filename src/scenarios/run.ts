@@ -45,7 +45,10 @@ export interface RunOutput {
   refEtMethod: EtMethod;
   from: string;
   to: string;
+  /** Warm-up that ran (years, to 0.01): shorter than asked when the record starts too late. */
   warmupYears: number;
+  /** Warm-up years asked for (or the default). */
+  warmupYearsRequested: number;
   /** Simulation start (first warm-up day). */
   simulatedFrom: string;
   baseline: string;
@@ -223,7 +226,8 @@ export function runField(
     refEtMethod: period.refEtMethod,
     from,
     to,
-    warmupYears,
+    warmupYears: Math.round((period.reportStart / 365.25) * 100) / 100,
+    warmupYearsRequested: warmupYears,
     simulatedFrom: forcing.dates[0],
     baseline: specs[0]?.name ?? '',
     scenarios,

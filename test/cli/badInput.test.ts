@@ -2,7 +2,7 @@
 // line tileflux must answer with. Rule for all of them: one line saying what is wrong, where
 // (file, line, column, key or option) and what is accepted; exit code 1; no stack trace;
 // nothing written.
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -282,5 +282,83 @@ describe('legal but doubtful input warns on stderr', () => {
     expect(r.stderr).toMatch(
       /warning: outlet\.schedule step 1 \(from 10-01\) holds the outlet at 1\.5 m, below the drains at 1\.1 m: the outlet is free then/,
     );
+  });
+
+  it('a warm-up longer than the record allows: summary.json gives the one that ran', () => {
+    // The demo record starts 1991-01-01: before 1992-01-01 lies one year (365 days), not five.
+    const out = join(dir, 'warm-run');
+    const r = cli([
+      ...run(field('warm')).slice(0, 5),
+      out,
+      '--no-charts',
+      '--no-report',
+      '--daily',
+      'none',
+      '--from',
+      '1992-01-01',
+      '--to',
+      '1993-12-31',
+      '--warmup-years',
+      '5',
+    ]);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toMatch(
+      /warning: the weather record starts 1991-01-01, so the warm-up before 1992-01-01 is 1 years, not the 5 asked for/,
+    );
+    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    expect(summary.period.warmup_years).toBe(1);
+    expect(summary.period.warmup_years_requested).toBe(5);
+    expect(summary.period.simulated_from).toBe('1991-01-01');
+  });
+
+  it('a record shorter than two years: warned, and its part year marked partial', () => {
+    // The first 300 days of the demo record: 1991-01-01 to 1991-10-27.
+    const lines = readFileSync(weather, 'utf8').split('\n');
+    const short = join(dir, 'short.csv');
+    writeFileSync(short, lines.slice(0, 301).join('\n') + '\n');
+    const out = join(dir, 'short-run');
+    const r = cli([
+      'run',
+      field('short'),
+      '--weather',
+      short,
+      '--out',
+      out,
+      '--no-charts',
+      '--no-report',
+      '--daily',
+      'none',
+    ]);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toMatch(
+      /warning: the weather record holds 300 days, less than two years: results start from a guessed initial state/,
+    );
+    const [head, first] = readFileSync(join(out, 'annual.csv'), 'utf8').split('\n');
+    const cols = head.split(',');
+    expect(cols.slice(0, 4)).toEqual(['scenario', 'year', 'days', 'partial_year']);
+    expect(first.split(',').slice(1, 4)).toEqual(['1991', '300', 'yes']);
+    const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
+    expect(summary.period.partial_years).toEqual([1991]);
+  });
+
+  it('whole years are not partial', () => {
+    const out = join(dir, 'whole-run');
+    const r = cli([
+      ...run(field('whole')).slice(0, 5),
+      out,
+      '--no-charts',
+      '--no-report',
+      '--daily',
+      'none',
+      '--from',
+      '1992-01-01',
+      '--to',
+      '1992-12-31',
+    ]);
+    expect(r.status).toBe(0);
+    expect(r.stderr).toBe('');
+    const rows = readFileSync(join(out, 'annual.csv'), 'utf8').trim().split('\n').slice(1);
+    // 1992 is a leap year: 366 days (Gregorian rule).
+    for (const row of rows) expect(row.split(',').slice(1, 4)).toEqual(['1992', '366', 'no']);
   });
 });

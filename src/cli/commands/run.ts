@@ -103,6 +103,20 @@ export function runFromFiles(
     onScenario: (_k, _n, name) => bar.tick(name),
   });
   bar.stop();
+  const recordDays = weather.series.dates.length;
+  if (recordDays < 731) {
+    warn(
+      `the weather record holds ${recordDays} days, less than two years: results start from a ` +
+        `guessed initial state (initial.waterTableDepth) without a full warm-up, and years the ` +
+        `record covers in part are marked partial_year in annual.csv, not annual rates`,
+    );
+  } else if (run.warmupYears < run.warmupYearsRequested - 0.01) {
+    warn(
+      `the weather record starts ${run.simulatedFrom}, so the warm-up before ${run.from} is ` +
+        `${run.warmupYears} years, not the ${run.warmupYearsRequested} asked for (--warmup-years); ` +
+        `the first reported year leans on the guessed initial state`,
+    );
+  }
   return {
     run,
     explorerHtml: (units) =>
