@@ -10,6 +10,7 @@ import type { AnnualRow } from '../scenarios/types.js';
 import { CHART_CAPTIONS, type ChartName } from './charts.js';
 import { counted, fixed, signed } from './format.js';
 import { boardTable } from '../scenarios/boards.js';
+import { isPartialYear } from '../scenarios/annual.js';
 import { cropConditionLines, headlineLines } from './summary.js';
 import type { ReportData } from './types.js';
 import { displayUnits, type DisplayUnit } from './units.js';
@@ -420,12 +421,18 @@ function yearlyTable(data: ReportData): string {
   const body = rows
     .map(
       (r) =>
-        `<tr><th scope="row">${escapeHtml(r.scenario)}</th><td>${r.year}</td>` +
+        `<tr><th scope="row">${escapeHtml(r.scenario)}</th>` +
+        `<td>${r.year}${isPartialYear(r.year, r.days) ? ` (part year: ${r.days} days)` : ''}</td>` +
         cols.map(([, , f]) => `<td>${f(r)}</td>`).join('') +
         '</tr>',
     )
     .join('\n');
+  const partial = rows.some((r) => isPartialYear(r.year, r.days));
   return (
+    (partial
+      ? `<p id="part-years">Years marked "part year" are covered only in part by the period ` +
+        `compared: their figures are sums over those days, not annual rates.</p>`
+      : '') +
     `<div class="scroll"><table class="yearly" id="yearly-table"><thead>` +
     `<tr><th scope="col" rowspan="2">Scenario</th><th scope="col" rowspan="2">Year</th>${top}</tr>` +
     `<tr>${head}</tr></thead>\n<tbody>\n${body}\n</tbody></table></div>`

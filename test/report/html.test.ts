@@ -289,6 +289,18 @@ describe('report content', () => {
     expect(html).not.toContain('id="outlet-table"');
   });
 
+  it('marks a year the period covers only in part, with its days (2001 has 365)', () => {
+    const first = data.annual[0];
+    const part = buildReportHtml(
+      { ...data, annual: [{ ...first, days: 100 }, ...data.annual.slice(1)] },
+      specs,
+      stub,
+    );
+    expect(part).toContain(`<td>${first.year} (part year: 100 days)</td>`);
+    expect(part).toContain('id="part-years"');
+    expect(html).not.toContain('part year');
+  });
+
   it('formats changes with a sign and no negative zero', () => {
     expect(signed(4.08)).toBe('+4.1');
     expect(signed(-0.04)).toBe('0.0');
