@@ -5,7 +5,7 @@
  *   `flow_l_s`, `flow_m3_s`, `flow_gpm` (US gallons per minute) or `flow_cfs`;
  * - water-table depth below the surface (observation well midway between drains):
  *   `water_table_depth_m` or `water_table_depth_ft`;
- * - nitrate-N concentration of drain water: `no3_mg_l` (carried into fit.csv, not fitted).
+ * - nitrate-N concentration of drain water: `no3n_mg_l` (carried into fit.csv, not fitted).
  * One row per day, dates ascending without gaps; an empty cell (or NA) is a day without that
  * observation. Other columns are ignored. Every problem names the file, the line and the
  * column, and what is accepted, as the weather reader does.
@@ -103,7 +103,7 @@ const COLUMNS: readonly ColumnSpec[] = [
     unit: 'ft',
     toCore: (x) => x * 0.3048,
   },
-  { header: 'no3_mg_l', variable: 'no3', unit: 'mg/L', toCore: (x) => x },
+  { header: 'no3n_mg_l', variable: 'no3', unit: 'mg/L', toCore: (x) => x },
 ];
 
 /** Stems whose unknown suffixes are errors (a unit we do not read), not ignored columns. */
@@ -111,7 +111,7 @@ const STEMS: ReadonlyArray<[string, Variable]> = [
   ['drainflow_', 'drainflow'],
   ['flow_', 'drainflow'],
   ['water_table_depth_', 'waterTable'],
-  ['no3_', 'no3'],
+  ['no3n_', 'no3'],
 ];
 
 /**

@@ -58,14 +58,14 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
     { name: 'ks', values: e.ks },
     { name: 'kc', values: s.calendar.kc },
     { name: 'balance_error_mm', values: e.balanceErrorMm },
-    { name: 'no3_conc_mg_l', values: n.concMgL },
-    { name: 'no3_load_kg_ha', values: n.loadKgHa },
+    { name: 'no3n_conc_mg_l', values: n.concMgL },
+    { name: 'no3n_load_kg_ha', values: n.loadKgHa },
     { name: 'runoff_n_kg_ha', values: n.runoffLoadKgHa },
     { name: 'seepage_n_kg_ha', values: n.seepageLoadKgHa },
   ];
   if (n.pool) {
     cols.push(
-      { name: 'no3_pool_kg_ha', values: n.pool.poolKgHa },
+      { name: 'no3n_pool_kg_ha', values: n.pool.poolKgHa },
       { name: 'fertilizer_n_kg_ha', values: n.pool.fertilizerKgHa },
       { name: 'mineralization_n_kg_ha', values: n.pool.mineralizationKgHa },
       { name: 'uptake_n_kg_ha', values: n.pool.uptakeKgHa },
@@ -132,7 +132,7 @@ export function annualMean(rows: AnnualRow[]): Record<string, number> {
   }
   // Flow-weighted over the whole period, not the mean of yearly ratios.
   const flow = rows.reduce((s, r) => s + r.drainflow_mm, 0);
-  const load = rows.reduce((s, r) => s + r.no3_load_kg_ha, 0);
+  const load = rows.reduce((s, r) => s + r.no3n_load_kg_ha, 0);
   out.fwmc_mg_l = flowWeightedMeanMgL(load, flow);
   return out;
 }
@@ -213,7 +213,7 @@ export function buildSummary(
         },
         annual_mean: recordIn(mean, units),
         change_vs_baseline: change,
-        no3_rating_out_of_range_days: s.nitrate.outOfRangeDays,
+        no3n_rating_out_of_range_days: s.nitrate.outOfRangeDays,
         capacity_limited_days: s.engine.capacityLimited.reduce((a, x) => a + x, 0),
         max_annual_balance_error_mm: Math.max(
           0,

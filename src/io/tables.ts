@@ -2,8 +2,8 @@
  * Tables out: unit systems for written figures and deterministic CSV text.
  *
  * Column names carry their unit as a suffix (`drainflow_mm`, `water_table_depth_m`,
- * `no3_load_kg_ha`). With `--units us` the same tables are written in US customary units and the
- * suffixes change with them (`drainflow_in`, `water_table_depth_ft`, `no3_load_lb_ac`).
+ * `no3n_load_kg_ha`). With `--units us` the same tables are written in US customary units and the
+ * suffixes change with them (`drainflow_in`, `water_table_depth_ft`, `no3n_load_lb_ac`).
  */
 import { stringify } from 'csv-stringify/sync';
 import { US, type UnitSystem } from '../units/quantity.js';

@@ -15,7 +15,7 @@ import type { NitrateResult } from './types.js';
 export type AnnualNitrate = Pick<
   AnnualRow,
   | 'year'
-  | 'no3_load_kg_ha'
+  | 'no3n_load_kg_ha'
   | 'fwmc_mg_l'
   | 'runoff_n_kg_ha'
   | 'seepage_n_kg_ha'
@@ -54,7 +54,7 @@ export function annualNitrate(
       row = {
         year,
         drainflow_mm: 0,
-        no3_load_kg_ha: 0,
+        no3n_load_kg_ha: 0,
         fwmc_mg_l: 0,
         runoff_n_kg_ha: 0,
         seepage_n_kg_ha: 0,
@@ -63,11 +63,11 @@ export function annualNitrate(
       rows.push(row);
     }
     row.drainflow_mm += drainflowMm[i];
-    row.no3_load_kg_ha += r.loadKgHa[i];
+    row.no3n_load_kg_ha += r.loadKgHa[i];
     row.runoff_n_kg_ha += r.runoffLoadKgHa[i];
     row.seepage_n_kg_ha += r.seepageLoadKgHa[i];
     if (r.pool) row.n_balance_error_kg_ha += r.pool.balanceErrorKgHa[i];
   }
-  for (const y of rows) y.fwmc_mg_l = flowWeightedMeanMgL(y.no3_load_kg_ha, y.drainflow_mm);
+  for (const y of rows) y.fwmc_mg_l = flowWeightedMeanMgL(y.no3n_load_kg_ha, y.drainflow_mm);
   return rows;
 }

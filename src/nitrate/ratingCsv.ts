@@ -1,6 +1,6 @@
 /**
  * Reader of observed drain-flow and nitrate pairs for fitting a rating: CSV text with a header
- * row naming `date`, `flow_mm` (or `flow_in`, inches, 1 in = 25.4 mm exactly) and `no3_mg_l`
+ * row naming `date`, `flow_mm` (or `flow_in`, inches, 1 in = 25.4 mm exactly) and `no3n_mg_l`
  * (nitrate-N, mg N/L) in any order; other columns are ignored. An empty flow or concentration
  * cell means "not sampled that day": the row is skipped and counted. Anything else that is not
  * a non-negative number, an impossible or repeated date, or a ragged row is an error naming the
@@ -17,11 +17,11 @@ import type { RatingPairs } from './types.js';
 const NUMERIC = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
 /**
- * Parse `date,flow_mm,no3_mg_l` text into observed pairs.
+ * Parse `date,flow_mm,no3n_mg_l` text into observed pairs.
  *
  * @param text CSV text
  * @param file name shown in error messages
- * @example readRatingPairsCsv('date,flow_mm,no3_mg_l\n2024-04-01,2.5,14.1\n2024-04-02,,\n')
+ * @example readRatingPairsCsv('date,flow_mm,no3n_mg_l\n2024-04-01,2.5,14.1\n2024-04-02,,\n')
  * // { dates: ['2024-04-01'], flowMm: [2.5], concMgL: [14.1], skippedRows: 1 }
  */
 export function readRatingPairsCsv(text: string, file = 'rating observations'): RatingPairs {
@@ -45,23 +45,23 @@ export function readRatingPairsCsv(text: string, file = 'rating observations'): 
     throw e;
   }
   if (rows.length === 0) {
-    throw new TilefluxError('empty file; expected a header row date,flow_mm,no3_mg_l', file);
+    throw new TilefluxError('empty file; expected a header row date,flow_mm,no3n_mg_l', file);
   }
   const header = rows[0].record.map((h) => h.toLowerCase());
   const find = (names: string[]) => header.findIndex((h) => names.includes(h));
   const iDate = find(['date']);
   const iFlowMm = find(['flow_mm']);
   const iFlowIn = find(['flow_in']);
-  const iConc = find(['no3_mg_l']);
+  const iConc = find(['no3n_mg_l']);
   const missing = [
     iDate < 0 ? 'date' : '',
     iFlowMm < 0 && iFlowIn < 0 ? 'flow_mm (or flow_in)' : '',
-    iConc < 0 ? 'no3_mg_l' : '',
+    iConc < 0 ? 'no3n_mg_l' : '',
   ].filter(Boolean);
   if (missing.length) {
     throw new TilefluxError(
       `line ${rows[0].info.lines}: the header lacks ${missing.join(', ')}; found ` +
-        `${rows[0].record.join(', ')}; expected date, flow_mm (or flow_in) and no3_mg_l`,
+        `${rows[0].record.join(', ')}; expected date, flow_mm (or flow_in) and no3n_mg_l`,
       file,
     );
   }
@@ -103,7 +103,7 @@ export function readRatingPairsCsv(text: string, file = 'rating observations'): 
       flowName,
       iFlowMm >= 0 ? 'mm of daily drain flow' : 'inches of daily drain flow',
     );
-    const conc = value(iConc, 'no3_mg_l', 'nitrate-N in mg/L');
+    const conc = value(iConc, 'no3n_mg_l', 'nitrate-N in mg/L');
     if (flow === undefined || conc === undefined) {
       out.skippedRows++;
       continue;

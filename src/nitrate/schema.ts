@@ -145,7 +145,7 @@ const ratingSchema = z
       .min(1)
       .optional()
       .describe(
-        'CSV of observed pairs "date,flow_mm,no3_mg_l" (path relative to the field file) to fit a and b to',
+        'CSV of observed pairs "date,flow_mm,no3n_mg_l" (path relative to the field file) to fit a and b to',
       ),
     runoffExtractionRatio,
   })
@@ -384,7 +384,7 @@ export const nitrateSchema = z
  * @param section parsed section with `observations`
  * @param text    the observations CSV's text
  * @param file    its name, for error messages
- * @example ratingFromObservations(section, 'date,flow_mm,no3_mg_l\n2024-04-01,2,12\n...', 'no3.csv')
+ * @example ratingFromObservations(section, 'date,flow_mm,no3n_mg_l\n2024-04-01,2,12\n...', 'no3.csv')
  */
 export function ratingFromObservations(
   section: RatingObservationsSection,

@@ -136,7 +136,7 @@ export interface RatingFit {
   flowRangeMm: [number, number];
 }
 
-/** Observed pairs read from a `date,flow_mm,no3_mg_l` CSV. */
+/** Observed pairs read from a `date,flow_mm,no3n_mg_l` CSV. */
 export interface RatingPairs {
   dates: string[];
   flowMm: number[];

@@ -478,7 +478,7 @@ export function annualChart(data: ReportData): TopLevelSpec {
     year: r.year,
     scenario: r.scenario,
     flow: roundTo(r.drainflow_mm * du.water.factor, 2),
-    load: roundTo(r.no3_load_kg_ha * du.load.factor, 3),
+    load: roundTo(r.no3n_load_kg_ha * du.load.factor, 3),
   }));
   const years = [...new Set(rows.map((r) => r.year))].sort((a, b) => a - b);
   return {
@@ -587,7 +587,7 @@ export function tradeoffChart(data: ReportData): TopLevelSpec {
       scenario: name,
       label: c.is_baseline ? `${name} (baseline)` : name,
       wet: roundTo(c.wet_days, 2),
-      load: roundTo(c.no3_load_kg_ha * du.load.factor, 3),
+      load: roundTo(c.no3n_load_kg_ha * du.load.factor, 3),
     };
   });
   // Both axes start at zero and end on a round number; the wetness axis has room on the right

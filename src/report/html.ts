@@ -206,8 +206,8 @@ function comparisonMeasures(data: ReportData): MeasureRow[] {
       'Nitrate-N load in drain flow',
       du.load,
       perYear(du.load),
-      'no3_load_kg_ha',
-      'no3_load',
+      'no3n_load_kg_ha',
+      'no3n_load',
       'kg_ha',
     ],
     [
@@ -269,7 +269,7 @@ function comparisonMeasures(data: ReportData): MeasureRow[] {
   ];
   const spread: Array<[string, string, DisplayUnit, string, string]> = [
     [WATER, 'Drain flow across years', du.water, 'drainflow', 'mm'],
-    [NITRATE, 'Nitrate-N load across years', du.load, 'no3_load', 'kg_ha'],
+    [NITRATE, 'Nitrate-N load across years', du.load, 'no3n_load', 'kg_ha'],
   ];
   const scenario = (r: ComparisonRow) => data.scenarios.find((s) => s.name === r.scenario);
   const rows: MeasureRow[] = [
@@ -386,7 +386,7 @@ function yearlyTable(data: ReportData): string {
     [
       NITRATE,
       [
-        ['In drain water', du.load.label, (r) => shown(r.no3_load_kg_ha, du.load)],
+        ['In drain water', du.load.label, (r) => shown(r.no3n_load_kg_ha, du.load)],
         ['Concentration', du.conc.label, (r) => shown(r.fwmc_mg_l, du.conc)],
       ],
     ],

@@ -60,13 +60,14 @@ export function headlineLines(rows: readonly ComparisonRow[]): string[] {
     .filter((r) => !r.is_baseline)
     .map((r) => {
       const parts =
-        r.no3_load_change_flow_part_percent !== null && r.no3_load_change_conc_part_percent !== null
-          ? `; of the load change, ${signed(r.no3_load_change_flow_part_percent, 1)} % from the change in flow and ` +
-            `${signed(r.no3_load_change_conc_part_percent, 1)} % from the change in concentration`
+        r.no3n_load_change_flow_part_percent !== null &&
+        r.no3n_load_change_conc_part_percent !== null
+          ? `; of the load change, ${signed(r.no3n_load_change_flow_part_percent, 1)} % from the change in flow and ` +
+            `${signed(r.no3n_load_change_conc_part_percent, 1)} % from the change in concentration`
           : '';
       return (
         `${r.scenario}: drain flow ${signed(r.drainflow_change_percent, 1)} %${bandText(r, 'drainflow_change_percent', 1)}, ` +
-        `nitrate-N load ${signed(r.no3_load_change_percent, 1)} %${bandText(r, 'no3_load_change_percent', 1)} against ${base}${parts}`
+        `nitrate-N load ${signed(r.no3n_load_change_percent, 1)} %${bandText(r, 'no3n_load_change_percent', 1)} against ${base}${parts}`
       );
     });
 }

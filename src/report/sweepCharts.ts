@@ -188,7 +188,7 @@ export function costPerKgChart(r: SweepResult): TopLevelSpec {
       design: String(d.design),
       management: String(d.management),
       perKg: round(Number(d[r.costColumns.perKg]), 2),
-      avoided: round(Number(d.no3_load_avoided_kg_ha), 2),
+      avoided: round(Number(d.no3n_load_avoided_kg_ha), 2),
     }));
   return {
     $schema: VEGA_LITE_SCHEMA,

@@ -93,7 +93,7 @@ export function annualRows(
   const close = () => {
     if (!row) return;
     row.wt_mean_depth_m = wtSum / row.days;
-    row.fwmc_mg_l = flowWeightedMeanMgL(row.no3_load_kg_ha, row.drainflow_mm);
+    row.fwmc_mg_l = flowWeightedMeanMgL(row.no3n_load_kg_ha, row.drainflow_mm);
     rows.push(row);
   };
   for (let i = start; i < end; i++) {
@@ -122,7 +122,7 @@ export function annualRows(
         runoff_mm: 0,
         seepage_mm: 0,
         et_mm: 0,
-        no3_load_kg_ha: 0,
+        no3n_load_kg_ha: 0,
         fwmc_mg_l: 0,
         runoff_n_kg_ha: 0,
         seepage_n_kg_ha: 0,
@@ -190,7 +190,7 @@ export function annualRows(
         if (workable) row.fall_fieldwork_days++;
       }
     }
-    row.no3_load_kg_ha += no3.loadKgHa[i];
+    row.no3n_load_kg_ha += no3.loadKgHa[i];
     row.runoff_n_kg_ha += no3.runoffLoadKgHa[i];
     row.seepage_n_kg_ha += no3.seepageLoadKgHa[i];
     if (no3.pool) row.n_balance_error_kg_ha += no3.pool.balanceErrorKgHa[i];

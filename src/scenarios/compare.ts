@@ -14,7 +14,7 @@ import type { AnnualMeasure, AnnualRow } from './types.js';
  */
 const COMPARED = [
   ['drainflow_mm', 'drainflow', 'mm'],
-  ['no3_load_kg_ha', 'no3_load', 'kg_ha'],
+  ['no3n_load_kg_ha', 'no3n_load', 'kg_ha'],
   ['fwmc_mg_l', 'fwmc', 'mg_l'],
   ['runoff_mm', 'runoff', 'mm'],
   ['et_mm', 'et', 'mm'],
@@ -43,7 +43,7 @@ const CONTEXT = [
 /** Measures whose spread across years is reported: [annual key, stem, unit]. */
 const SPREAD = [
   ['drainflow_mm', 'drainflow', 'mm'],
-  ['no3_load_kg_ha', 'no3_load', 'kg_ha'],
+  ['no3n_load_kg_ha', 'no3n_load', 'kg_ha'],
 ] as const satisfies ReadonlyArray<readonly [AnnualMeasure, string, string]>;
 
 type Compared = (typeof COMPARED)[number];
@@ -82,10 +82,10 @@ export type ComparisonRow = {
  * the two parts add up to the change exactly and neither scenario is favoured (README, Assumptions and defaults).
  */
 export const LOAD_PART_COLUMNS = [
-  'no3_load_change_flow_part_kg_ha',
-  'no3_load_change_conc_part_kg_ha',
-  'no3_load_change_flow_part_percent',
-  'no3_load_change_conc_part_percent',
+  'no3n_load_change_flow_part_kg_ha',
+  'no3n_load_change_conc_part_kg_ha',
+  'no3n_load_change_flow_part_percent',
+  'no3n_load_change_conc_part_percent',
 ] as const;
 export type LoadParts = { [K in (typeof LOAD_PART_COLUMNS)[number]]: number | null };
 
@@ -249,7 +249,7 @@ export function compareScenarios(
     let load = 0;
     for (const r of rows) {
       flow += r.drainflow_mm;
-      load += r.no3_load_kg_ha;
+      load += r.no3n_load_kg_ha;
     }
     m.fwmc_mg_l = flow > 0 ? (100 * load) / flow : null;
     m.pipe_length_m_ha = pipeLengthPerHectare(s.spacingM);
@@ -291,14 +291,14 @@ export function compareScenarios(
     const q1 = m.drainflow_mm;
     const c0 = base.fwmc_mg_l;
     const c1 = m.fwmc_mg_l;
-    const l0 = base.no3_load_kg_ha;
+    const l0 = base.no3n_load_kg_ha;
     if (q0 !== null && q1 !== null && c0 !== null && c1 !== null) {
       const flowPart = ((q1 - q0) * (c0 + c1)) / 200;
       const concPart = ((c1 - c0) * (q0 + q1)) / 200;
-      out.no3_load_change_flow_part_kg_ha = flowPart;
-      out.no3_load_change_conc_part_kg_ha = concPart;
-      out.no3_load_change_flow_part_percent = l0 ? (100 * flowPart) / l0 : null;
-      out.no3_load_change_conc_part_percent = l0 ? (100 * concPart) / l0 : null;
+      out.no3n_load_change_flow_part_kg_ha = flowPart;
+      out.no3n_load_change_conc_part_kg_ha = concPart;
+      out.no3n_load_change_flow_part_percent = l0 ? (100 * flowPart) / l0 : null;
+      out.no3n_load_change_conc_part_percent = l0 ? (100 * concPart) / l0 : null;
     } else for (const c of LOAD_PART_COLUMNS) out[c] = null;
     const ordered: Record<string, unknown> = {};
     for (const c of COMPARISON_COLUMNS) ordered[c] = out[c];

@@ -159,7 +159,7 @@ export function fitColumns(s: FitSeries, no3MgL?: Float64Array): Column[] {
     cols.push({ name: 'observed_water_table_depth_m', values: s.observedWaterTableM });
   }
   cols.push({ name: 'simulated_water_table_depth_m', values: s.simulatedWaterTableM });
-  if (no3MgL) cols.push({ name: 'observed_no3_mg_l', values: no3MgL });
+  if (no3MgL) cols.push({ name: 'observed_no3n_mg_l', values: no3MgL });
   return cols;
 }
 

@@ -196,7 +196,7 @@ export function seepageBandOf(run: RunOutput) {
   ) as Record<SeepageBand, ComparisonRow[]>;
   const keys = [
     'drainflow_change_percent',
-    'no3_load_change_percent',
+    'no3n_load_change_percent',
     'fwmc_change_percent',
     'seepage_change_mm',
   ] as const;

@@ -46,17 +46,17 @@ const NOT_MEASURES = new Set([
  */
 export const WETNESS_MEASURE = 'aeration_stress_days';
 /** The nitrate-N load measure of the frontier. */
-export const LOAD_MEASURE = 'no3_load_kg_ha';
+export const LOAD_MEASURE = 'no3n_load_kg_ha';
 /** Unit suffixes of measure names, longest first. */
 const UNITS = ['cm_days', 'kg_ha', 'mg_l', 'days', 'mm', 'm'];
 
-/** Stem and unit of a measure column, e.g. no3_load_kg_ha -> [no3_load, kg_ha]. */
+/** Stem and unit of a measure column, e.g. no3n_load_kg_ha -> [no3n_load, kg_ha]. */
 export function splitUnit(name: string): [string, string] {
   for (const u of UNITS) if (name.endsWith(`_${u}`)) return [name.slice(0, -u.length - 1), u];
   return [name, ''];
 }
 
-/** `<stem>_<what>_<unit>`, e.g. column('no3_load_kg_ha', 'p10') = no3_load_p10_kg_ha. */
+/** `<stem>_<what>_<unit>`, e.g. column('no3n_load_kg_ha', 'p10') = no3n_load_p10_kg_ha. */
 export function measureColumn(name: string, what: string): string {
   const [stem, unit] = splitUnit(name);
   return unit ? `${stem}_${what}_${unit}` : `${stem}_${what}`;
@@ -360,7 +360,7 @@ export function summariseSweep(
       );
     });
     const avoided = median(Array.from({ length: S }, (_, s) => at(b, s, loadM) - at(d, s, loadM)));
-    row.no3_load_avoided_kg_ha = avoided;
+    row.no3n_load_avoided_kg_ha = avoided;
     row[costColumns.perKg] = avoided > 1e-9 ? (x.cost.annualPerHa - baseCost) / avoided : NaN;
     row.on_frontier = onFrontier[d];
     row.frontier_share = share[d];

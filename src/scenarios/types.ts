@@ -18,7 +18,7 @@ export interface AnnualRow {
   seepage_mm: number;
   et_mm: number;
   /** Nitrate-N leaving with drain flow, kg N/ha, and its flow-weighted mean concentration. */
-  no3_load_kg_ha: number;
+  no3n_load_kg_ha: number;
   fwmc_mg_l: number;
   runoff_n_kg_ha: number;
   seepage_n_kg_ha: number;
@@ -60,7 +60,7 @@ export const ANNUAL_COLUMNS: ReadonlyArray<keyof AnnualRow> = [
   'runoff_mm',
   'seepage_mm',
   'et_mm',
-  'no3_load_kg_ha',
+  'no3n_load_kg_ha',
   'fwmc_mg_l',
   'runoff_n_kg_ha',
   'seepage_n_kg_ha',

@@ -121,7 +121,7 @@ describe('tileflux batch: shards and Parquet', () => {
       is_baseline: 'BOOLEAN',
       years: 'INTEGER',
       drainflow_mm: 'DOUBLE',
-      no3_load_change_percent: 'DOUBLE',
+      no3n_load_change_percent: 'DOUBLE',
       drainflow_change_percent_low: 'DOUBLE',
     });
     const annualTypes = await query(`DESCRIBE SELECT * FROM '${whole}/annual-0of1.parquet'`);

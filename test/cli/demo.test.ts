@@ -46,12 +46,12 @@ describe('tileflux demo', () => {
     for (const row of comparison) {
       const years = annual.filter((a) => a.scenario === row.scenario);
       expect(Number(row.years)).toBe(years.length);
-      for (const key of ['drainflow_mm', 'no3_load_kg_ha', 'runoff_mm', 'et_mm', 'wet_days']) {
+      for (const key of ['drainflow_mm', 'no3n_load_kg_ha', 'runoff_mm', 'et_mm', 'wet_days']) {
         // Files hold 3-4 decimals, so means agree to about 1e-3.
         expect(Number(row[key])).toBeCloseTo(mean(years.map((y) => Number(y[key]))), 2);
       }
       const flow = years.reduce((s, y) => s + Number(y.drainflow_mm), 0);
-      const load = years.reduce((s, y) => s + Number(y.no3_load_kg_ha), 0);
+      const load = years.reduce((s, y) => s + Number(y.no3n_load_kg_ha), 0);
       // Flow-weighted concentration: load (kg/ha) = flow (mm) x C (mg/L) / 100.
       expect(Number(row.fwmc_mg_l)).toBeCloseTo((100 * load) / flow, 2);
     }
@@ -69,7 +69,7 @@ describe('tileflux demo', () => {
       -Number(c[s][`${k}_change_percent_low`]),
       -Number(c[s][`${k}_change_percent_high`]),
     ];
-    for (const k of ['drainflow', 'no3_load']) {
+    for (const k of ['drainflow', 'no3n_load']) {
       const [low, high] = band('controlled', k);
       expect(high).toBeGreaterThanOrEqual(17);
       expect(low).toBeLessThanOrEqual(85);
@@ -81,7 +81,7 @@ describe('tileflux demo', () => {
     // Shallow drains at the same drainage intensity: field trials of shallow against conventional
     // drains in the U.S. Midwest report smaller cuts than controlled drainage, from a few percent
     // to a few tens of percent (from memory; no synthesis in hand), so 2-40 % is the band taken.
-    for (const k of ['drainflow', 'no3_load']) {
+    for (const k of ['drainflow', 'no3n_load']) {
       expect(cut('shallow', k)).toBeGreaterThan(2);
       expect(cut('shallow', k)).toBeLessThan(40);
     }
@@ -95,7 +95,7 @@ describe('tileflux demo', () => {
     expect(stdout).toMatch(/days the cap limited flow: conventional \d+/);
     expect(stdout).toMatch(/Hargreaves tends to overestimate/);
     const c = readCsv(join(out, 'comparison.csv'));
-    for (const k of ['drainflow_change_percent', 'no3_load_change_percent', 'fwmc_change_percent'])
+    for (const k of ['drainflow_change_percent', 'no3n_load_change_percent', 'fwmc_change_percent'])
       for (const b of ['low', 'high']) expect(c[2][`${k}_${b}`]).toMatch(/^-?\d/);
     const summary = JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8'));
     expect(summary.assumptions.seepage.name).toBe('medium');

@@ -27,7 +27,7 @@ beforeAll(() => {
     twinFieldText(s.k, s.porosity, s.seepageConductance, s.capacity),
   );
   const obs = twinObservations(weather);
-  const rows = ['date,drainflow_mm,water_table_depth_m,no3_mg_l'];
+  const rows = ['date,drainflow_mm,water_table_depth_m,no3n_mg_l'];
   // Outlet flow as L/s from 10 ha as well: 1 mm/d over 10 ha = 100 m3/d = 1000/864 L/s.
   const rates = ['date,flow_l_s'];
   for (let i = 0; i < obs.dates.length; i++) {
@@ -80,7 +80,7 @@ describe('tileflux fit', () => {
     const csv = readFileSync(join(dir, 'a/fit.csv'), 'utf8').split('\n');
     expect(csv[0]).toBe(
       'date,period,observed_drainflow_mm,simulated_drainflow_mm,observed_water_table_depth_m,' +
-        'simulated_water_table_depth_m,observed_no3_mg_l',
+        'simulated_water_table_depth_m,observed_no3n_mg_l',
     );
     expect(csv[1]).toMatch(/^2013-01-01,calibration,/);
     for (const c of ['hydrograph', 'scatter', 'duration', 'water-table', 'cumulative']) {

@@ -102,7 +102,7 @@ describe('tileflux run', () => {
     const m = parse(join(si, 'annual.csv'));
     // 1 in = 25.4 mm; 1 kg/ha = 0.892179 lb/ac (NIST Handbook 44, App. C).
     expect(Number(u.drainflow_in)).toBeCloseTo(Number(m.drainflow_mm) / 25.4, 3);
-    expect(Number(u.no3_load_lb_ac)).toBeCloseTo(Number(m.no3_load_kg_ha) * 0.892179, 3);
+    expect(Number(u.no3n_load_lb_ac)).toBeCloseTo(Number(m.no3n_load_kg_ha) * 0.892179, 3);
   });
 
   const bad: Array<[string, string[], RegExp]> = [

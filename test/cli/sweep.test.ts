@@ -84,10 +84,10 @@ describe('tileflux sweep', () => {
     const head = designs[0].split(',');
     for (const c of [
       'design',
-      'no3_load_kg_ha',
-      'no3_load_p10_kg_ha',
-      'no3_load_p90_kg_ha',
-      'no3_load_change_kg_ha',
+      'no3n_load_kg_ha',
+      'no3n_load_p10_kg_ha',
+      'no3n_load_p90_kg_ha',
+      'no3n_load_change_kg_ha',
       'annual_cost_usd_ha',
       'cost_per_kg_n_avoided_usd_kg',
       'on_frontier',

@@ -38,7 +38,7 @@ async function pageRow(page: Page, design: 'a' | 'b') {
     page.locator(`#headline tr[data-measure="${m}"] td[data-design="${design}"]`).textContent();
   return {
     flow: await cell('drainflow'),
-    load: await cell('no3_load'),
+    load: await cell('no3n_load'),
     aeration: await cell('aeration_stress'),
     wet: await cell('wet'),
   };

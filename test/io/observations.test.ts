@@ -22,7 +22,7 @@ function errorOf(f: () => unknown): string {
 describe('observation files', () => {
   it('reads depths per day, water-table depths and nitrate; blanks are days without data', () => {
     const o = read(
-      'date,drainflow_mm,water_table_depth_m,no3_mg_l,note\n' +
+      'date,drainflow_mm,water_table_depth_m,no3n_mg_l,note\n' +
         '2024-04-01,2.5,0.62,14.1,x\n2024-04-02,,0.70,,\n2024-04-03,0,NA,,\n',
     );
     expect(o.dates).toEqual(['2024-04-01', '2024-04-02', '2024-04-03']);

@@ -101,7 +101,7 @@ describe('rating model', () => {
 describe('readRatingPairsCsv', () => {
   it('reads pairs in any column order, converts inches and skips unsampled rows', () => {
     const text =
-      'no3_mg_l,site,date,flow_in\n14.1,A,2024-04-01,0.1\n\n,A,2024-04-02,0.05\n9,A,2024-04-03,1\n';
+      'no3n_mg_l,site,date,flow_in\n14.1,A,2024-04-01,0.1\n\n,A,2024-04-02,0.05\n9,A,2024-04-03,1\n';
     const p = readRatingPairsCsv(text, 'obs.csv');
     expect(p.dates).toEqual(['2024-04-01', '2024-04-03']);
     // 1 in = 25.4 mm exactly (international inch).
@@ -112,11 +112,11 @@ describe('readRatingPairsCsv', () => {
   });
 
   it('names the file, line and column of each problem and what is accepted', () => {
-    const head = 'date,flow_mm,no3_mg_l\n';
+    const head = 'date,flow_mm,no3n_mg_l\n';
     const cases: Array<[string, RegExp]> = [
-      ['date,flow,no3\n', /^obs.csv: line 1: the header lacks flow_mm \(or flow_in\), no3_mg_l/],
+      ['date,flow,no3\n', /^obs.csv: line 1: the header lacks flow_mm \(or flow_in\), no3n_mg_l/],
       [head + '2024-04-01,2.5\n', /^obs.csv: line 2: not readable as CSV/],
-      [head + '2024-04-01,2.5,abc\n', /^obs.csv: line 2, column no3_mg_l: "abc" is not a number/],
+      [head + '2024-04-01,2.5,abc\n', /^obs.csv: line 2, column no3n_mg_l: "abc" is not a number/],
       [
         head + '2024-04-01,-1,3\n',
         /^obs.csv: line 2, column flow_mm: "-1" is not a number of at least 0/,

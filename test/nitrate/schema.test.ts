@@ -101,14 +101,14 @@ describe('nitrate section schema', () => {
     });
     if (!('observations' in section)) throw new Error('expected observations');
     // Pairs on C = 10 Q^0.5: 10, 20, 40 mg/L at 1, 4, 16 mm.
-    const text = 'date,flow_mm,no3_mg_l\n2024-04-01,1,10\n2024-04-02,4,20\n2024-04-03,16,40\n';
+    const text = 'date,flow_mm,no3n_mg_l\n2024-04-01,1,10\n2024-04-02,4,20\n2024-04-03,16,40\n';
     const { config, fit } = ratingFromObservations(section, text);
     expect(config).toMatchObject({ model: 'rating', fitFlowRangeMm: [1, 16] });
     if (config.model !== 'rating') throw new Error('expected rating');
     expect(config.a).toBeCloseTo(10, 10);
     expect(config.b).toBeCloseTo(0.5, 10);
     expect(fit.n).toBe(3);
-    expect(() => ratingFromObservations(section, 'date,flow_mm,no3_mg_l\n')).toThrow(
+    expect(() => ratingFromObservations(section, 'date,flow_mm,no3n_mg_l\n')).toThrow(
       /^no3.csv: a rating C = a Q\^b needs at least 3 pairs/,
     );
   });

@@ -210,7 +210,7 @@ describe('chart content equals figures computed here from the fixture', () => {
     for (const a of data.annual) {
       const r = rows.find((x) => x.scenario === a.scenario && x.year === a.year)!;
       expect(r.flow).toBeCloseTo(a.drainflow_mm, 2);
-      expect(r.load).toBeCloseTo(a.no3_load_kg_ha, 3);
+      expect(r.load).toBeCloseTo(a.no3n_load_kg_ha, 3);
     }
   });
 
@@ -244,7 +244,7 @@ describe('chart content equals figures computed here from the fixture', () => {
     for (const c of data.comparison) {
       const r = rows.find((x) => x.scenario === c.scenario)!;
       expect(r.wet).toBeCloseTo(c.wet_days, 2);
-      expect(r.load).toBeCloseTo(c.no3_load_kg_ha, 3);
+      expect(r.load).toBeCloseTo(c.no3n_load_kg_ha, 3);
       expect(r.label).toBe(c.is_baseline ? `${c.scenario} (baseline)` : c.scenario);
     }
   });

@@ -134,7 +134,7 @@ export function makeReportData(opts) {
         fall_fieldwork_days: 40 - (s.controlled ? 2 : 0),
         fall_window_days: 47, // 25 Sep - 10 Nov
         stress_days: 4,
-        no3_load_kg_ha: l,
+        no3n_load_kg_ha: l,
         fwmc_mg_l: f > 0 ? (100 * l) / f : 0,
         runoff_n_kg_ha: 0.3,
         seepage_n_kg_ha: 0.1,

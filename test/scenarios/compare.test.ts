@@ -34,7 +34,7 @@ function row(scenario: string, year: number, v: Partial<AnnualRow>): AnnualRow {
     fall_fieldwork_days: 0,
     fall_window_days: 57,
     stress_days: 0,
-    no3_load_kg_ha: 0,
+    no3n_load_kg_ha: 0,
     fwmc_mg_l: 0,
     runoff_n_kg_ha: 0,
     seepage_n_kg_ha: 0,
@@ -50,7 +50,7 @@ const annual: AnnualRow[] = [
   row('controlled', 2002, {
     precip_mm: 800,
     drainflow_mm: 150,
-    no3_load_kg_ha: 3.0,
+    no3n_load_kg_ha: 3.0,
     fwmc_mg_l: 99,
     runoff_mm: 16,
     et_mm: 570,
@@ -67,7 +67,7 @@ const annual: AnnualRow[] = [
   row('conventional', 2001, {
     precip_mm: 900,
     drainflow_mm: 300,
-    no3_load_kg_ha: 9.0,
+    no3n_load_kg_ha: 9.0,
     fwmc_mg_l: 99,
     runoff_mm: 20,
     et_mm: 550,
@@ -84,7 +84,7 @@ const annual: AnnualRow[] = [
   row('conventional', 2003, {
     precip_mm: 850,
     drainflow_mm: 250,
-    no3_load_kg_ha: 8.0,
+    no3n_load_kg_ha: 8.0,
     fwmc_mg_l: 99,
     runoff_mm: 30,
     et_mm: 540,
@@ -101,7 +101,7 @@ const annual: AnnualRow[] = [
   row('controlled', 2001, {
     precip_mm: 900,
     drainflow_mm: 210,
-    no3_load_kg_ha: 6.3,
+    no3n_load_kg_ha: 6.3,
     fwmc_mg_l: 99,
     runoff_mm: 30,
     et_mm: 560,
@@ -118,7 +118,7 @@ const annual: AnnualRow[] = [
   row('conventional', 2002, {
     precip_mm: 800,
     drainflow_mm: 200,
-    no3_load_kg_ha: 5.0,
+    no3n_load_kg_ha: 5.0,
     fwmc_mg_l: 99,
     runoff_mm: 10,
     et_mm: 560,
@@ -135,7 +135,7 @@ const annual: AnnualRow[] = [
   row('controlled', 2003, {
     precip_mm: 850,
     drainflow_mm: 165,
-    no3_load_kg_ha: 5.7,
+    no3n_load_kg_ha: 5.7,
     fwmc_mg_l: 99,
     runoff_mm: 44,
     et_mm: 548,
@@ -177,7 +177,7 @@ describe('compareScenarios', () => {
     const tol = 9; // decimal places
     expect(conv.precip_mm).toBeCloseTo(850, tol); // (900+800+850)/3
     expect(conv.drainflow_mm).toBeCloseTo(250, tol); // (300+200+250)/3
-    expect(conv.no3_load_kg_ha).toBeCloseTo(22 / 3, tol); // (9+5+8)/3
+    expect(conv.no3n_load_kg_ha).toBeCloseTo(22 / 3, tol); // (9+5+8)/3
     expect(conv.runoff_mm).toBeCloseTo(20, tol);
     expect(conv.et_mm).toBeCloseTo(550, tol);
     expect(conv.seepage_mm).toBeCloseTo(10, tol);
@@ -193,7 +193,7 @@ describe('compareScenarios', () => {
     expect(conv.seepage_n_kg_ha).toBeCloseTo(0.1, tol);
 
     expect(ctrl.drainflow_mm).toBeCloseTo(175, tol); // (210+150+165)/3
-    expect(ctrl.no3_load_kg_ha).toBeCloseTo(5, tol); // (6.3+3.0+5.7)/3
+    expect(ctrl.no3n_load_kg_ha).toBeCloseTo(5, tol); // (6.3+3.0+5.7)/3
     expect(ctrl.runoff_mm).toBeCloseTo(30, tol); // (30+16+44)/3
     expect(ctrl.et_mm).toBeCloseTo(1678 / 3, tol);
     expect(ctrl.seepage_mm).toBeCloseTo(14, tol);
@@ -224,8 +224,8 @@ describe('compareScenarios', () => {
   it('gives the change against the baseline, absolute and percent', () => {
     expect(ctrl.drainflow_change_mm).toBeCloseTo(-75, 9);
     expect(ctrl.drainflow_change_percent).toBeCloseTo(-30, 9);
-    expect(ctrl.no3_load_change_kg_ha).toBeCloseTo(5 - 22 / 3, 9);
-    expect(ctrl.no3_load_change_percent).toBeCloseTo(-31.818181818, 6); // -7/22
+    expect(ctrl.no3n_load_change_kg_ha).toBeCloseTo(5 - 22 / 3, 9);
+    expect(ctrl.no3n_load_change_percent).toBeCloseTo(-31.818181818, 6); // -7/22
     expect(ctrl.runoff_change_mm).toBeCloseTo(10, 9);
     expect(ctrl.runoff_change_percent).toBeCloseTo(50, 9);
     expect(ctrl.wet_change_days).toBeCloseTo(3, 9);
@@ -243,9 +243,9 @@ describe('compareScenarios', () => {
     expect(ctrl.drainflow_min_mm).toBe(150);
     expect(ctrl.drainflow_median_mm).toBe(165);
     expect(ctrl.drainflow_max_mm).toBe(210);
-    expect(ctrl.no3_load_min_kg_ha).toBe(3.0);
-    expect(ctrl.no3_load_median_kg_ha).toBe(5.7);
-    expect(ctrl.no3_load_max_kg_ha).toBe(6.3);
+    expect(ctrl.no3n_load_min_kg_ha).toBe(3.0);
+    expect(ctrl.no3n_load_median_kg_ha).toBe(5.7);
+    expect(ctrl.no3n_load_max_kg_ha).toBe(6.3);
     expect(conv.drainflow_median_mm).toBe(250);
   });
 
@@ -257,13 +257,13 @@ describe('compareScenarios', () => {
     const c1 = ctrl.fwmc_mg_l!;
     const flow = (dQ * (c0 + c1)) / 200;
     const conc = ((c1 - c0) * (conv.drainflow_mm + ctrl.drainflow_mm)) / 200;
-    expect(ctrl.no3_load_change_flow_part_kg_ha).toBeCloseTo(flow, 12);
-    expect(ctrl.no3_load_change_conc_part_kg_ha).toBeCloseTo(conc, 12);
-    expect(flow + conc).toBeCloseTo(ctrl.no3_load_change_kg_ha, 10);
+    expect(ctrl.no3n_load_change_flow_part_kg_ha).toBeCloseTo(flow, 12);
+    expect(ctrl.no3n_load_change_conc_part_kg_ha).toBeCloseTo(conc, 12);
+    expect(flow + conc).toBeCloseTo(ctrl.no3n_load_change_kg_ha, 10);
     expect(
-      ctrl.no3_load_change_flow_part_percent! + ctrl.no3_load_change_conc_part_percent!,
-    ).toBeCloseTo(ctrl.no3_load_change_percent!, 10);
-    expect(conv.no3_load_change_flow_part_kg_ha).toBe(0);
+      ctrl.no3n_load_change_flow_part_percent! + ctrl.no3n_load_change_conc_part_percent!,
+    ).toBeCloseTo(ctrl.no3n_load_change_percent!, 10);
+    expect(conv.no3n_load_change_flow_part_kg_ha).toBe(0);
   });
 
   it('puts the low and high seepage changes beside every change column', () => {
@@ -275,7 +275,7 @@ describe('compareScenarios', () => {
     expect(band[1].drainflow_change_percent_low).toBe(lowRow.drainflow_change_percent);
     expect(band[1].drainflow_change_percent_high).toBe(ctrl.drainflow_change_percent);
     for (const c of BAND_COLUMNS) expect(c in band[1]).toBe(true);
-    expect(BAND_COLUMNS).toContain('no3_load_change_conc_part_percent_low');
+    expect(BAND_COLUMNS).toContain('no3n_load_change_conc_part_percent_low');
     expect(BAND_COLUMNS.some((c) => c.startsWith('pipe_length'))).toBe(false);
   });
 

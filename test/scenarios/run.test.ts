@@ -116,7 +116,7 @@ describe('every nitrate model through a run', () => {
           );
         }
         for (const y of s.annual) {
-          expect(Number.isFinite(y.no3_load_kg_ha) && y.no3_load_kg_ha > 0).toBe(true);
+          expect(Number.isFinite(y.no3n_load_kg_ha) && y.no3n_load_kg_ha > 0).toBe(true);
           expect(Math.abs(y.n_balance_error_kg_ha)).toBeLessThan(1e-6);
         }
       }

@@ -174,7 +174,7 @@ describe('a sweep', () => {
     const d = r.designs[0];
     for (const k of [
       'drainflow_mm',
-      'no3_load_kg_ha',
+      'no3n_load_kg_ha',
       'fwmc_mg_l',
       'runoff_mm',
       'et_mm',

@@ -180,7 +180,7 @@ export function registerFit(program: Command): void {
         'the usual ratings for daily field-scale drain flow.\n\n' +
         'OBS.csv has a date column and any of drainflow_mm, drainflow_in (depth per day over ' +
         'the drained area), flow_l_s, flow_m3_s, flow_gpm, flow_cfs (outlet flow rates, with ' +
-        '--area), water_table_depth_m, water_table_depth_ft and no3_mg_l; an empty cell is a day ' +
+        '--area), water_table_depth_m, water_table_depth_ft and no3n_mg_l; an empty cell is a day ' +
         'without that observation. The search (Latin hypercube sample, then bounded Nelder-Mead ' +
         'from the field file’s values and the best sample points) is seeded: the same inputs ' +
         'give the same fit.\n\n' +

@@ -160,7 +160,7 @@ export function weatherSourceText(r: WeatherReadResult): string {
  */
 export function headline(comparison: readonly ComparisonRow[], units: UnitSystem): string {
   const flow = columnIn('drainflow_mm', units);
-  const load = columnIn('no3_load_kg_ha', units);
+  const load = columnIn('no3n_load_kg_ha', units);
   const flowU = units === 'us' ? 'in/yr' : 'mm/yr';
   const loadU = units === 'us' ? 'lb N/ac/yr' : 'kg N/ha/yr';
   const pct = (x: number | null) => (x === null ? '' : `${x >= 0 ? '+' : ''}${fmt(x, 0)}%`);
@@ -171,7 +171,7 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   ];
   for (const r of comparison) {
     lines.push(
-      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3_load_change_percent).padStart(8)} ${fmt(r.aeration_stress_days, 1).padStart(21)} ${fmt(r.wet_days, 1).padStart(9)}`,
+      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3n_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3n_load_change_percent).padStart(8)} ${fmt(r.aeration_stress_days, 1).padStart(21)} ${fmt(r.wet_days, 1).padStart(9)}`,
     );
   }
   return lines.join('\n');

@@ -180,11 +180,11 @@ const MEASURES: Array<{
     unit: 'water',
   },
   {
-    key: 'no3_load',
+    key: 'no3n_load',
     label: () => 'Nitrate-N load in drain flow',
-    column: 'no3_load_kg_ha',
-    change: 'no3_load_change_kg_ha',
-    percent: 'no3_load_change_percent',
+    column: 'no3n_load_kg_ha',
+    change: 'no3n_load_change_kg_ha',
+    percent: 'no3n_load_change_percent',
     unit: 'load',
   },
   {
