@@ -1,6 +1,6 @@
 // tileflux batch as a user runs it (the built CLI in a child process): N jobs, each the demo
 // field (3 scenarios, with the seepage band as in `tileflux run`) with its own lateral spacing
-// and conductivity over one of 4 synthetic weather files of 31 years (30 reported), 2 workers.
+// and conductivity over one of 20 synthetic weather files of 31 years (30 reported), 2 workers.
 // Figures: wall time and jobs per second on 2 workers, the process's peak resident memory
 // (getrusage maxrss, worker threads included), the parallel efficiency of 2 workers against 1 on
 // the first min(N, 40) jobs (one run each, interleaved), and the CPU time per job of both (user +
@@ -17,7 +17,7 @@ import { formatWeatherCsv } from '../../dist/io/weather.js';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const CLI = join(root, 'dist', 'cli', 'main.js');
-const WEATHER_FILES = 4;
+const WEATHER_FILES = 20;
 
 function manifest(dir, jobs) {
   const lines = ['id,field,weather,drains.spacing,soil.conductivity'];

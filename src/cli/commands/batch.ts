@@ -248,7 +248,7 @@ async function batch(manifestPath: string, o: BatchCommandOptions): Promise<void
       Object.keys(SIGNALS).map((s) => [s, () => onSignal(s as keyof typeof SIGNALS)]),
     ) as Record<keyof typeof SIGNALS, () => void>;
     for (const s of Object.keys(SIGNALS) as Array<keyof typeof SIGNALS>) process.on(s, handlers[s]);
-    const bar = progress(todo.length, `${tag}`);
+    const bar = progress(todo.length, `${tag} jobs`, { logLines: true });
     try {
       let next = 0;
       const lane = async () => {
