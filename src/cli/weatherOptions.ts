@@ -43,7 +43,7 @@ export function addWeatherReadOptions(cmd: Command): Command {
     )
     .option(
       '--precip-unit <unit>',
-      'unit of precipitation and pet columns without a suffix: mm or in (default mm)',
+      'unit of precipitation and ref_et columns without a suffix: mm or in (default mm)',
     )
     .option(
       '--temp-unit <unit>',

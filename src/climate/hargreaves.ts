@@ -14,9 +14,9 @@ import { MM_PER_MJ_M2 } from './extraterrestrialRadiation.js';
  * @param tmaxC daily maximum temperature, degC
  * @param tminC daily minimum temperature, degC (not above tmaxC)
  * @param raMJm2 extraterrestrial radiation, MJ m-2 d-1 (see extraterrestrialRadiation)
- * @example hargreavesEt0(30, 18, 40) // 0.0023 * 41.8 * sqrt(12) * 40 * 0.408 = 5.43 mm/d
+ * @example hargreavesRefEt(30, 18, 40) // 0.0023 * 41.8 * sqrt(12) * 40 * 0.408 = 5.43 mm/d
  */
-export function hargreavesEt0(tmaxC: number, tminC: number, raMJm2: number): number {
+export function hargreavesRefEt(tmaxC: number, tminC: number, raMJm2: number): number {
   const tmean = 0.5 * (tmaxC + tminC);
   const range = tmaxC > tminC ? tmaxC - tminC : 0;
   const et0 = 0.0023 * (tmean + 17.8) * Math.sqrt(range) * MM_PER_MJ_M2 * raMJm2;

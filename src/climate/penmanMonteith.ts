@@ -121,10 +121,10 @@ export interface PenmanMonteithDay {
  * with T the mean of Tmax and Tmin (Eq. 9), es from Eq. 12, net radiation Rn = Rns - Rnl with
  * albedo 0.23 (Eq. 38-40) and Rso from Eq. 37. The result is floored at zero.
  *
- * @example penmanMonteithEt0({ tmaxC: 21.5, tminC: 12.3, eaKPa: 1.409, rsMJm2: 22.07,
+ * @example penmanMonteithRefEt({ tmaxC: 21.5, tminC: 12.3, eaKPa: 1.409, rsMJm2: 22.07,
  *   raMJm2: 41.09, u2Ms: 2.078, elevationM: 100 }) // 3.9 (FAO-56 Example 18, 50 deg 48 min N, 6 July)
  */
-export function penmanMonteithEt0(d: PenmanMonteithDay): number {
+export function penmanMonteithRefEt(d: PenmanMonteithDay): number {
   const t = 0.5 * (d.tmaxC + d.tminC);
   const delta = vapourPressureSlope(t);
   const gamma = psychrometricConstant(atmosphericPressure(d.elevationM));

@@ -2,23 +2,24 @@
  * Daily reference evapotranspiration for a whole weather record, choosing the method from the
  * columns present, in the order FAO-56 (Allen et al., 1998) recommends:
  *
- * 1. a `pet` column in the file is taken as given (the user's own ET0 overrides every method);
+ * 1. a `ref_et_mm` (or `ref_et_in`) column in the file is taken as given (the user's own ET0
+ *    overrides every method);
  * 2. FAO Penman-Monteith (FAO-56 Eq. 6) when solar radiation, relative humidity and wind are all
  *    present;
  * 3. Hargreaves (FAO-56 Eq. 52) from Tmax and Tmin and the latitude otherwise.
  */
 import { dayOfYearSeries } from './calendar.js';
 import { extraterrestrialRadiation } from './extraterrestrialRadiation.js';
-import { hargreavesEt0 } from './hargreaves.js';
-import { penmanMonteithEt0, vapourPressureFromRhMean } from './penmanMonteith.js';
+import { hargreavesRefEt } from './hargreaves.js';
+import { penmanMonteithRefEt, vapourPressureFromRhMean } from './penmanMonteith.js';
 import type { WeatherSeries } from './weatherSeries.js';
 
 /** How the reference ET of a record was obtained. */
-export type EtMethod = 'pet column' | 'FAO Penman-Monteith' | 'Hargreaves';
+export type EtMethod = 'ref_et column' | 'FAO Penman-Monteith' | 'Hargreaves';
 
 /** Equation reference for each method, for reports and help text. */
 export const ET_METHOD_SOURCE: Readonly<Record<EtMethod, string>> = {
-  'pet column': 'given in the weather file',
+  'ref_et column': 'given in the weather file',
   'FAO Penman-Monteith': 'FAO-56 Eq. 6',
   Hargreaves: 'FAO-56 Eq. 52',
 };
@@ -45,9 +46,9 @@ export function referenceEt(
   w: WeatherSeries,
   latitudeDeg: number,
   elevationM = 0,
-): { etMm: Float64Array; method: EtMethod } {
+): { refEtMm: Float64Array; method: EtMethod } {
   const n = w.dates.length;
-  if (w.petMm) return { etMm: Float64Array.from(w.petMm), method: 'pet column' };
+  if (w.refEtMm) return { refEtMm: Float64Array.from(w.refEtMm), method: 'ref_et column' };
   const et = new Float64Array(n);
   // Ra depends only on the day of year: compute the 366 values once.
   const raByDoy = new Float64Array(367);
@@ -58,7 +59,7 @@ export function referenceEt(
     for (let i = 0; i < n; i++) {
       const tmax = w.tmaxC[i];
       const tmin = w.tminC[i];
-      et[i] = penmanMonteithEt0({
+      et[i] = penmanMonteithRefEt({
         tmaxC: tmax,
         tminC: tmin,
         eaKPa: vapourPressureFromRhMean(rh[i], tmax, tmin),
@@ -68,8 +69,8 @@ export function referenceEt(
         elevationM,
       });
     }
-    return { etMm: et, method: 'FAO Penman-Monteith' };
+    return { refEtMm: et, method: 'FAO Penman-Monteith' };
   }
-  for (let i = 0; i < n; i++) et[i] = hargreavesEt0(w.tmaxC[i], w.tminC[i], raByDoy[doy[i]]);
-  return { etMm: et, method: 'Hargreaves' };
+  for (let i = 0; i < n; i++) et[i] = hargreavesRefEt(w.tmaxC[i], w.tminC[i], raByDoy[doy[i]]);
+  return { refEtMm: et, method: 'Hargreaves' };
 }

@@ -15,7 +15,7 @@ export interface WeatherSeries {
   /** Daily minimum air temperature, degC. */
   tminC: Float64Array;
   /** Reference ET given in the file, mm/d; when present it overrides every ET method. */
-  petMm?: Float64Array;
+  refEtMm?: Float64Array;
   /** Incoming solar (shortwave) radiation, MJ m-2 d-1. */
   solarMJm2?: Float64Array;
   /** Daily mean relative humidity, %. */
@@ -25,7 +25,7 @@ export interface WeatherSeries {
 }
 
 /** The optional variables of a series, in the order tileflux writes them. */
-export const OPTIONAL_WEATHER_FIELDS = ['petMm', 'solarMJm2', 'rhMeanPct', 'wind2mMs'] as const;
+export const OPTIONAL_WEATHER_FIELDS = ['refEtMm', 'solarMJm2', 'rhMeanPct', 'wind2mMs'] as const;
 
 /** Name of an optional variable of a WeatherSeries. */
 export type OptionalWeatherField = (typeof OPTIONAL_WEATHER_FIELDS)[number];

@@ -39,7 +39,7 @@ export interface WeatherSummary {
 
 /**
  * Summarise a weather record: annual precipitation (mean, driest and wettest complete year),
- * mean annual reference ET (referenceEt: FAO-56 Eq. 52 or Eq. 6, or the file's pet column) and
+ * mean annual reference ET (referenceEt: FAO-56 Eq. 52 or Eq. 6, or the file's ref_et column) and
  * the snow share of precipitation (snowModel, degree-day method).
  *
  * @param w a gap-free daily record
@@ -55,7 +55,7 @@ export function summarizeWeather(
 ): WeatherSummary {
   const n = w.dates.length;
   if (n === 0) throw new RangeError('summarizeWeather: the record has no days');
-  const { etMm, method } = referenceEt(w, latitudeDeg, elevationM);
+  const { refEtMm, method } = referenceEt(w, latitudeDeg, elevationM);
   const s = snowModel(w.precipMm, w.tmaxC, w.tminC, snow);
 
   const precipByYear: YearTotal[] = [];
@@ -72,7 +72,7 @@ export function summarizeWeather(
     let j = i;
     for (; j < n && Number(w.dates[j].slice(0, 4)) === year; j++) {
       p += w.precipMm[j];
-      e += etMm[j];
+      e += refEtMm[j];
       snowTotal += s.snowfallMm[j];
     }
     precipTotal += p;

@@ -217,7 +217,7 @@ export function simulate(
 
   const out = {
     etMm: new Float64Array(n),
-    potentialEtMm: new Float64Array(n),
+    cropEtMm: new Float64Array(n),
     runoffMm: new Float64Array(n),
     infiltrationMm: new Float64Array(n),
     drainflowMm: new Float64Array(n),
@@ -246,7 +246,7 @@ export function simulate(
   for (let i = 0; i < n; i++) {
     const waterIn = forcing.rainMm[i] + forcing.snowmeltMm[i];
     const snowCovered = forcing.sweMm[i] > 0;
-    const potEt = snowCovered ? 0 : calendar.kc[i] * forcing.refEtMm[i];
+    const cropEt = snowCovered ? 0 : calendar.kc[i] * forcing.refEtMm[i];
     const pDepl = calendar.depletionFraction[i];
     const ctrl = outletDepthM[i];
     const lv = Number.isNaN(ctrl) || ctrl >= p.drainDepthM ? free : levelFor(Math.max(0, ctrl));
@@ -281,7 +281,7 @@ export function simulate(
       let recharge = inf - refill;
 
       // ET: ponded water first, then the water table, then the root zone under stress.
-      let demand = potEt * dt;
+      let demand = cropEt * dt;
       const evap = Math.min(surface, demand);
       surface -= evap;
       demand -= evap;
@@ -380,7 +380,7 @@ export function simulate(
     swePrev = swe;
 
     out.etMm[i] = et;
-    out.potentialEtMm[i] = potEt;
+    out.cropEtMm[i] = cropEt;
     out.runoffMm[i] = runoff;
     out.infiltrationMm[i] = infil;
     out.drainflowMm[i] = drain;

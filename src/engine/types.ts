@@ -92,7 +92,7 @@ export interface EngineResult {
   dates: string[];
   etMm: Float64Array;
   /** Potential crop ET, Kc x ET0 (0 under snow cover), mm. */
-  potentialEtMm: Float64Array;
+  cropEtMm: Float64Array;
   runoffMm: Float64Array;
   infiltrationMm: Float64Array;
   drainflowMm: Float64Array;

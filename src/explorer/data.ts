@@ -134,7 +134,7 @@ export function weatherColumnsOf(w: WeatherSeries): WeatherColumns {
     precipMm: Array.from(w.precipMm),
     tmaxC: Array.from(w.tmaxC),
     tminC: Array.from(w.tminC),
-    petMm: col(w.petMm),
+    refEtMm: col(w.refEtMm),
     solarMJm2: col(w.solarMJm2),
     rhMeanPct: col(w.rhMeanPct),
     wind2mMs: col(w.wind2mMs),

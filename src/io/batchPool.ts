@@ -44,7 +44,7 @@ export function sharedWeather(w: WeatherSeries): WeatherSeries {
     precipMm: share(w.precipMm)!,
     tmaxC: share(w.tmaxC)!,
     tminC: share(w.tminC)!,
-    petMm: share(w.petMm),
+    refEtMm: share(w.refEtMm),
     solarMJm2: share(w.solarMJm2),
     rhMeanPct: share(w.rhMeanPct),
     wind2mMs: share(w.wind2mMs),

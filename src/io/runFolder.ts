@@ -44,7 +44,7 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
     { name: 'snowmelt_mm', values: f.snowmeltMm },
     { name: 'swe_mm', values: f.sweMm },
     { name: 'ref_et_mm', values: f.refEtMm },
-    { name: 'potential_et_mm', values: e.potentialEtMm },
+    { name: 'crop_et_mm', values: e.cropEtMm },
     { name: 'et_mm', values: e.etMm },
     { name: 'runoff_mm', values: e.runoffMm },
     { name: 'infiltration_mm', values: e.infiltrationMm },

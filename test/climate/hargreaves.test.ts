@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { hargreavesEt0 } from '../../src/climate/hargreaves.js';
+import { hargreavesRefEt } from '../../src/climate/hargreaves.js';
 
 // FAO-56 (Allen et al., 1998) Eq. 52, written out here independently of the code:
 // ET0 = 0.0023 (Tmean + 17.8) (Tmax - Tmin)^0.5 * 0.408 Ra, Ra in MJ m-2 d-1, ET0 in mm/d.
@@ -16,17 +16,17 @@ describe('Hargreaves ET0, FAO-56 Eq. 52', () => {
       [0, -10, 8],
     ];
     for (const [tmax, tmin, ra] of cases) {
-      expect(hargreavesEt0(tmax, tmin, ra)).toBeCloseTo(eq52(tmax, tmin, ra), 12);
+      expect(hargreavesRefEt(tmax, tmin, ra)).toBeCloseTo(eq52(tmax, tmin, ra), 12);
     }
   });
 
   it('gives a hand-computed value: Tmax 30, Tmin 18, Ra 40 -> 5.43 mm/d', () => {
     // 0.0023 * 41.8 * sqrt(12) * 16.32 = 0.0023 * 41.8 * 3.4641 * 16.32 = 5.435 (hand calculation)
-    expect(hargreavesEt0(30, 18, 40)).toBeCloseTo(5.435, 3);
+    expect(hargreavesRefEt(30, 18, 40)).toBeCloseTo(5.435, 3);
   });
 
   it('is zero for a zero temperature range and floored at zero below -17.8 degC', () => {
-    expect(hargreavesEt0(10, 10, 30)).toBe(0);
-    expect(hargreavesEt0(-20, -30, 5)).toBe(0);
+    expect(hargreavesRefEt(10, 10, 30)).toBe(0);
+    expect(hargreavesRefEt(-20, -30, 5)).toBe(0);
   });
 });

@@ -5,10 +5,10 @@ import {
   extraterrestrialRadiation,
   sunsetHourAngle,
 } from '../../src/climate/extraterrestrialRadiation.js';
-import { hargreavesEt0 } from '../../src/climate/hargreaves.js';
+import { hargreavesRefEt } from '../../src/climate/hargreaves.js';
 import {
   netLongwaveRadiation,
-  penmanMonteithEt0,
+  penmanMonteithRefEt,
   saturationVapourPressure,
 } from '../../src/climate/penmanMonteith.js';
 import { TilefluxError } from '../../src/errors.js';
@@ -99,7 +99,7 @@ describe('FAO-56 ET0 terms that are clamped', () => {
   it('air wetter than saturation adds no aerodynamic term (es - ea floored at 0)', () => {
     const day = { tmaxC: 20, tminC: 10, rsMJm2: 15, raMJm2: 30, elevationM: 0 };
     const es = (saturationVapourPressure(20) + saturationVapourPressure(10)) / 2;
-    const above = penmanMonteithEt0({ ...day, eaKPa: es + 0.5, u2Ms: 2 });
+    const above = penmanMonteithRefEt({ ...day, eaKPa: es + 0.5, u2Ms: 2 });
     // Eq. 6 with es - ea = 0: the wind only enters the denominator; Rnl from Eq. 39 with the
     // given ea (evaluated here for T = 15 degC, sea level: P = 101.3 kPa, Rso = 0.75 Ra).
     const t = 15;
@@ -111,7 +111,7 @@ describe('FAO-56 ET0 terms that are clamped', () => {
     expect(Math.abs(above / want - 1)).toBeLessThan(1e-12);
   });
   it('ET0 is floored at zero when net radiation is negative and the air saturated', () => {
-    const et0 = penmanMonteithEt0({
+    const et0 = penmanMonteithRefEt({
       tmaxC: 2,
       tminC: -4,
       // Rs half of Rso = 3.75: Rns = 1.44 < Rnl = 1.9 MJ m-2 d-1 (Eq. 38-39), ea above es.
@@ -124,6 +124,6 @@ describe('FAO-56 ET0 terms that are clamped', () => {
     expect(et0).toBe(0);
   });
   it('Hargreaves gives 0 when Tmin exceeds Tmax (no range)', () => {
-    expect(hargreavesEt0(10, 12, 30)).toBe(0);
+    expect(hargreavesRefEt(10, 12, 30)).toBe(0);
   });
 });

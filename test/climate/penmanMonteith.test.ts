@@ -4,7 +4,7 @@ import {
   clearSkyRadiation,
   meanSaturationVapourPressure,
   netLongwaveRadiation,
-  penmanMonteithEt0,
+  penmanMonteithRefEt,
   psychrometricConstant,
   saturationVapourPressure,
   vapourPressureFromRhMean,
@@ -54,7 +54,7 @@ describe('FAO Penman-Monteith ET0 (FAO-56 Eq. 6)', () => {
     const rnl = netLongwaveRadiation(21.5, 12.3, 1.409, 22.07, 30.9);
     expect(Math.abs(rnl - 3.71)).toBeLessThanOrEqual(0.005); // Example 18: Rnl = 3.71
     expect(Math.abs(0.77 * 22.07 - rnl - 13.28)).toBeLessThanOrEqual(0.01); // Rn = 13.28
-    const et0 = penmanMonteithEt0({
+    const et0 = penmanMonteithRefEt({
       tmaxC: 21.5,
       tminC: 12.3,
       eaKPa: 1.409,
@@ -74,7 +74,7 @@ describe('FAO Penman-Monteith ET0 (FAO-56 Eq. 6)', () => {
     const rs = (0.25 + (0.5 * 8.5) / daylightHours(lat, 105)) * ra;
     expect(Math.abs(rs - 22.65)).toBeLessThanOrEqual(0.005);
     expect(Math.abs(clearSkyRadiation(ra, 2) - 28.54)).toBeLessThanOrEqual(0.005);
-    const et0 = penmanMonteithEt0({
+    const et0 = penmanMonteithRefEt({
       tmaxC: 34.8,
       tminC: 25.6,
       eaKPa: 2.85,
@@ -97,15 +97,15 @@ describe('FAO Penman-Monteith ET0 (FAO-56 Eq. 6)', () => {
       u2Ms: 2,
       elevationM: 200,
     };
-    const et = penmanMonteithEt0(base);
-    expect(penmanMonteithEt0({ ...base, u2Ms: 4 })).toBeGreaterThan(et);
-    expect(penmanMonteithEt0({ ...base, eaKPa: 0.8 })).toBeGreaterThan(et);
+    const et = penmanMonteithRefEt(base);
+    expect(penmanMonteithRefEt({ ...base, u2Ms: 4 })).toBeGreaterThan(et);
+    expect(penmanMonteithRefEt({ ...base, eaKPa: 0.8 })).toBeGreaterThan(et);
     // A saturated, overcast winter day loses more longwave than it gains shortwave (Rn < 0):
     // Eq. 6 then gives a negative number, which is floored at zero.
     const ea = meanSaturationVapourPressure(2, -2);
     const rnl = netLongwaveRadiation(2, -2, ea, 3, clearSkyRadiation(6, 0));
     expect(0.77 * 3 - rnl).toBeLessThan(0);
     const wet = { tmaxC: 2, tminC: -2, eaKPa: ea, rsMJm2: 3, raMJm2: 6, u2Ms: 1, elevationM: 0 };
-    expect(penmanMonteithEt0(wet)).toBe(0);
+    expect(penmanMonteithRefEt(wet)).toBe(0);
   });
 });

@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { referenceEt } from '../../src/climate/referenceEt.js';
 import { consecutiveDates, dayOfYear } from '../../src/climate/calendar.js';
 import { extraterrestrialRadiation } from '../../src/climate/extraterrestrialRadiation.js';
-import { hargreavesEt0 } from '../../src/climate/hargreaves.js';
+import { hargreavesRefEt } from '../../src/climate/hargreaves.js';
 import type { WeatherSeries } from '../../src/climate/weatherSeries.js';
 
 function series(dates: string[], tmax: number, tmin: number): WeatherSeries {
@@ -16,16 +16,16 @@ function series(dates: string[], tmax: number, tmin: number): WeatherSeries {
 }
 
 describe('referenceEt: method choice', () => {
-  it('takes a pet column as given', () => {
+  it('takes a ref_et column as given', () => {
     const w = series(consecutiveDates('2024-06-01', 3), 25, 12);
-    w.petMm = Float64Array.of(4.1, 5.2, 3.3);
+    w.refEtMm = Float64Array.of(4.1, 5.2, 3.3);
     w.solarMJm2 = Float64Array.of(20, 20, 20);
     w.rhMeanPct = Float64Array.of(60, 60, 60);
     w.wind2mMs = Float64Array.of(2, 2, 2);
     const r = referenceEt(w, 42);
-    expect(r.method).toBe('pet column');
-    expect([...r.etMm]).toEqual([4.1, 5.2, 3.3]);
-    expect(r.etMm).not.toBe(w.petMm); // a copy: callers may modify it
+    expect(r.method).toBe('ref_et column');
+    expect([...r.refEtMm]).toEqual([4.1, 5.2, 3.3]);
+    expect(r.refEtMm).not.toBe(w.refEtMm); // a copy: callers may modify it
   });
 
   it('uses FAO Penman-Monteith with solar, humidity and wind: FAO-56 Example 18 as a record', () => {
@@ -39,7 +39,7 @@ describe('referenceEt: method choice', () => {
     w.wind2mMs = Float64Array.of(2.078);
     const r = referenceEt(w, 50 + 48 / 60, 100);
     expect(r.method).toBe('FAO Penman-Monteith');
-    expect(Math.abs(r.etMm[0] - 3.9)).toBeLessThanOrEqual(0.05);
+    expect(Math.abs(r.refEtMm[0] - 3.9)).toBeLessThanOrEqual(0.05);
   });
 
   it('falls back to Hargreaves when any of solar, humidity or wind is missing', () => {
@@ -51,11 +51,11 @@ describe('referenceEt: method choice', () => {
     expect(r.method).toBe('Hargreaves');
     dates.forEach((d, i) => {
       const ra = extraterrestrialRadiation(-33.5, dayOfYear(d));
-      expect(r.etMm[i]).toBeCloseTo(hargreavesEt0(20, 8, ra), 12);
+      expect(r.refEtMm[i]).toBeCloseTo(hargreavesRefEt(20, 8, ra), 12);
     });
     // Southern summer (January) evaporates more than southern winter (July).
-    expect(r.etMm[dates.indexOf('2024-01-15')]).toBeGreaterThan(
-      2 * r.etMm[dates.indexOf('2024-07-15')],
+    expect(r.refEtMm[dates.indexOf('2024-01-15')]).toBeGreaterThan(
+      2 * r.refEtMm[dates.indexOf('2024-07-15')],
     );
   });
 });

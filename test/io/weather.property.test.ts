@@ -37,7 +37,7 @@ const seriesArb = fc
       tmaxC: f((d) => (d.tmin + d.range) / 10),
       tminC: f((d) => d.tmin / 10),
     };
-    if (optional.pet) w.petMm = f((d) => d.pet / 100);
+    if (optional.pet) w.refEtMm = f((d) => d.pet / 100);
     if (optional.solar) w.solarMJm2 = f((d) => d.solar / 100);
     if (optional.rh) w.rhMeanPct = f((d) => d.rh / 10);
     if (optional.wind) w.wind2mMs = f((d) => d.wind / 100);
@@ -63,7 +63,7 @@ describe('weather CSV properties', () => {
           'precipMm',
           'tmaxC',
           'tminC',
-          'petMm',
+          'refEtMm',
           'solarMJm2',
           'rhMeanPct',
           'wind2mMs',
@@ -144,7 +144,7 @@ describe('weather CSV properties', () => {
           precip_mm: '2500',
           tmax_c: '75',
           tmin_c: '-95',
-          pet_mm: '45',
+          ref_et_mm: '45',
           solar_mj_m2: '60',
           rh_pct: '101',
           wind_m_s: '80',

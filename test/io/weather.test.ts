@@ -42,7 +42,7 @@ describe('parseWeatherCsv: accepted forms', () => {
       tmin: 'tmin_c',
     });
     expect(r.unitsUsed).toEqual({ precip: 'mm', tmax: 'degC', tmin: 'degC' });
-    expect(r.series.petMm).toBeUndefined();
+    expect(r.series.refEtMm).toBeUndefined();
   });
 
   it('converts inches and Fahrenheit from the header suffix (1 in = 25.4 mm, degC = (degF - 32) 5/9)', () => {
@@ -65,10 +65,10 @@ describe('parseWeatherCsv: accepted forms', () => {
 
   it('reads optional columns with their units', () => {
     const text =
-      'date,precip_mm,tmax_c,tmin_c,pet_in,solar_w_m2,rh_pct,wind_mph,station_note\n' +
+      'date,precip_mm,tmax_c,tmin_c,ref_et_in,solar_w_m2,rh_pct,wind_mph,station_note\n' +
       '2024-07-01,0,30,18,0.2,250,55,10,ok\n';
     const r = parseWeatherCsv(text, F);
-    expect(r.series.petMm![0]).toBeCloseTo(5.08, 12); // 0.2 in
+    expect(r.series.refEtMm![0]).toBeCloseTo(5.08, 12); // 0.2 in
     expect(r.series.solarMJm2![0]).toBeCloseTo(21.6, 12); // 250 W/m2 * 86400 s = 21.6 MJ/m2
     expect(r.series.rhMeanPct![0]).toBe(55);
     expect(r.series.wind2mMs![0]).toBeCloseTo(4.4704, 12); // 10 mph, 1 mph = 0.44704 m/s exactly
@@ -237,13 +237,32 @@ describe('formatWeatherCsv', () => {
       tmaxC: Float64Array.of(20, -0.04),
       tminC: Float64Array.of(10.05, -3.26),
       wind2mMs: Float64Array.of(2, 3.456),
-      petMm: Float64Array.of(4, 5),
+      refEtMm: Float64Array.of(4, 5),
     });
     expect(text).toBe(
-      'date,precip_mm,tmax_c,tmin_c,pet_mm,wind_m_s\n' +
+      'date,precip_mm,tmax_c,tmin_c,ref_et_mm,wind_m_s\n' +
         '2024-05-01,12.70,20.0,10.1,4.00,2.00\n' +
         '2024-05-02,0.00,0.0,-3.3,5.00,3.46\n',
     );
     expect(parseWeatherCsv(text).series.wind2mMs![1]).toBe(3.46);
+  });
+});
+
+describe('reference ET column', () => {
+  it('is read from ref_et_mm, and an old pet_mm header is an error, not ignored', () => {
+    const text = 'date,precip_mm,tmax_c,tmin_c,ref_et_mm\n2024-05-01,0,20,10,3.5\n';
+    expect(parseWeatherCsv(text, F).series.refEtMm![0]).toBe(3.5);
+    const p = problem('date,precip_mm,tmax_c,tmin_c,pet_mm\n2024-05-01,0,20,10,3.5\n');
+    expect(p.text).toContain('column pet_mm: reference ET');
+    expect(p.text).toContain('ref_et_mm');
+    // Mapped on purpose, the same column is read.
+    const mapped = parseWeatherCsv(
+      'date,precip_mm,tmax_c,tmin_c,pet_mm\n2024-05-01,0,20,10,3.5\n',
+      {
+        ...F,
+        columns: { ref_et: 'pet_mm' },
+      },
+    );
+    expect(mapped.series.refEtMm![0]).toBe(3.5);
   });
 });

@@ -79,7 +79,7 @@ function heldYear(
   const r = {
     dates: ds,
     etMm: col(),
-    potentialEtMm: col(),
+    cropEtMm: col(),
     runoffMm: col(),
     infiltrationMm: col(),
     drainflowMm: col(),

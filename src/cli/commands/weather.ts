@@ -130,7 +130,7 @@ function summaryLines(
         `wettest ${u.water(s.precipMax!.mm)} (${s.precipMax!.year})`
       : `${u.water(s.precipMeanMmYr)}/yr, scaled from the daily mean (no complete calendar year)`;
   let et = `${u.water(s.refEtMeanMmYr)}/yr by ${s.refEtMethod} (${ET_METHOD_SOURCE[s.refEtMethod]})`;
-  if (s.refEtMethod !== 'pet column') {
+  if (s.refEtMethod !== 'ref_et column') {
     et += ` at latitude ${latitudeDeg} deg${latitudeNote}`;
   }
   const snow =
@@ -172,7 +172,7 @@ What the file must look like
     date                                   required
     precip_mm or precip_in                 required, daily total
     tmax_c or tmax_f, tmin_c or tmin_f     required, daily maximum and minimum
-    pet_mm or pet_in                       optional reference ET; overrides every method
+    ref_et_mm or ref_et_in                       optional reference ET; overrides every method
     solar_mj_m2 or solar_w_m2              optional solar radiation (daily total or mean)
     rh_pct                                 optional daily mean relative humidity
     wind_m_s, wind_km_h or wind_mph        optional wind speed at 2 m
@@ -191,7 +191,7 @@ ${bounds}
 What is reported
   Period and day count, filled days, annual precipitation (mean, driest and wettest complete
   calendar year), mean annual reference ET and its method, and the snow share of precipitation.
-  Reference ET: the pet column if present; else FAO Penman-Monteith (FAO-56 Eq. 6) when
+  Reference ET: the ref_et column if present; else FAO Penman-Monteith (FAO-56 Eq. 6) when
   solar, humidity and wind are all present; else Hargreaves (FAO-56 Eq. 52) from Tmax and
   Tmin. Both need the latitude: give --latitude, otherwise ${DEFAULT_LATITUDE_DEG} degrees north is assumed and
   the output says so.

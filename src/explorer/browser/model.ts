@@ -35,7 +35,7 @@ export interface WeatherColumns {
   precipMm: number[];
   tmaxC: number[];
   tminC: number[];
-  petMm?: number[];
+  refEtMm?: number[];
   solarMJm2?: number[];
   rhMeanPct?: number[];
   wind2mMs?: number[];
@@ -212,7 +212,7 @@ export function weatherOf(w: WeatherColumns): WeatherSeries {
     precipMm: Float64Array.from(w.precipMm),
     tmaxC: Float64Array.from(w.tmaxC),
     tminC: Float64Array.from(w.tminC),
-    petMm: col(w.petMm),
+    refEtMm: col(w.refEtMm),
     solarMJm2: col(w.solarMJm2),
     rhMeanPct: col(w.rhMeanPct),
     wind2mMs: col(w.wind2mMs),

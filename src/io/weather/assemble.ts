@@ -191,7 +191,7 @@ export function assembleSeries(
     tmaxC: full.tmax,
     tminC: full.tmin,
   };
-  if (full.pet) series.petMm = full.pet;
+  if (full.ref_et) series.refEtMm = full.ref_et;
   if (full.solar) series.solarMJm2 = full.solar;
   if (full.rh) series.rhMeanPct = full.rh;
   if (full.wind) series.wind2mMs = full.wind;

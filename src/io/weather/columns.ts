@@ -56,7 +56,7 @@ export function resolveColumns(
   const list = headerList(header);
   const mapping = o.columns ?? {};
   const flagUnit = (v: ValueVariable): string | undefined =>
-    v === 'precip' || v === 'pet'
+    v === 'precip' || v === 'ref_et'
       ? o.precipUnit
       : v === 'tmax' || v === 'tmin'
         ? o.tempUnit
@@ -81,7 +81,7 @@ export function resolveColumns(
         problems.fail(
           line,
           h,
-          `the header says ${fromSuffix.label} but --${v === 'precip' || v === 'pet' ? 'precip' : 'temp'}-unit says ${flag}; ` +
+          `the header says ${fromSuffix.label} but --${v === 'precip' || v === 'ref_et' ? 'precip' : 'temp'}-unit says ${flag}; ` +
             'drop the option or rename the column',
         );
       }
@@ -143,6 +143,20 @@ export function resolveColumns(
       );
     }
     if (matches.length === 1) use(v, matches[0], unitOf(v, header[matches[0]], true));
+  }
+
+  // Reference ET was once read from `pet_mm`/`pet_in`: say so rather than ignore the column
+  // and compute ET0 by another method without a word.
+  if (!cols.ref_et) {
+    const old = header.find((h) => /^pet_(mm|in)$/i.test(h));
+    if (old !== undefined) {
+      problems.fail(
+        line,
+        old,
+        `reference ET is read from a column named ref_et_${old.slice(4).toLowerCase()}; ` +
+          `rename the header or map it with --columns ref_et=${old}`,
+      );
+    }
   }
 
   const absent = (['date', ...REQUIRED] as WeatherVariable[]).filter((v) => !cols[v]);

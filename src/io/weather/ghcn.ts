@@ -171,7 +171,7 @@ export function parseGhcnByStation(text: string, o: WeatherReadOptions): Weather
     precip: { index: 3, header: 'VALUE (PRCP)', unit: TENTH_MM },
     tmax: { index: 3, header: 'VALUE (TMAX)', unit: TENTH_C },
     tmin: { index: 3, header: 'VALUE (TMIN)', unit: TENTH_C },
-    pet: undefined,
+    ref_et: undefined,
     solar: undefined,
     rh: undefined,
     wind: undefined,

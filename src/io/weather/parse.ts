@@ -1,7 +1,7 @@
 /**
  * tileflux's own weather CSV: a header row, then one row per day. Columns are found by name with
  * the unit in the suffix (`precip_mm`, `precip_in`, `tmax_c`, `tmax_f`, `tmin_c`, `tmin_f`,
- * `pet_mm`, `pet_in`, `solar_mj_m2`, `solar_w_m2`, `rh_pct`, `wind_m_s`, `wind_km_h`,
+ * `ref_et_mm`, `ref_et_in`, `solar_mj_m2`, `solar_w_m2`, `rh_pct`, `wind_m_s`, `wind_km_h`,
  * `wind_mph`), or mapped from other names with `columns`. Every problem names the file, the line
  * and the column, and what would be accepted. The result is a gap-free WeatherSeries in core
  * units (mm/d, degC, MJ m-2 d-1, %, m/s).
@@ -39,9 +39,9 @@ import {
 export interface WeatherReadOptions extends ColumnOptions {
   /** Name of the file, used in messages. */
   file?: string;
-  /** Map variables to headers: keys date, precip, tmax, tmin, pet, solar, rh, wind. */
+  /** Map variables to headers: keys date, precip, tmax, tmin, ref_et, solar, rh, wind. */
   columns?: Record<string, string>;
-  /** Unit of a precipitation (and pet) column whose header has no unit suffix (default mm). */
+  /** Unit of a precipitation (and ref_et) column whose header has no unit suffix (default mm). */
   precipUnit?: 'mm' | 'in';
   /** Unit of temperature columns whose header has no unit suffix (default c). */
   tempUnit?: 'c' | 'f';

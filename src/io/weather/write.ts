@@ -9,7 +9,7 @@ const OWN_COLUMNS: ReadonlyArray<[string, keyof Omit<WeatherSeries, 'dates'>, nu
   ['precip_mm', 'precipMm', 2],
   ['tmax_c', 'tmaxC', 1],
   ['tmin_c', 'tminC', 1],
-  ['pet_mm', 'petMm', 2],
+  ['ref_et_mm', 'refEtMm', 2],
   ['solar_mj_m2', 'solarMJm2', 2],
   ['rh_pct', 'rhMeanPct', 1],
   ['wind_m_s', 'wind2mMs', 2],
@@ -17,7 +17,7 @@ const OWN_COLUMNS: ReadonlyArray<[string, keyof Omit<WeatherSeries, 'dates'>, nu
 
 /**
  * Write a series as tileflux's own CSV: `date,precip_mm,tmax_c,tmin_c` then whichever of
- * `pet_mm,solar_mj_m2,rh_pct,wind_m_s` the series has; LF line ends; fixed decimals (2 for
+ * `ref_et_mm,solar_mj_m2,rh_pct,wind_m_s` the series has; LF line ends; fixed decimals (2 for
  * depths, speed and radiation, 1 for temperature and humidity), so output is byte-identical for
  * the same series and reads back with parseWeatherCsv.
  *
