@@ -14,7 +14,8 @@ import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
 import { HARGREAVES_BIAS } from '../climate/referenceEt.js';
-import { capacityText, rootText, seepageBandOf, seepageText } from '../scenarios/reportData.js';
+import { capacityText, rootText, seepageText } from '../scenarios/assumptions.js';
+import { seepageBandOf } from '../scenarios/runComparison.js';
 import { columnsToCsvChunks, recordIn, toCsv, type Column } from './tables.js';
 
 /** What the summary records about the inputs. */

@@ -8,19 +8,18 @@
  * convention of the annual table (src/scenarios/annual.ts).
  */
 import { dayIndexOf } from '../climate/calendar.js';
-import type { AnnualRow } from '../scenarios/types.js';
 import type { NitrateResult } from './types.js';
 
-/** Nitrate columns of one year of annual.csv. */
-export type AnnualNitrate = Pick<
-  AnnualRow,
-  | 'year'
-  | 'no3n_load_kg_ha'
-  | 'fwmc_mg_l'
-  | 'runoff_n_kg_ha'
-  | 'seepage_n_kg_ha'
-  | 'n_balance_error_kg_ha'
-> & { drainflow_mm: number };
+/** Nitrate columns of one year of annual.csv (kg N/ha, mg N/L), with the year's drain flow (mm). */
+export interface AnnualNitrate {
+  year: number;
+  drainflow_mm: number;
+  no3n_load_kg_ha: number;
+  fwmc_mg_l: number;
+  runoff_n_kg_ha: number;
+  seepage_n_kg_ha: number;
+  n_balance_error_kg_ha: number;
+}
 
 /**
  * Flow-weighted mean concentration (mg N/L) of a load (kg N/ha) carried by a flow (mm); 0 when
@@ -33,22 +32,28 @@ export function flowWeightedMeanMgL(loadKgHa: number, flowMm: number): number {
 }
 
 /**
- * Sum a run's daily nitrate results by calendar year.
+ * Sum a run's daily nitrate results by calendar year over days [start, end). The annual table of
+ * a scenario (`scenarios/annual.ts`) takes its nitrate columns from here.
  *
- * @param dates       ISO dates of the run
+ * @param days        ISO dates of the run, or the calendar year of each day (integers, faster)
  * @param drainflowMm daily drain flow, mm (the flow the loads came from)
  * @param r           the nitrate results of the run
  * @example annualNitrate(dates, engine.drainflowMm, simulateNitrate(input, config))[0].fwmc_mg_l
  */
 export function annualNitrate(
-  dates: readonly string[],
+  days: readonly string[] | ArrayLike<number>,
   drainflowMm: Float64Array,
   r: NitrateResult,
+  start = 0,
+  end = days.length,
 ): AnnualNitrate[] {
   const rows: AnnualNitrate[] = [];
   let row: AnnualNitrate | undefined;
-  const years = dayIndexOf(dates).year;
-  for (let i = 0; i < dates.length; i++) {
+  const years =
+    days.length > 0 && typeof days[0] === 'string'
+      ? dayIndexOf(days as readonly string[]).year
+      : (days as ArrayLike<number>);
+  for (let i = start; i < end; i++) {
     const year = years[i];
     if (!row || row.year !== year) {
       row = {

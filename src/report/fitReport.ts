@@ -4,7 +4,7 @@
  * ratings of daily field-scale drain flow, the charts, the methods and the cautions. Built on the
  * same page, escaping and security policy as the run report.
  */
-import type { FitDocument } from '../scenarios/fitSummary.js';
+import type { FitDocument } from './fitSummary.js';
 import { FIT_CHART_CAPTIONS } from './fitCharts.js';
 import { fixed } from './format.js';
 import {

@@ -18,7 +18,7 @@
 import { dayIndexOf, isLeapYear, monthDayKey } from '../climate/calendar.js';
 import { porosityTable } from '../engine/porosityProfile.js';
 import type { EngineForcing, EngineResult } from '../engine/types.js';
-import { flowWeightedMeanMgL } from '../nitrate/annual.js';
+import { annualNitrate } from '../nitrate/annual.js';
 import type { NitrateResult } from '../nitrate/types.js';
 import type { Field } from './fieldSchema.js';
 import {
@@ -93,7 +93,6 @@ export function annualRows(
   const close = () => {
     if (!row) return;
     row.wt_mean_depth_m = wtSum / row.days;
-    row.fwmc_mg_l = flowWeightedMeanMgL(row.no3n_load_kg_ha, row.drainflow_mm);
     rows.push(row);
   };
   for (let i = start; i < end; i++) {
@@ -190,12 +189,17 @@ export function annualRows(
         if (workable) row.fall_fieldwork_days++;
       }
     }
-    row.no3n_load_kg_ha += no3.loadKgHa[i];
-    row.runoff_n_kg_ha += no3.runoffLoadKgHa[i];
-    row.seepage_n_kg_ha += no3.seepageLoadKgHa[i];
-    if (no3.pool) row.n_balance_error_kg_ha += no3.pool.balanceErrorKgHa[i];
   }
   close();
+  const nitrate = annualNitrate(days.year, r.drainflowMm, no3, start, end);
+  rows.forEach((y, k) => {
+    const n = nitrate[k];
+    y.no3n_load_kg_ha = n.no3n_load_kg_ha;
+    y.fwmc_mg_l = n.fwmc_mg_l;
+    y.runoff_n_kg_ha = n.runoff_n_kg_ha;
+    y.seepage_n_kg_ha = n.seepage_n_kg_ha;
+    y.n_balance_error_kg_ha = n.n_balance_error_kg_ha;
+  });
   return rows;
 }
 

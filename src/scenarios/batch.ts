@@ -6,7 +6,7 @@
 import { TilefluxError } from '../errors.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { BAND_COLUMNS, COMPARISON_COLUMNS } from './compare.js';
-import { comparisonOf } from './reportData.js';
+import { comparisonOf } from './runComparison.js';
 import { runField, type FieldWithScenarios, type PeriodOptions } from './run.js';
 import { ANNUAL_COLUMNS } from './types.js';
 import { withPartialYear } from './annual.js';

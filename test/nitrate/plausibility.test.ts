@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import type { WeatherSeries } from '../../src/climate/weatherSeries.js';
 import { fieldSchema } from '../../src/scenarios/fieldSchema.js';
 import { runField } from '../../src/scenarios/run.js';
-import { comparisonOf } from '../../src/scenarios/reportData.js';
+import { comparisonOf } from '../../src/scenarios/runComparison.js';
 
 // Real daily weather: the New York record of the vega-datasets package (data/weather.csv,
 // 2012-2015; precipitation in mm, temperatures in degC), read here with a plain split.

@@ -26,12 +26,7 @@ import {
 } from '../../scenarios/fit.js';
 import { DEFAULT_FIT_PATHS, FIT_PARAMETERS } from '../../scenarios/fitParams.js';
 import { buildFitProblem, parsePeriod } from '../../scenarios/fitProblem.js';
-import {
-  fitColumns,
-  fitDocument,
-  fitSeriesOf,
-  type FitDocument,
-} from '../../scenarios/fitSummary.js';
+import { fitColumns, fitDocument, fitSeriesOf, type FitDocument } from '../../report/fitSummary.js';
 import { localRunner, type SearchRunner } from '../../scenarios/optimise.js';
 import { parseQuantity } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';

@@ -19,14 +19,9 @@ import { buildChartSpecs } from '../../report/charts.js';
 import { writeCharts, writeReport } from '../../report/index.js';
 import { cropConditionLines, headlineLines } from '../../report/summary.js';
 import type { ComparisonRow } from '../../scenarios/compare.js';
-import {
-  capacityText,
-  comparisonColumnsOf,
-  comparisonOf,
-  reportDataOf,
-  rootText,
-  seepageText,
-} from '../../scenarios/reportData.js';
+import { reportDataOf } from '../../report/reportData.js';
+import { capacityText, rootText, seepageText } from '../../scenarios/assumptions.js';
+import { comparisonColumnsOf, comparisonOf } from '../../scenarios/runComparison.js';
 import { counted } from '../../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';

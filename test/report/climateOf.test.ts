@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { climateOf } from '../../src/scenarios/reportData.js';
+import { climateOf } from '../../src/report/reportData.js';
 import type { EngineForcing } from '../../src/engine/types.js';
 
 /** A forcing of `n` days with constant precipitation, reference ET and temperature. */

@@ -4,10 +4,10 @@
  * their unit. Pure.
  */
 import type { Column } from '../io/tables.js';
-import type { FitSeries } from '../report/fitCharts.js';
-import type { FitResult, PeriodStatistics } from './fit.js';
-import { RATING_BANDS, RATING_SOURCE, kgeVerdict, rate } from './fitRatings.js';
-import type { FitStatistics } from './fitStatistics.js';
+import type { FitResult, PeriodStatistics } from '../scenarios/fit.js';
+import { RATING_BANDS, RATING_SOURCE, kgeVerdict, rate } from '../scenarios/fitRatings.js';
+import type { FitStatistics } from '../scenarios/fitStatistics.js';
+import type { FitSeries } from './fitCharts.js';
 
 /** Statistics of one series in fit.json: unit-suffixed keys (flow in mm/d, depths in m). */
 export function statisticsRecord(

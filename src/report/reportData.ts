@@ -1,26 +1,18 @@
 /**
  * From a run to what the report and the charts need: the comparison table, the daily series of
- * each scenario, balance closure, and the methods with their sources.
+ * each scenario, balance closure, the climate of the period, and the methods with their sources.
  */
-import { MIN_ROOT_DEPTH_M } from '../engine/crops.js';
-import { proseUnits } from '../units/prose.js';
-import { US, type UnitSystem } from '../units/quantity.js';
-import type { ReportData } from '../report/types.js';
 import { ET_METHOD_SOURCE, HARGREAVES_BIAS } from '../climate/referenceEt.js';
-import { VERSION } from '../version.js';
-import {
-  BAND_COLUMNS,
-  COMPARISON_COLUMNS,
-  compareScenarios,
-  withSeepageBand,
-  type ComparisonRow,
-} from './compare.js';
-import type { AnnualRow } from './types.js';
 import type { EngineForcing } from '../engine/types.js';
-import { SEEPAGE_BAND, SEEPAGE_SETTINGS, type SeepageBand } from '../engine/seepage.js';
-import { wetnessSchema } from './fieldSchema.js';
-import { windowWaterTable } from './windows.js';
-import type { RunOutput } from './run.js';
+import { capacityText, rootText, seepageText } from '../scenarios/assumptions.js';
+import { wetnessSchema } from '../scenarios/fieldSchema.js';
+import type { ComparisonRow } from '../scenarios/compare.js';
+import type { RunOutput } from '../scenarios/run.js';
+import { comparisonOf } from '../scenarios/runComparison.js';
+import { windowWaterTable } from '../scenarios/windows.js';
+import type { UnitSystem } from '../units/quantity.js';
+import { VERSION } from '../version.js';
+import type { ReportData } from './types.js';
 
 /** The methods behind every number in a run, with their published sources. */
 export function methodsOf(run: RunOutput, units: UnitSystem = 'si'): ReportData['methods'] {
@@ -102,126 +94,12 @@ export function methodsOf(run: RunOutput, units: UnitSystem = 'si'): ReportData[
   return methods;
 }
 
-/** What a run assumed about seepage, in words (the first scenario's setting), in `units`. */
-export function seepageText(run: RunOutput, units: UnitSystem = 'si'): string {
-  const s = run.scenarios[0]?.spec;
-  if (!s) return '';
-  const say = proseUnits(units);
-  const { name, setting } = s.seepage;
-  const parts: string[] = [];
-  if (setting.vertical) {
-    parts.push(
-      `vertical leakage to a regional head ${say.length(setting.vertical.to)} below the surface with leakance ${setting.vertical.conductance.toExponential(2)} /d`,
-    );
-  }
-  if (setting.lateral) {
-    const k = setting.lateral.conductivity ?? s.params.kAboveMPerDay;
-    parts.push(
-      `lateral seepage to an edge ${say.length(setting.lateral.distance, units === 'us' ? 0 : undefined)} from the field's middle with water ${say.length(setting.lateral.level)} deep (K ${say.conductivity(k)})`,
-    );
-  }
-  const perHead = units === 'us' ? 'in/d per ft' : 'mm/d per m';
-  const headScale = units === 'us' ? US.mPerFt / US.mmPerIn : 1;
-  const extra =
-    s.params.seepageMmPerDay > 0 || s.params.seepageConductanceMmPerDayPerM > 0
-      ? `; plus ${say.rate(s.params.seepageMmPerDay)} and ${+(s.params.seepageConductanceMmPerDayPerM * headScale).toPrecision(3)} ${perHead} of head above the restrictive layer (soil.seepage, soil.seepageConductance)`
-      : '';
-  return `Seepage setting "${name}": ${parts.length ? parts.join('; ') : 'no seepage'}${extra}.`;
-}
-
-/** The rooting depth a run assumed, in words, in `units`. */
-export function rootText(run: RunOutput, units: UnitSystem = 'si'): string {
-  const s = run.scenarios[0]?.spec;
-  if (!s) return '';
-  const say = proseUnits(units);
-  if (s.roots.fixedM !== undefined)
-    return `Root zone ${say.length(s.roots.fixedM)} all year (soil.rootZoneDepth).`;
-  const crops = [...new Set(s.rotation)]
-    .map((c) => `${c} ${say.length(Math.min(s.crops[c].maxRootDepth, s.roots.capM ?? Infinity))}`)
-    .join(', ');
-  return `Roots grow from ${say.length(MIN_ROOT_DEPTH_M)} at planting to the crop's maximum at the start of mid-season (${crops}; capped by the restrictive layer).`;
-}
-
-/** The pipe capacity a run assumed, in words, in `units`. */
-export function capacityText(run: RunOutput, units: UnitSystem = 'si'): string {
-  const s = run.scenarios[0]?.spec;
-  if (!s) return '';
-  const c = s.params.capacityMmPerDay;
-  return Number.isFinite(c) ? `${proseUnits(units).rate(c)} (${s.capacitySource})` : 'no limit';
-}
-
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */
 export function wettestYear(run: RunOutput): number {
   const annual = run.scenarios[0]?.annual ?? [];
   let best = annual[0];
   for (const r of annual) if (r.precip_mm > best.precip_mm) best = r;
   return best ? best.year : Number(run.from.slice(0, 4));
-}
-
-/**
- * The comparison rows of a run (one per scenario, baseline first as in the run), with the
- * changes under the low and high seepage settings beside each change column when the run
- * computed the seepage band.
- */
-export function comparisonOf(run: RunOutput): ComparisonRow[] {
-  const rows = compareAnnual(
-    run,
-    run.scenarios.flatMap((s) => s.annual),
-  );
-  const band = run.seepageBand;
-  return band
-    ? withSeepageBand(rows, compareAnnual(run, band.low), compareAnnual(run, band.high))
-    : rows;
-}
-
-function compareAnnual(run: RunOutput, annual: AnnualRow[]): ComparisonRow[] {
-  return compareScenarios(annual, {
-    baseline: run.baseline,
-    scenarios: run.scenarios.map((s) => ({
-      name: s.spec.name,
-      spacingM: s.spec.params.spacingM,
-    })),
-  });
-}
-
-/**
- * The seepage band for summary.json: the three documented settings and, per scenario, the
- * change in drain flow, load and concentration against the baseline under each.
- */
-export function seepageBandOf(run: RunOutput) {
-  const band = run.seepageBand;
-  if (!band) return null;
-  const rows = Object.fromEntries(
-    SEEPAGE_BAND.map((b) => [b, compareAnnual(run, band[b])]),
-  ) as Record<SeepageBand, ComparisonRow[]>;
-  const keys = [
-    'drainflow_change_percent',
-    'no3n_load_change_percent',
-    'fwmc_change_percent',
-    'seepage_change_mm',
-  ] as const;
-  return {
-    settings: Object.fromEntries(SEEPAGE_BAND.map((b) => [b, SEEPAGE_SETTINGS[b]])),
-    field_setting: run.scenarios[0]?.spec.seepage.name ?? '',
-    changes: run.scenarios
-      .filter((s) => s.spec.name !== run.baseline)
-      .map((s) => ({
-        scenario: s.spec.name,
-        ...Object.fromEntries(
-          keys.map((k) => [
-            k,
-            Object.fromEntries(
-              SEEPAGE_BAND.map((b) => [b, rows[b].find((r) => r.scenario === s.spec.name)![k]]),
-            ),
-          ]),
-        ),
-      })),
-  };
-}
-
-/** comparison.csv's columns for a run: with the seepage band when the run computed it. */
-export function comparisonColumnsOf(run: RunOutput): readonly string[] {
-  return run.seepageBand ? [...COMPARISON_COLUMNS, ...BAND_COLUMNS] : COMPARISON_COLUMNS;
 }
 
 /** Days in a mean Gregorian year, for rates per year over records of any length. */
