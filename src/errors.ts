@@ -12,6 +12,29 @@ export class TilefluxError extends Error {
   }
 }
 
+/** How a message calls a setting: the library uses the setting's own name, the CLI its flag. */
+export type SettingNamer = (setting: string) => string;
+
+/**
+ * A user error about settings of a library call (`from`, `only`, `params`, ...). The core writes
+ * the message once with `name(setting)` wherever a setting is named; `message` calls each
+ * setting by its own name, and `messageWith` lets an edge call it as its users know it (the CLI
+ * passes its flags, so `tileflux run` says "--from 2031-01-01 lies outside ...").
+ * @example new SettingError((n) => `${n('from')} 2031-01-01 lies outside the record`).message
+ *   // "from 2031-01-01 lies outside the record"
+ */
+export class SettingError extends TilefluxError {
+  private readonly compose: (name: SettingNamer) => string;
+  constructor(compose: (name: SettingNamer) => string) {
+    super(compose((setting) => setting));
+    this.name = 'SettingError';
+    this.compose = compose;
+  }
+  messageWith(name: SettingNamer): string {
+    return this.compose(name);
+  }
+}
+
 /** Throws a TilefluxError when `condition` is false. */
 export function check(condition: unknown, message: string, where?: string): asserts condition {
   if (!condition) throw new TilefluxError(message, where);

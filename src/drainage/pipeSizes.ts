@@ -106,7 +106,7 @@ export function selectPipeSize(
  *
  * @example pipeSizeList('4,6,8 in') // { name: 'custom', unit: 'in', nominal: [4, 6, 8], ... }
  */
-export function pipeSizeList(spec: string, option = '--sizes'): PipeSizeList {
+export function pipeSizeList(spec: string, option = 'sizes'): PipeSizeList {
   const text = spec.trim();
   if (text === 'in') return INCH_SIZES;
   if (text === 'mm') return METRIC_SIZES;

@@ -9,19 +9,14 @@
  * changes validated by the field schema, the scenario names, and that the weather file exists.
  * The weather file's content is read only when the job runs.
  */
+import { readTextFile } from './files.js';
 import { createHash } from 'node:crypto';
 import { statSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { clip, TilefluxError } from '../errors.js';
 import { scenariosOf } from '../scenarios/run.js';
-import {
-  fieldKeyProblem,
-  readFieldFile,
-  readTextFile,
-  type FieldOverride,
-  type LoadedField,
-} from './field.js';
+import { fieldKeyProblem, readFieldFile, type FieldOverride, type LoadedField } from './field.js';
 import { CsvRows, CsvSyntaxError } from './weather/csvRows.js';
 
 /** The manifest's own columns; any other column names a field-file key. */
@@ -69,7 +64,7 @@ function cellAt(file: string, line: number, column: number, name: string): strin
  * 0.05, [corn, soybean]); an empty cell leaves the field file's value.
  */
 export function readManifest(path: string): Manifest {
-  const text = readTextFile(path);
+  const text = readTextFile(path, 'manifest');
   const file = path;
   const dir = dirname(resolve(path));
   const rows = new CsvRows(text);

@@ -7,6 +7,7 @@
  * the same schema, so a scenario cannot slip past a check the base must pass.
  */
 import { readFileSync } from 'node:fs';
+import { readTextFile } from './files.js';
 import { dirname, resolve } from 'node:path';
 import { LineCounter, parseDocument, isMap, isScalar, type Document } from 'yaml';
 import type { z } from 'zod';
@@ -523,22 +524,9 @@ function scenarioLabel(name: unknown, i: number): string {
   return typeof name === 'string' && name !== '' ? `"${clip(name, 40)}"` : `number ${i + 1}`;
 }
 
-/** A text file's content; a file that cannot be read is a user error naming it and why. */
-export function readTextFile(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (err) {
-    const code = (err as NodeJS.ErrnoException).code;
-    throw new TilefluxError(
-      code === 'ENOENT' ? 'file not found' : `cannot read the file (${code ?? String(err)})`,
-      path,
-    );
-  }
-}
-
 /** Read and validate a field file from disk, with changes to its base given outside it. */
 export function readFieldFile(path: string, overrides: readonly FieldOverride[] = []): LoadedField {
-  const text = readTextFile(path);
+  const text = readTextFile(path, 'field file');
   const loaded = parseField(text, path, overrides);
   // A rating given by observations is fitted now, from a file named relative to the field file.
   const fields = [loaded.base, ...loaded.scenarios.map((s) => s.field)];

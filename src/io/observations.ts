@@ -13,7 +13,7 @@
  * Conversions are exact definitions: 1 in = 25.4 mm; 1 ft = 0.3048 m; 1 US gal = 3.785411784 L;
  * 1 ft3 = 0.028316846592 m3; a flow Q (m3/s) over an area A (m2) is Q x 86400 / A x 1000 mm/d.
  */
-import { readFileSync } from 'node:fs';
+import { readTextFile } from './files.js';
 import { CsvError, parse } from 'csv-parse/sync';
 import { dayNumber, isoDate } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
@@ -358,14 +358,6 @@ export function readObservationsFile(
   path: string,
   o: ObservationReadOptions = {},
 ): ObservationSeries {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (err) {
-    const code = (err as NodeJS.ErrnoException).code;
-    throw new TilefluxError(
-      `cannot read observation file ${path}: ${code === 'ENOENT' ? 'no such file' : String(code ?? err)}`,
-    );
-  }
+  const text = readTextFile(path, 'observation file');
   return parseObservationsCsv(text, { ...o, file: o.file ?? path });
 }

@@ -13,7 +13,8 @@ import { designSystem, type SystemSettings } from '../drainage/systemDesign.js';
 import { systemSchema, type SystemFile } from '../drainage/systemSchema.js';
 import { buildSystemTree, type SystemTree } from '../drainage/systemTree.js';
 import { US } from '../units/quantity.js';
-import { locate, locatedIssue, readTextFile, readYamlMapping, type Path } from './field.js';
+import { locate, locatedIssue, readYamlMapping, type Path } from './field.js';
+import { readTextFile } from './files.js';
 
 /** A read system: the validated file, its checked tree and the design settings. */
 export interface LoadedSystem {
@@ -86,7 +87,7 @@ export function parseSystem(text: string, file = 'system file'): LoadedSystem {
 
 /** Read, validate and check a system file from disk. */
 export function readSystemFile(path: string): LoadedSystem {
-  return parseSystem(readTextFile(path), path);
+  return parseSystem(readTextFile(path, 'drain plan'), path);
 }
 
 type CsvRecord = { record: string[]; info: { lines: number } };
@@ -190,7 +191,7 @@ export function parseProfile(text: string, file = 'profile'): Map<string, Ground
 
 /** Read ground profiles from a CSV file. */
 export function readProfileFile(path: string): Map<string, GroundProfile> {
-  return parseProfile(readTextFile(path), path);
+  return parseProfile(readTextFile(path, 'profile'), path);
 }
 
 /**

@@ -3,7 +3,6 @@
  * annual and summary tables, and one job's rows. Pure: the manifest, the weather files and the
  * Parquet files are read and written in `io/`.
  */
-import { TilefluxError } from '../errors.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { BAND_COLUMNS, COMPARISON_COLUMNS } from './compare.js';
 import { comparisonOf } from './runComparison.js';
@@ -20,67 +19,6 @@ export interface Shard {
 /** The file-name tag of a shard: `0of4`. */
 export function shardTag(s: Shard): string {
   return `${s.index}of${s.count}`;
-}
-
-/** Environment variables that give a shard's index, in the order they are looked at. */
-export const SHARD_INDEX_VARIABLES = ['JOB_COMPLETION_INDEX', 'SLURM_ARRAY_TASK_ID'] as const;
-
-const WHOLE = /^(0|[1-9]\d{0,5})$/;
-
-/**
- * The shard to run, from `--shard K/N`, else the index from the environment
- * (JOB_COMPLETION_INDEX of a Kubernetes Indexed Job, SLURM_ARRAY_TASK_ID of a Slurm array) with
- * the count from `--shards N`; without either, the whole manifest as shard 0/1.
- *
- * @example shardOf({ shards: '4' }, { JOB_COMPLETION_INDEX: '2' }) // { index: 2, count: 4 }
- */
-export function shardOf(
-  o: { shard?: string; shards?: string },
-  env: Readonly<Record<string, string | undefined>>,
-): Shard {
-  let count: number | undefined;
-  if (o.shards !== undefined) {
-    if (!WHOLE.test(o.shards) || Number(o.shards) < 1)
-      throw new TilefluxError(
-        `--shards expects a whole number of shards, 1 or more; got ${o.shards}`,
-      );
-    count = Number(o.shards);
-  }
-  if (o.shard !== undefined) {
-    const m = /^(\d+)\/(\d+)$/.exec(o.shard.trim());
-    if (!m || !WHOLE.test(m[1]) || !WHOLE.test(m[2]) || Number(m[2]) < 1)
-      throw new TilefluxError(`--shard expects K/N with 0 <= K < N, e.g. 0/4; got ${o.shard}`);
-    const s = { index: Number(m[1]), count: Number(m[2]) };
-    if (s.index >= s.count)
-      throw new TilefluxError(
-        `--shard ${o.shard}: K must be below N (shards are numbered 0 to ${s.count - 1})`,
-      );
-    if (count !== undefined && count !== s.count)
-      throw new TilefluxError(`--shard ${o.shard} and --shards ${o.shards} disagree on the count`);
-    return s;
-  }
-  const name = SHARD_INDEX_VARIABLES.find((v) => (env[v] ?? '').trim() !== '');
-  if (name === undefined) {
-    if (count !== undefined && count > 1)
-      throw new TilefluxError(
-        `--shards ${count} needs the shard's index: --shard K/${count}, or ${SHARD_INDEX_VARIABLES.join(' or ')} in the environment`,
-      );
-    return { index: 0, count: 1 };
-  }
-  const value = env[name]!.trim();
-  if (count === undefined)
-    throw new TilefluxError(
-      `${name}=${value} is set but --shards is not; give --shards N (the number of shards) or --shard K/N`,
-    );
-  if (!WHOLE.test(value))
-    throw new TilefluxError(`${name} expects a whole number from 0 to ${count - 1}; got ${value}`);
-  const index = Number(value);
-  if (index >= count)
-    throw new TilefluxError(
-      `${name}=${index} is not below --shards ${count}; shards are numbered 0 to ${count - 1}` +
-        (name === 'SLURM_ARRAY_TASK_ID' ? ` (sbatch --array=0-${count - 1})` : ''),
-    );
-  return { index, count };
 }
 
 /**

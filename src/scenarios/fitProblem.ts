@@ -6,7 +6,7 @@
  */
 import { dayNumber, dayNumberOf, isoDate } from '../climate/calendar.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
-import { TilefluxError } from '../errors.js';
+import { SettingError, TilefluxError } from '../errors.js';
 import type { FitObjective, FitProblem } from './fit.js';
 import type { Field } from './fieldSchema.js';
 import { DEFAULT_FIT_PATHS, FIT_PARAMETERS, fieldValue, fitParameter } from './fitParams.js';
@@ -56,12 +56,16 @@ function parametersOf(base: Field, paths: string[]): Array<[number, number]> {
   const seen = new Set<string>();
   return paths.map((path) => {
     const p = fitParameter(path);
-    if (!p) throw new TilefluxError(`--params: unknown parameter "${path}"; accepted: ${accepted}`);
-    if (seen.has(path)) throw new TilefluxError(`--params names ${path} twice`);
+    if (!p)
+      throw new SettingError(
+        (n) => `${n('params')}: unknown parameter "${path}"; accepted: ${accepted}`,
+      );
+    if (seen.has(path)) throw new SettingError((n) => `${n('params')} names ${path} twice`);
     seen.add(path);
     if (fieldValue(base, path) === undefined) {
-      throw new TilefluxError(
-        `--params: ${path} is given as layers in the field file; fit adjusts a single value, so ` +
+      throw new SettingError(
+        (n) =>
+          `${n('params')}: ${path} is given as layers in the field file; fit adjusts a single value, so ` +
           'give one drainable porosity for the profile or fit other parameters',
       );
     }
@@ -104,15 +108,16 @@ export function buildFitProblem(s: FitSetup): FitProblem {
   const earliest = addYears(wFirst, warmupYears);
   const needWarmup = (period: [string, string], option: string) => {
     if (period[0] < earliest) {
-      throw new TilefluxError(
-        `${option} starts ${period[0]}, but the model first runs ${warmupYears} warm-up ` +
+      throw new SettingError(
+        (n) =>
+          `${n(option)} starts ${period[0]}, but the model first runs ${warmupYears} warm-up ` +
           `year${warmupYears === 1 ? '' : 's'} on the weather from ${wFirst}: start on ${earliest} ` +
-          'or later, give weather from earlier, or use --warmup-years 0',
+          `or later, give weather from earlier, or use ${n('warmupYears')} 0`,
       );
     }
   };
-  if (s.calibrate) needWarmup(s.calibrate, '--calibrate');
-  if (s.validate) needWarmup(s.validate, '--validate');
+  if (s.calibrate) needWarmup(s.calibrate, 'calibrate');
+  if (s.validate) needWarmup(s.validate, 'validate');
   const usableFrom = obs.dates[firstObs] > earliest ? obs.dates[firstObs] : earliest;
   const usableTo = obs.dates[lastObs];
   if (!s.calibrate && usableFrom > usableTo) {

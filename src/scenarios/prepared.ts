@@ -12,7 +12,7 @@
  * const prepared = prepareField(field.base, weather);
  * for (const spec of specs) runDesign(prepared, spec).annual; // one annual table per design
  */
-import { TilefluxError } from '../errors.js';
+import { SettingError, TilefluxError } from '../errors.js';
 import { dayIndexOf, type DayIndex } from '../climate/calendar.js';
 import { referenceEt, type EtMethod } from '../climate/referenceEt.js';
 import { snowModel } from '../climate/snow.js';
@@ -89,11 +89,14 @@ export function reportPeriod(
     to = last;
   }
   if (from < first || from > last) {
-    throw new TilefluxError(`--from ${from} lies outside the weather record (${first} to ${last})`);
+    throw new SettingError(
+      (n) => `${n('from')} ${from} lies outside the weather record (${first} to ${last})`,
+    );
   }
   if (to < from || to > last) {
-    throw new TilefluxError(
-      `--to ${to} must lie between --from ${from} and the record's last day ${last}`,
+    throw new SettingError(
+      (n) =>
+        `${n('to')} ${to} must lie between ${n('from')} ${from} and the record's last day ${last}`,
     );
   }
   return { from, to, warmupYears };

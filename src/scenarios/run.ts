@@ -4,7 +4,7 @@
  * the annual table. Pure: the caller reads files and writes outputs.
  */
 import type { UnitSystem } from '../units/quantity.js';
-import { TilefluxError } from '../errors.js';
+import { SettingError } from '../errors.js';
 import type { EtMethod } from '../climate/referenceEt.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { simulate } from '../engine/simulate.js';
@@ -188,8 +188,9 @@ export function runField(
   if (o.only && o.only.length) {
     for (const name of o.only) {
       if (!specs.some((s) => s.name === name)) {
-        throw new TilefluxError(
-          `--scenario ${name} is not defined; the field has ${specs.map((s) => s.name).join(', ')}`,
+        throw new SettingError(
+          (n) =>
+            `${n('only')} ${name} is not defined; the field has ${specs.map((s) => s.name).join(', ')}`,
         );
       }
     }

@@ -19,7 +19,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CLI, ensureBuilt, FIELD, tileflux, WEATHER } from './cli.js';
-import { action, cleanStale, writeDirAtomic, RUN_MARKER } from '../../src/cli/common.js';
+import { action } from '../../src/cli/common.js';
+import { cleanStale, writeDirAtomic, RUN_MARKER } from '../../src/io/atomicOutput.js';
 
 const QUICK = ['--no-charts', '--no-report'];
 let dir: string;
@@ -228,7 +229,7 @@ describe('interrupted runs', () => {
     expect(readdirSync(parent)).toEqual([]);
   });
 
-  // The replace sequence is documented at writeDirAtomic (src/cli/common.ts). A SIGKILL after
+  // The replace sequence is documented at writeDirAtomic (src/io/atomicOutput.ts). A SIGKILL after
   // each of its steps must leave under the name either the old complete folder or the new one;
   // after the two renames' gap ('old-moved') the old one is complete beside it and the next run
   // to the folder puts it back. Either way the next run leaves no temporaries behind.

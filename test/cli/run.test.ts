@@ -106,7 +106,11 @@ describe('tileflux run', () => {
   });
 
   const bad: Array<[string, string[], RegExp]> = [
-    ['missing field file', ['nope.yaml', '--weather', WEATHER], /nope\.yaml: file not found/],
+    [
+      'missing field file',
+      ['nope.yaml', '--weather', WEATHER],
+      /cannot read field file nope\.yaml: no such file or folder/,
+    ],
     [
       'bad date',
       [FIELD, '--weather', WEATHER, '--from', '2001/01/01'],

@@ -24,7 +24,7 @@ describe('tileflux system on the demo plan', () => {
   }, 120_000);
 
   it('writes the tables, a profile chart per main (spec, SVG, PNG), the report and system.json', () => {
-    // Dot files are the output folder's own marker (cli/common.ts writeDirAtomic).
+    // Dot files are the output folder's own marker (io/atomicOutput.ts writeDirAtomic).
     expect(
       readdirSync(out)
         .filter((f) => !f.startsWith('.'))

@@ -313,7 +313,7 @@ describe('pipe size lists', () => {
   });
   it('refuses empty entries, zero, non-increasing lists and words', () => {
     const accepted =
-      '--sizes accepts in, mm or a comma-separated list of diameters such as "4,6,8 in" or "100,150 mm"';
+      'sizes accepts in, mm or a comma-separated list of diameters such as "4,6,8 in" or "100,150 mm"';
     refuses(() => pipeSizeList('100,,200'), `${accepted}; got "100,,200"`);
     refuses(() => pipeSizeList('100, ,200'), `${accepted}; got "100, ,200"`);
     refuses(() => pipeSizeList('0,100'), `${accepted}; "0" is not a positive diameter`);

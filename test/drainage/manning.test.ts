@@ -88,8 +88,8 @@ describe('commercial sizes', () => {
     expect(pipeSizeList('100, 150, 200').unit).toBe('mm');
     expect(pipeSizeList('0.1 m, 0.2 m').nominal).toEqual([100, 200]);
     expect(() => pipeSizeList('8,6 in')).toThrowError(/increasing order/);
-    expect(() => pipeSizeList('4,,6')).toThrowError(/--sizes accepts/);
-    expect(() => pipeSizeList('4 kg')).toThrowError(/--sizes accepts/);
+    expect(() => pipeSizeList('4,,6')).toThrowError(/sizes accepts/);
+    expect(() => pipeSizeList('4 kg')).toThrowError(/sizes accepts/);
   });
 });
 

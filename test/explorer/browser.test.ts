@@ -93,7 +93,7 @@ describe('explorer page in a browser', () => {
     );
     expect(bad.status).toBe(1);
     expect(bad.stderr.trimEnd().split('\n')).toHaveLength(1);
-    expect(bad.stderr).toMatch(/none\.yaml.*file not found/);
+    expect(bad.stderr).toMatch(/cannot read field file .*none\.yaml: no such file or folder/);
   });
 
   it('loads offline with no other request and no console message, and shows the figures of tileflux run', async () => {

@@ -135,7 +135,7 @@ describe('split-sample test', () => {
       }),
     ).toThrow(/overlap; a split-sample test needs separate periods/);
     expect(() => buildFitProblem({ ...base, calibrate: ['2012-03-01', '2013-12-31'] })).toThrow(
-      /--calibrate starts 2012-03-01, but the model first runs 1 warm-up year on the weather from 2012-01-01: start on 2013-01-01 or later/,
+      /calibrate starts 2012-03-01, but the model first runs 1 warm-up year on the weather from 2012-01-01: start on 2013-01-01 or later/,
     );
     expect(() => parsePeriod('2015-01-01..2014-01-01', '--validate')).toThrow(
       /--validate expects FROM..TO/,
@@ -169,7 +169,7 @@ describe('refusals', () => {
   it('unknown and layered parameters, and inverted bounds, are refused', () => {
     const observed = { dates: obs.dates, drainflowMm: obs.drainflowMm };
     expect(() => buildFitProblem({ ...base, observed, paths: ['soil.conductivty'] })).toThrow(
-      /--params: unknown parameter "soil.conductivty"; accepted: soil.conductivity, /,
+      /params: unknown parameter "soil.conductivty"; accepted: soil.conductivity, /,
     );
     const layered = parseField(
       fieldText(1, 0.05, 0, 12).replace(

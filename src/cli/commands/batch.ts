@@ -21,8 +21,10 @@ import { oneLine, readStatus, statusCsv, type JobStatus } from '../../io/batchSt
 import { BatchStore } from '../../io/batchStore.js';
 import type { LoadedField } from '../../io/field.js';
 import { readWeatherFile } from '../../io/weather.js';
-import { shardOf, shardRows, shardTag, type Shard } from '../../scenarios/batch.js';
-import { action, CAUTION, emit, writeFileAtomic } from '../common.js';
+import { shardRows, shardTag, type Shard } from '../../scenarios/batch.js';
+import { shardOf } from '../shard.js';
+import { action, CAUTION, emit } from '../common.js';
+import { writeFileAtomic } from '../../io/atomicOutput.js';
 import { progress } from '../progress.js';
 import {
   addWeatherReadOptions,

@@ -5,8 +5,8 @@
  */
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
-import { action, emit, CAUTION } from '../common.js';
-import { parseUnits, runFromFiles, runReport, writeRunFolder } from './run.js';
+import { action, emit, CAUTION, parseUnits } from '../common.js';
+import { runFromFiles, runReport, writeRunFolder } from './run.js';
 
 /** The bundled demo files, found relative to this module (works from a clone or an install). */
 export const DEMO_FIELD = fileURLToPath(new URL('../../../data-demo/field.yaml', import.meta.url));

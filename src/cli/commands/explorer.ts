@@ -8,8 +8,8 @@ import type { Command } from 'commander';
 import { explorerHtmlOf } from '../../explorer/page.js';
 import { readFieldFile } from '../../io/field.js';
 import { readWeatherFile } from '../../io/weather.js';
-import { action, CAUTION, emit, writeFileAtomic } from '../common.js';
-import { parseUnits } from './run.js';
+import { action, CAUTION, emit, parseUnits } from '../common.js';
+import { writeFileAtomic } from '../../io/atomicOutput.js';
 import {
   addWeatherReadOptions,
   weatherReadOptions,

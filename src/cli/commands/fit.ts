@@ -30,7 +30,8 @@ import { fitColumns, fitDocument, fitSeriesOf, type FitDocument } from '../../re
 import { localRunner, type SearchRunner } from '../../scenarios/optimise.js';
 import { parseQuantity } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { action, emit, fmt, writeDirAtomic, CAUTION } from '../common.js';
+import { action, emit, fmt, CAUTION } from '../common.js';
+import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { poolRunner } from '../fitPool.js';
 import { progress } from '../progress.js';
 import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';

@@ -3,7 +3,8 @@ import type { Command } from 'commander';
 import { z } from 'zod';
 import { fieldSchema } from '../../scenarios/fieldSchema.js';
 import { starterFieldFile } from '../../scenarios/starter.js';
-import { action, writeFileAtomic } from '../common.js';
+import { action } from '../common.js';
+import { writeFileAtomic } from '../../io/atomicOutput.js';
 
 export function registerInit(program: Command): void {
   program

@@ -26,7 +26,8 @@ import { counted } from '../../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../../io/weather.js';
 import { runField, type RunOutput } from '../../scenarios/run.js';
 import type { UnitSystem } from '../../units/quantity.js';
-import { action, emit, fmt, warn, writeDirAtomic, CAUTION } from '../common.js';
+import { action, emit, fmt, warn, CAUTION, parseUnits } from '../common.js';
+import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { explorerHtmlOf } from '../../explorer/page.js';
 import { progress } from '../progress.js';
 import {
@@ -54,12 +55,6 @@ export interface RunCommandOptions extends WeatherReadFlags {
 
 function sha256(path: string): string {
   return createHash('sha256').update(readFileSync(path)).digest('hex');
-}
-
-export function parseUnits(u: string | undefined): UnitSystem {
-  if (u === undefined || u === 'si') return 'si';
-  if (u === 'us') return 'us';
-  throw new TilefluxError(`--units expects si or us; got ${u}`);
 }
 
 /** Validate the options shared by run and demo and run the field. */

@@ -23,8 +23,7 @@ import {
   type PipeMaterial,
 } from '../../drainage/index.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
-import { action, CAUTION, emit, fmt, requiredQuantity, warn } from '../common.js';
-import { parseUnits } from './run.js';
+import { action, CAUTION, emit, fmt, requiredQuantity, warn, parseUnits } from '../common.js';
 import { blocks, echo } from './spacing.js';
 
 /** Full-flow velocity target for the minimum grade when --velocity is not given (1.4 ft/s). */

@@ -17,8 +17,15 @@ import {
   type EquivalentDepthMethod,
 } from '../../drainage/index.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
-import { action, CAUTION, emit, fmt, quantityOption, requiredQuantity } from '../common.js';
-import { parseUnits } from './run.js';
+import {
+  action,
+  CAUTION,
+  emit,
+  fmt,
+  quantityOption,
+  requiredQuantity,
+  parseUnits,
+} from '../common.js';
 
 /** Effective drain radius used when --radius is not given, m. */
 export const DEFAULT_RADIUS_M = 0.1;

@@ -22,7 +22,8 @@ import {
   type SweepResult,
 } from '../../scenarios/sweep.js';
 import { VERSION } from '../../version.js';
-import { action, CAUTION, emit, writeDirAtomic } from '../common.js';
+import { action, CAUTION, emit } from '../common.js';
+import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { progress } from '../progress.js';
 import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';
 

@@ -16,8 +16,8 @@ import { profileChartSpecs } from '../../report/systemCharts.js';
 import { buildSystemReportHtml } from '../../report/systemHtml.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { action, CAUTION, emit, fmt, writeDirAtomic } from '../common.js';
-import { parseUnits } from './run.js';
+import { action, CAUTION, emit, fmt, parseUnits } from '../common.js';
+import { writeDirAtomic } from '../../io/atomicOutput.js';
 
 interface SystemFlags {
   profile?: string;

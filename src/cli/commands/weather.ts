@@ -39,8 +39,8 @@ import {
   type WeatherReadFlags,
 } from '../weatherOptions.js';
 import { describeChange, monthlyChange } from '../climateOptions.js';
-import { action, emit, fmt, quantityOption, writeFileAtomic } from '../common.js';
-import { parseUnits } from './run.js';
+import { action, emit, fmt, quantityOption, parseUnits } from '../common.js';
+import { writeFileAtomic } from '../../io/atomicOutput.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
