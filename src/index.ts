@@ -7,6 +7,7 @@ export * from './io/weather.js';
 export * from './io/field.js';
 export * from './io/tables.js';
 export * from './io/runFolder.js';
+export { writeRunFolder } from './report/writeRun.js';
 export { sweepParallel, type ParallelOptions } from './io/sweepPool.js';
 export {
   buildSweepChartSpecs,

@@ -6,7 +6,7 @@
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import { action, emit, CAUTION, parseUnits } from '../common.js';
-import { runFromFiles, runReport, writeRunFolder } from './run.js';
+import { runFromFiles, runReport, writeRunFolderOf } from '../runShared.js';
 
 /** The bundled demo files, found relative to this module (works from a clone or an install). */
 export const DEMO_FIELD = fileURLToPath(new URL('../../../data-demo/field.yaml', import.meta.url));
@@ -43,7 +43,7 @@ export function registerDemo(program: Command): void {
           weather: DEMO_WEATHER,
           units: o.units,
         });
-        const { summary, written, comparison } = await writeRunFolder(run, meta, o.out, units, {
+        const { summary, written, comparison } = await writeRunFolderOf(run, meta, o.out, units, {
           force: o.force,
           explorerHtml: () => explorerHtml(units),
         });

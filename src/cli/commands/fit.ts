@@ -34,7 +34,11 @@ import { action, emit, fmt, CAUTION } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { poolRunner } from '../fitPool.js';
 import { progress } from '../progress.js';
-import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';
+import {
+  addWeatherReadOptions,
+  weatherReadOptions,
+  type WeatherReadFlags,
+} from '../weatherOptions.js';
 
 export interface FitCommandOptions extends WeatherReadFlags {
   weather: string;

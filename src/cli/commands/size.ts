@@ -24,7 +24,7 @@ import {
 } from '../../drainage/index.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
 import { action, CAUTION, emit, fmt, requiredQuantity, warn, parseUnits } from '../common.js';
-import { blocks, echo } from './spacing.js';
+import { blocks, echo } from '../echo.js';
 
 /** Full-flow velocity target for the minimum grade when --velocity is not given (1.4 ft/s). */
 export const DEFAULT_VELOCITY_MS = SEDIMENT_VELOCITY_MS;

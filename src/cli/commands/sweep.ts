@@ -25,7 +25,11 @@ import { VERSION } from '../../version.js';
 import { action, CAUTION, emit } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { progress } from '../progress.js';
-import { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags } from './weather.js';
+import {
+  addWeatherReadOptions,
+  weatherReadOptions,
+  type WeatherReadFlags,
+} from '../weatherOptions.js';
 
 interface SweepCommandOptions extends WeatherReadFlags {
   weather: string;

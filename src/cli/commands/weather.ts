@@ -2,7 +2,7 @@
  * `tileflux weather check` and `tileflux weather make`: check a daily weather CSV and summarise
  * it, or write a synthetic record from the Richardson (1981) weather generator.
  *
- * The reading options live in cli/weatherOptions.ts (re-exported here for older imports) so
+ * The reading options live in cli/weatherOptions.ts so
  * that every command reading weather offers the same ones.
  */
 import { basename } from 'node:path';
@@ -45,8 +45,6 @@ import { US, type UnitSystem } from '../../units/quantity.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
 export const DEFAULT_LATITUDE_DEG = 42;
-
-export { addWeatherReadOptions, weatherReadOptions, type WeatherReadFlags };
 
 /** --latitude in degrees (default DEFAULT_LATITUDE_DEG), checked to lie in -90..90. */
 function latitudeOption(value: string | undefined): { latitudeDeg: number; assumed: boolean } {
