@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  SEEPAGE_BAND,
   SEEPAGE_SETTINGS,
   lateralSeepageMmPerDay,
   seepageParamsOf,
@@ -49,15 +50,20 @@ describe('seepage paths', () => {
     const seepage = seepageParamsOf(SEEPAGE_SETTINGS.high, 1);
     const p = params({ spacingM: 400, seepage, initialWaterTableDepthM: 0.5 });
     const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
-    const expected =
-      verticalSeepageMmPerDay(0.5, p.barrierDepthM, seepage) +
-      lateralSeepageMmPerDay(0.5, p.barrierDepthM, seepage);
-    expect(Math.abs(r.seepageMm[0] / expected - 1)).toBeLessThan(0.02);
-    expect(r.lateralSeepageMm[0]).toBeGreaterThan(0);
-    expect(r.lateralSeepageMm[0]).toBeLessThan(r.seepageMm[0]);
-    let err = 0;
-    for (let i = 0; i < n; i++) err += Math.abs(r.balanceErrorMm[i]);
-    expect(err).toBeLessThan(1e-6);
+    const vertical = verticalSeepageMmPerDay(0.5, p.barrierDepthM, seepage);
+    const lateral = lateralSeepageMmPerDay(0.5, p.barrierDepthM, seepage);
+    // The rates fall as the table does over the day (and a little drain flow runs): achieved
+    // 6.5e-4 relative on the total; 2e-3 allowed. The lateral share to the same.
+    expect(Math.abs(r.seepageMm[0] / (vertical + lateral) - 1)).toBeLessThan(2e-3);
+    expect(Math.abs(r.lateralSeepageMm[0] / lateral - 1)).toBeLessThan(2e-3);
+    // Balance from the states (the engine's own residual column cannot show a leak it throws
+    // on): no rain, no ET, so seepage + drain flow = 50 mm per m of water-table fall (uniform
+    // drainable porosity 0.05). Achieved ~1e-14 mm a day; 1e-9 allowed.
+    for (let i = 0; i < n; i++) {
+      const before = i === 0 ? 0.5 : r.waterTableDepthM[i - 1];
+      const fall = 50 * (r.waterTableDepthM[i] - before);
+      expect(Math.abs(r.seepageMm[i] + r.drainflowMm[i] - fall)).toBeLessThan(1e-9);
+    }
     // The water table falls under seepage alone.
     expect(r.waterTableDepthM[n - 1]).toBeGreaterThan(0.5);
   });
@@ -68,5 +74,71 @@ describe('seepage paths', () => {
       lateralSeepageMmPerDay(1, 2.2, seepageParamsOf(SEEPAGE_SETTINGS[b], 0.9));
     expect(at('low')).toBeLessThan(at('medium'));
     expect(at('medium')).toBeLessThan(at('high'));
+  });
+});
+
+describe('seepage settings and their parameters', () => {
+  it('the three settings: till conductivity half a decade apart, regional head 3 m down', () => {
+    // Clay-loam till K' of about 1e-9 to 1e-7 m/s (Freeze & Cherry 1979, Table 2.2; from
+    // memory) over b' = 5 m: leakance K' x 86400 / 5 in 1/d.
+    const leak = (kMPerS: number) => (kMPerS * 86400) / 5;
+    const cases: [keyof typeof SEEPAGE_SETTINGS, number, number][] = [
+      ['low', 3e-9, 400],
+      ['medium', 1e-8, 200],
+      ['high', 3e-8, 100],
+    ];
+    for (const [name, k, x] of cases) {
+      const s = SEEPAGE_SETTINGS[name];
+      expect(s.vertical!.conductance).toBeCloseTo(leak(k), 15);
+      expect(s.vertical!.to).toBe(3);
+      expect(s.lateral).toEqual({ distance: x, level: 1.5 });
+    }
+    expect(SEEPAGE_SETTINGS.none).toEqual({});
+    expect([...SEEPAGE_BAND]).toEqual(['low', 'medium', 'high']);
+  });
+
+  it('parameters of a setting: the soil conductivity laterally unless given; none = no paths', () => {
+    expect(seepageParamsOf({}, 0.9)).toEqual({
+      leakancePerDay: 0,
+      regionalHeadDepthM: 0,
+      lateralKMPerDay: 0,
+      edgeDistanceM: Infinity,
+      edgeLevelDepthM: 0,
+    });
+    const own = seepageParamsOf({ lateral: { distance: 150, level: 1.2, conductivity: 0.2 } }, 0.9);
+    expect(own.lateralKMPerDay).toBe(0.2);
+    expect(own.edgeDistanceM).toBe(150);
+    expect(own.edgeLevelDepthM).toBe(1.2);
+    expect(seepageParamsOf({ lateral: { distance: 150, level: 1.2 } }, 0.9).lateralKMPerDay).toBe(
+      0.9,
+    );
+    const v = seepageParamsOf({ vertical: { to: 4, conductance: 2e-4 } }, 0.9);
+    expect([v.leakancePerDay, v.regionalHeadDepthM]).toEqual([2e-4, 4]);
+    expect(verticalSeepageMmPerDay(1, 2.2, seepageParamsOf({}, 0.9))).toBe(0);
+    expect(lateralSeepageMmPerDay(1, 2.2, seepageParamsOf({}, 0.9))).toBe(0);
+  });
+
+  it('edge water below the barrier: the Dupuit ellipse with no edge head, q = K H^2 / x^2', () => {
+    const s = seepageParamsOf({ lateral: { distance: 100, level: 3 } }, 0.5);
+    // H = 2.2 - 1.0 = 1.2 m above the barrier, He = 0: q = 0.5 x 1.44 / 100^2 m/d.
+    expect(lateralSeepageMmPerDay(1.0, 2.2, s)).toBeCloseTo(((0.5 * 1.44) / 1e4) * 1000, 12);
+    // The doc example: K 0.9 m/d, 200 m, edge at 1.5 m, table at 0.8 m, barrier 2.2 m.
+    const doc = seepageParamsOf({ lateral: { distance: 200, level: 1.5 } }, 0.9);
+    expect(lateralSeepageMmPerDay(0.8, 2.2, doc)).toBeCloseTo(
+      ((0.9 * (1.4 ** 2 - 0.7 ** 2)) / 200 ** 2) * 1000,
+      12,
+    );
+    expect(lateralSeepageMmPerDay(1.5, 2.2, doc)).toBe(0); // level with the edge water
+  });
+
+  it('vertical leakage stops at the barrier and with the table at the regional head', () => {
+    const s = seepageParamsOf(SEEPAGE_SETTINGS.high, 0.9);
+    expect(verticalSeepageMmPerDay(2.2, 2.2, s)).toBe(0);
+    expect(verticalSeepageMmPerDay(2.19, 2.2, s)).toBeCloseTo(
+      ((3e-8 * 86400) / 5) * (3 - 2.19) * 1000,
+      12,
+    );
+    const deepBarrier = seepageParamsOf(SEEPAGE_SETTINGS.high, 0.9);
+    expect(verticalSeepageMmPerDay(3, 4, deepBarrier)).toBe(0);
   });
 });

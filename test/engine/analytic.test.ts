@@ -1,0 +1,338 @@
+// The engine against closed-form solutions of its own published flux equations, each derived and
+// evaluated here independently of src/: recession of a linear reservoir, the Bernoulli solution of
+// Hooghoudt's quadratic recession, Hooghoudt's steady state above a raised outlet, FAO-56 water
+// stress, capillary supply, infiltration limited by the saturated conductivity, deep seepage.
+import { describe, expect, it } from 'vitest';
+import { simulate } from '../../src/engine/simulate.js';
+import { TilefluxError } from '../../src/errors.js';
+import { constantForcing, flatCalendar, free, params } from './fixtures.js';
+import { moodyDepth, vdmwDepth } from '../drainage/reference.js';
+
+const MU = 0.05; // drainable porosity of the fixture: 50 mm of water per m of water table
+const sum = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
+/** The fixture with no conductivity: no drain flow, so one process can be followed alone. */
+const undrained = (over: Parameters<typeof params>[0]) =>
+  params({ kAboveMPerDay: 0, kBelowMPerDay: 0, ...over });
+
+describe('recession without recharge: closed forms of Hooghoudt drainage', () => {
+  it('linear reservoir (flow below the drains only): h = h0 exp(-8 K2 d t / (mu L^2))', () => {
+    // With no conductivity above the drains Hooghoudt's flux is q = 8 K2 d h / L^2 (Hooghoudt
+    // 1940), so mu dh/dt = -q is a linear reservoir with the exponential recession of the
+    // classic depletion curve. d: van der Molen & Wesseling's equivalent depth (reference.ts).
+    const n = 60;
+    const p = params({ kAboveMPerDay: 0, kBelowMPerDay: 0.8, initialWaterTableDepthM: 0.2 });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    const d = vdmwDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const rate = (8 * p.kBelowMPerDay * d) / (MU * p.spacingM ** 2); // 1/d
+    const h0 = p.drainDepthM - p.initialWaterTableDepthM;
+    let hPrev = h0;
+    for (let i = 0; i < n; i++) {
+      const h = h0 * Math.exp(-rate * (i + 1));
+      // The step is solved exactly: achieved < 1e-14 m on heads from 1 m to 0.1 m (the head
+      // passes through stored water in mm, so rounding is absolute); 1e-12 m allowed.
+      expect(Math.abs(p.drainDepthM - r.waterTableDepthM[i] - h)).toBeLessThan(1e-12);
+      // Outflow is the drained water: mu x fall of the table (mass balance).
+      expect(Math.abs(r.drainflowMm[i] - MU * 1000 * (hPrev - h))).toBeLessThan(1e-9);
+      hPrev = h;
+    }
+    expect(r.equivalentDepthM).toBeCloseTo(d, 12);
+  });
+
+  it('both Hooghoudt terms: h(t) = A h0 e^(-At/mu) / (A + B h0 (1 - e^(-At/mu)))', () => {
+    // mu dh/dt = -(A h + B h^2), A = 8 K2 d / L^2, B = 4 K1 / L^2, is a Bernoulli equation:
+    // 1/h = (1/h0 + B/A) e^(At/mu) - B/A. K1 and K2 differ so that swapping them shows.
+    const n = 40;
+    const p = params({ kAboveMPerDay: 1.5, kBelowMPerDay: 0.4, initialWaterTableDepthM: 0 });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    const L2 = p.spacingM ** 2;
+    const d = vdmwDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const A = (8 * p.kBelowMPerDay * d) / L2;
+    const B = (4 * p.kAboveMPerDay) / L2;
+    const h0 = p.drainDepthM;
+    for (let i = 0; i < n; i++) {
+      const e = Math.exp((-A * (i + 1)) / MU);
+      const h = (A * h0 * e) / (A + B * h0 * (1 - e));
+      // Achieved ~1e-14 relative; 1e-11 allowed. A 5 % change of K1 or K2 moves it by > 1e-3.
+      expect(Math.abs((p.drainDepthM - r.waterTableDepthM[i]) / h - 1)).toBeLessThan(1e-11);
+    }
+  });
+
+  it("Moody's equivalent depth is used when asked for", () => {
+    const n = 20;
+    const p = params({
+      kAboveMPerDay: 0,
+      equivalentDepthMethod: 'moody',
+      initialWaterTableDepthM: 0.2,
+    });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    const d = moodyDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    expect(r.equivalentDepthM).toBeCloseTo(d, 12);
+    const h = (p.drainDepthM - 0.2) * Math.exp((-8 * p.kBelowMPerDay * d * n) / (MU * 400));
+    expect(Math.abs((p.drainDepthM - r.waterTableDepthM[n - 1]) / h - 1)).toBeLessThan(1e-12);
+  });
+});
+
+describe('steady recharge: Hooghoudt above the outlet level', () => {
+  // Hooghoudt (1940): R = (8 K2 d h + 4 K1 h^2) / L^2 with h the head above the outlet level
+  // and d the equivalent depth of the layer between that level and the barrier.
+  const steadyHead = (R: number, L: number, K1: number, K2: number, d: number) => {
+    const a = (4 * K1) / (L * L);
+    const b = (8 * K2 * d) / (L * L);
+    return (-b + Math.sqrt(b * b + 4 * a * R)) / (2 * a);
+  };
+
+  it('unequal conductivities above and below the drains (K1 = 0.3, K2 = 1.2 m/d)', () => {
+    const n = 400;
+    const p = params({ kAboveMPerDay: 0.3, kBelowMPerDay: 1.2, spacingM: 25 });
+    const r = simulate(constantForcing(n, 4, 0), flatCalendar(n, 0), free(n), p);
+    const d = vdmwDepth(25, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const h = steadyHead(0.004, 25, 0.3, 1.2, d);
+    // Settled to rounding after 400 days (achieved ~1e-14 relative); 1e-9 allowed.
+    expect(Math.abs((p.drainDepthM - r.waterTableDepthM[n - 1]) / h - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(r.drainflowMm[n - 1] / 4 - 1)).toBeLessThan(1e-9);
+  });
+
+  it('an outlet held at 0.6 m: the head stands above 0.6 m on a 1.9 m layer', () => {
+    const n = 400;
+    const p = params({ kAboveMPerDay: 0.5, kBelowMPerDay: 0.5 });
+    const outlet = new Float64Array(n).fill(0.6);
+    const r = simulate(constantForcing(n, 2, 0), flatCalendar(n, 0), outlet, p);
+    const d = vdmwDepth(p.spacingM, p.barrierDepthM - 0.6, p.drainRadiusM);
+    const h = steadyHead(0.002, p.spacingM, 0.5, 0.5, d);
+    expect(Math.abs((0.6 - r.waterTableDepthM[n - 1]) / h - 1)).toBeLessThan(1e-9);
+    expect(r.outletDepthM[n - 1]).toBe(0.6);
+    // The equivalent depth reported is the free outlet's (drains at 1.2 m).
+    expect(r.equivalentDepthM).toBeCloseTo(
+      vdmwDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM),
+      12,
+    );
+  });
+});
+
+describe('outlet level of the day', () => {
+  it('free (NaN) and levels at or below the drains mean the drains; above the surface means 0', () => {
+    const n = 4;
+    const outlet = Float64Array.from([NaN, 0.3, 1.5, -0.2]);
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), outlet, params());
+    expect(Array.from(r.outletDepthM)).toEqual([1.2, 0.3, 1.2, 0]);
+  });
+
+  it('rain on a water table below the outlet level fills the profile without drain flow', () => {
+    // Water table at 1.5 m, below the drains: 10 mm of rain fills 10 / 50 = 0.2 m of pores.
+    const n = 1;
+    const p = params({ initialWaterTableDepthM: 1.5 });
+    for (const outlet of [free(n), new Float64Array(n).fill(0.5)]) {
+      const r = simulate(constantForcing(n, 10, 0), flatCalendar(n, 0), outlet, p);
+      expect(r.drainflowMm[0]).toBe(0);
+      expect(r.waterTableDepthM[0]).toBeCloseTo(1.3, 12);
+      expect(r.infiltrationMm[0]).toBeCloseTo(10, 12);
+    }
+  });
+});
+
+describe('crop ET: capillary supply and FAO-56 water stress', () => {
+  it('the water table supplies exp(-(depth below the roots) / decay) of the demand', () => {
+    // No drainage (K = 0), ET = Kc ET0 = 5 mm/d, roots 0.6 m, decay length 0.3 m, one sub-step
+    // on a dry day. A water table within the root zone supplies all of it (it falls by
+    // 5 / 50 = 0.1 m a day); below the roots the share exp(-x / 0.3) (the rest from the roots).
+    const n = 6;
+    const p = undrained({ initialWaterTableDepthM: 0.4 });
+    const r = simulate(constantForcing(n, 0, 5), flatCalendar(n, 1), free(n), p);
+    let wt = 0.4;
+    let depletion = 0;
+    for (let i = 0; i < n; i++) {
+      const below = wt - p.rootZoneDepthM;
+      const share = below <= 0 ? 1 : Math.exp(-below / p.capillaryDecayM);
+      wt += (5 * share) / (MU * 1000);
+      depletion += 5 * (1 - share);
+      expect(r.waterTableDepthM[i]).toBeCloseTo(wt, 12);
+      expect(r.rootZoneDepletionMm[i]).toBeCloseTo(depletion, 12);
+      expect(r.etMm[i]).toBeCloseTo(5, 12);
+      expect(r.potentialEtMm[i]).toBe(5);
+      expect(r.ks[i]).toBe(1);
+      expect(r.soilStorageMm[i]).toBeCloseTo(-(MU * 1000 * wt + depletion), 10);
+    }
+    expect(r.waterTableDepthM[2]).toBeCloseTo(0.7, 12); // 0.4 + 3 x 0.1: all from the table
+  });
+
+  it('root-zone depletion follows FAO-56 Eq. 84: ET at Kc ET0 to RAW, then exponential', () => {
+    // Water table at the barrier (no capillary supply), TAW = (0.30 - 0.14) x 600 mm = 96 mm,
+    // p = 0.5: RAW = 48 mm. ET 4 mm/d until Dr = RAW on day 12; then
+    // dDr/dt = 4 Ks = 4 (TAW - Dr) / ((1 - p) TAW), so TAW - Dr = 48 exp(-(t - 12) / 12).
+    const n = 40;
+    const p = params({ initialWaterTableDepthM: 2.5, substepsPerDay: 800 });
+    const r = simulate(constantForcing(n, 0, 4), flatCalendar(n, 1), free(n), p);
+    for (let i = 0; i < 11; i++) {
+      expect(r.rootZoneDepletionMm[i]).toBeCloseTo(4 * (i + 1), 9);
+      expect(r.ks[i]).toBe(1);
+    }
+    for (const t of [20, 30, 40]) {
+      const dr = 96 - 48 * Math.exp(-(t - 12) / 12);
+      // Explicit steps of 1/100 d on dry days: the Euler error (t - 12) / (2 x 12 x 1200) on
+      // TAW - Dr, achieved 2.8e-4, 6.3e-4 and 9.7e-4 relative at t = 20, 30, 40; 1.2e-3 allowed.
+      expect(Math.abs((96 - r.rootZoneDepletionMm[t - 1]) / (96 - dr) - 1)).toBeLessThan(1.2e-3);
+      // Mean Ks of the day ~ Ks at mid-day (TAW - Dr) / ((1 - p) TAW): achieved 4.5e-4 relative.
+      const ksMid = Math.exp(-(t - 0.5 - 12) / 12);
+      expect(Math.abs(r.ks[t - 1] / ksMid - 1)).toBeLessThan(1e-3);
+      // ET of the day = Kc ET0 Ks: achieved 9.5e-4 mm.
+      expect(Math.abs(r.etMm[t - 1] - 4 * ksMid)).toBeLessThan(2e-3);
+    }
+    expect(r.waterTableDepthM[n - 1]).toBe(2.5);
+  });
+
+  it("the calendar's root depth sets TAW: 0.3 m roots reach RAW = 24 mm on day 6", () => {
+    const n = 10;
+    const cal = { ...flatCalendar(n, 1), rootDepthM: new Float64Array(n).fill(0.3) };
+    const p = params({ initialWaterTableDepthM: 2.5 });
+    const r = simulate(constantForcing(n, 0, 4), cal, free(n), p);
+    for (let i = 0; i < 6; i++) expect(r.ks[i]).toBe(1);
+    expect(r.rootZoneDepletionMm[5]).toBeCloseTo(24, 9);
+    expect(r.ks[6]).toBeLessThan(1);
+    // Euler step of one day from RAW: Dr = 24 + 4 x (48 - 24) / 24 = 28.
+    expect(r.rootZoneDepletionMm[6]).toBeCloseTo(28, 9);
+  });
+
+  it('no available water (field capacity = wilting point): no ET from the roots, Ks = 0', () => {
+    const n = 5;
+    const p = params({ initialWaterTableDepthM: 2.5, fieldCapacity: 0.2, wiltingPoint: 0.2 });
+    const r = simulate(constantForcing(n, 0, 4), flatCalendar(n, 1), free(n), p);
+    expect(Array.from(r.ks)).toEqual([0, 0, 0, 0, 0]);
+    expect(sum(r.etMm)).toBe(0);
+  });
+
+  it('no ET under snow cover, and the snow store closes the balance', () => {
+    // 10 days of 5 mm snowfall (SWE to 50 mm), then 5 days of 10 mm melt; ET0 3 mm/d.
+    const n = 20;
+    const f = constantForcing(n, 0, 3);
+    let swe = 0;
+    for (let i = 0; i < n; i++) {
+      if (i < 10) {
+        f.snowfallMm[i] = 5;
+        f.precipMm[i] = 5;
+        swe += 5;
+      } else if (i < 15) {
+        f.snowmeltMm[i] = 10;
+        swe -= 10;
+      }
+      f.sweMm[i] = swe;
+    }
+    const p = params({ initialWaterTableDepthM: 2.5 });
+    const r = simulate(f, flatCalendar(n, 1), free(n), p);
+    for (let i = 0; i < 14; i++) {
+      expect(r.potentialEtMm[i]).toBe(0);
+      expect(r.etMm[i]).toBe(0);
+    }
+    expect(r.potentialEtMm[14]).toBe(3); // melted out on day 14
+    expect(r.etMm[14]).toBeCloseTo(3, 12);
+    // 50 mm of melt into a profile 2.5 m deep: 1 m of water table rise, no drain flow.
+    expect(r.waterTableDepthM[13]).toBeCloseTo(2.5 - 40 / 50, 12);
+    expect(sum(r.drainflowMm)).toBe(0);
+  });
+});
+
+describe('surface water and seepage', () => {
+  it('infiltration is limited by the saturated conductivity; the excess ponds, then runs off', () => {
+    // K = 0.01 m/d admits 10 mm/d (the long-time infiltration rate of a ponded soil tends to
+    // its saturated conductivity, Green & Ampt 1911). 50 mm/d of rain on a dry profile (water
+    // table at the barrier, 125 mm of pores): 10 mm ponds (the depression storage), the rest
+    // runs off: 30 mm on day 1, 40 mm a day after; the table rises 10 / 50 = 0.2 m a day.
+    const n = 5;
+    const p = params({ kAboveMPerDay: 0.01, kBelowMPerDay: 0.01, initialWaterTableDepthM: 2.5 });
+    const r = simulate(constantForcing(n, 50, 0), flatCalendar(n, 0), free(n), p);
+    for (let i = 0; i < n; i++) {
+      expect(r.infiltrationMm[i]).toBeCloseTo(10, 9);
+      expect(r.runoffMm[i]).toBeCloseTo(i === 0 ? 30 : 40, 9);
+      expect(r.pondedMm[i]).toBeCloseTo(10, 9);
+      expect(r.waterTableDepthM[i]).toBeCloseTo(2.5 - 0.2 * (i + 1), 9);
+      expect(r.drainflowMm[i]).toBe(0);
+    }
+  });
+
+  it('a constant deep seepage lowers the table by rate / porosity per day', () => {
+    const n = 10;
+    const p = undrained({ seepageMmPerDay: 1, initialWaterTableDepthM: 1.5 });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    for (let i = 0; i < n; i++) {
+      expect(r.seepageMm[i]).toBeCloseTo(1, 12);
+      expect(r.waterTableDepthM[i]).toBeCloseTo(1.5 + (i + 1) / 50, 12);
+    }
+    expect(sum(r.lateralSeepageMm)).toBe(0);
+  });
+
+  it('seepage proportional to the head above the barrier decays exponentially', () => {
+    // c = 2 mm/d per m of head H above the barrier: 50 dH/dt = -2 H, H = H0 exp(-0.04 t).
+    const n = 50;
+    const p = undrained({
+      seepageConductanceMmPerDayPerM: 2,
+      initialWaterTableDepthM: 1.5,
+      substepsPerDay: 800,
+    });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    const H = 2.5 - r.waterTableDepthM[n - 1];
+    // Explicit steps of 1/100 d on dry days: the Euler error n c'^2 dt / 2 = 50 x 0.04^2 x 0.01
+    // / 2 = 4.0e-4 relative, achieved 4.0e-4; 5e-4 allowed (5 % on c moves H by 10 %).
+    expect(Math.abs(H / Math.exp(-0.04 * n) - 1)).toBeLessThan(5e-4);
+    expect(sum(r.seepageMm)).toBeCloseTo(50 * (1 - H), 9);
+  });
+
+  it('the top metre is saturated in proportion to the water table above 1 m', () => {
+    const n = 60;
+    const p = params({ kAboveMPerDay: 0, kBelowMPerDay: 0.1, initialWaterTableDepthM: 0 });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    let seen = 0;
+    for (let i = 0; i < n; i++) {
+      const wt = r.waterTableDepthM[i];
+      expect(r.saturatedFraction[i]).toBeCloseTo(Math.min(1, Math.max(0, 1 - wt)), 12);
+      if (wt > 0.2 && wt < 0.9) seen++;
+    }
+    expect(seen).toBeGreaterThan(5);
+    expect(r.waterTableDepthM[n - 1]).toBeGreaterThan(1);
+    expect(r.saturatedFraction[n - 1]).toBe(0);
+    // Saturated to the surface under heavy rain: the whole top metre.
+    const wetP = params({ initialWaterTableDepthM: 0 });
+    const wet = simulate(constantForcing(3, 200, 0), flatCalendar(3, 0), free(3), wetP);
+    expect(wet.waterTableDepthM[2]).toBe(0);
+    expect(wet.saturatedFraction[2]).toBe(1);
+  });
+
+  it('the initial water table is held between the surface and the barrier', () => {
+    const p = (d: number) => undrained({ initialWaterTableDepthM: d });
+    const run = (d: number) =>
+      simulate(constantForcing(1, 0, 0), flatCalendar(1, 0), free(1), p(d));
+    expect(run(-0.5).waterTableDepthM[0]).toBe(0);
+    expect(run(4).waterTableDepthM[0]).toBe(2.5);
+  });
+});
+
+describe('sub-steps and the refusal of layouts a daily engine cannot follow', () => {
+  it('takes more sub-steps than asked when the drains react fast', () => {
+    // Linearised rate at full head: (A + 2 B h) / mu, at most 0.5 of the head per step.
+    const p = params({ kAboveMPerDay: 3, kBelowMPerDay: 3, spacingM: 8 });
+    const r = simulate(constantForcing(2, 0, 0), flatCalendar(2, 0), free(2), p);
+    const d = vdmwDepth(8, 1.3, 0.05);
+    const rate = ((8 * 3 * d) / 64 + (2 * 4 * 3 * 1.2) / 64) / MU;
+    expect(r.substepsPerDay).toBe(Math.max(8, Math.ceil(rate / 0.5)));
+    expect(r.substepsPerDay).toBeGreaterThan(8);
+    expect(
+      simulate(constantForcing(2, 0, 0), flatCalendar(2, 0), free(2), params()).substepsPerDay,
+    ).toBe(8);
+  });
+
+  it('refuses with the numbers when over 20000 sub-steps a day would be needed', () => {
+    const fast = params({
+      kAboveMPerDay: 500,
+      kBelowMPerDay: 400,
+      spacingM: 4,
+      porosity: { depthsM: [2.5], values: [0.01] },
+    });
+    const run = () => simulate(constantForcing(2, 0, 0), flatCalendar(2, 0), free(2), fast);
+    expect(run).toThrow(TilefluxError);
+    expect(run).toThrow(
+      /^the drains react too fast for a daily water balance: \d+ sub-steps a day would be needed \(at most 20000\), from conductivity 500 m\/d above and 400 m\/d below the drains, spacing 4 m and drainable porosity 0\.01; widen the spacing or check the conductivity and porosity$/,
+    );
+    const none = params({ porosity: { depthsM: [2.5], values: [0] } });
+    expect(() => simulate(constantForcing(2, 0, 0), flatCalendar(2, 0), free(2), none)).toThrow(
+      /: unboundedly many sub-steps a day/,
+    );
+  });
+});
