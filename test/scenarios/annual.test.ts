@@ -3,7 +3,12 @@
 // surface-layer water content and count. Every expected figure is worked out by hand in the
 // comments from the definitions in README "Measures"; nothing is taken from the code's output.
 import { describe, expect, it } from 'vitest';
-import { annualRows } from '../../src/scenarios/annual.js';
+import {
+  annualRows,
+  inWindow,
+  isPartialYear,
+  withPartialYear,
+} from '../../src/scenarios/annual.js';
 import { wetnessSchema } from '../../src/scenarios/fieldSchema.js';
 import {
   airFilledPorosity,
@@ -66,14 +71,14 @@ describe('air and water in the top layers', () => {
   });
 });
 
-/** One year of days with every engine series held constant; `set` changes some days. */
+/** Days (one year by default) with every engine series held constant; `set` changes some. */
 function heldYear(
   set: (
     key: string,
     d: { wtd: number; depl: number; inf: number; pond: number; swe: number },
   ) => void,
+  ds = dates('2001-01-01', 365),
 ) {
-  const ds = dates('2001-01-01', 365);
   const n = ds.length;
   const col = () => new Float64Array(n);
   const r = {
@@ -205,5 +210,143 @@ describe('annual crop-condition counts with the water table held at known depths
     )[0];
     expect(loose.spring_fieldwork_days).toBe(45);
     expect(loose.fall_fieldwork_days).toBe(52); // 0.34 is wetter than field capacity
+  });
+});
+
+describe('annual sums, storage change and water table by calendar year', () => {
+  // 2000 (leap, 366 days) and 2001 (365 days) with invented constant daily fluxes: each year's
+  // sum is days x the daily value, by hand. Storage follows the water balance from -200 mm,
+  // storage(i) = -200 + sum over days 0..i of (P - ET - runoff - drain - seepage - residual), so
+  // a year's storage change must equal the sum of that year's daily terms (water balance).
+  const w = wetnessSchema.parse(undefined);
+  const ds = [...dates('2000-01-01', 366), ...dates('2001-01-01', 365)];
+  const at = (iso: string) => ds.indexOf(iso);
+  const { forcing, r, no3 } = heldYear(() => {}, ds);
+  const P = 2;
+  const net = P - 1.5 - 0.1 - 0.3 - 0.05 - 1e-8; // mm/d into storage
+  for (let i = 0; i < ds.length; i++) {
+    forcing.precipMm[i] = P;
+    forcing.refEtMm[i] = 3;
+    forcing.snowmeltMm[i] = ds[i].slice(5, 7) === '01' ? 1 : 0;
+    r.etMm[i] = 1.5;
+    r.runoffMm[i] = 0.1;
+    r.drainflowMm[i] = 0.3;
+    r.seepageMm[i] = 0.05;
+    r.balanceErrorMm[i] = 1e-8;
+    r.soilStorageMm[i] = -200 + net * (i + 1);
+    no3.loadKgHa[i] = 0.01;
+    no3.runoffLoadKgHa[i] = 0.001;
+    no3.seepageLoadKgHa[i] = 0.002;
+  }
+  // Part of the storage sits in a pond and in snow on some days: the total is what counts.
+  for (const [iso, pond, swe] of [
+    ['2000-12-31', 3, 0],
+    ['2001-02-10', 0, 7],
+    ['2001-12-31', 2, 5],
+  ] as const) {
+    const i = at(iso);
+    r.pondedMm[i] = pond;
+    forcing.sweMm[i] = swe;
+    r.soilStorageMm[i] -= pond + swe;
+  }
+  r.waterTableDepthM[at('2001-12-20')] = 0.2;
+  r.ks[at('2001-01-15')] = 0.5; // outside the growing season (1 May - 30 Sep)
+  for (let d = 1; d <= 10; d++) r.ks[at(`2001-06-${String(d).padStart(2, '0')}`)] = 0.5;
+  r.ks[at('2001-07-01')] = 1 - 1e-10; // rounding short of 1 is no stress
+  const pool = { balanceErrorKgHa: new Float64Array(ds.length).fill(1e-10) };
+  const rows = annualRows(
+    's',
+    forcing,
+    r,
+    { ...no3, pool } as NitrateResult,
+    w,
+    soil,
+    0,
+    ds.length,
+  );
+
+  it('sums each flux over the days of its calendar year', () => {
+    expect(rows.map((x) => [x.year, x.days])).toEqual([
+      [2000, 366],
+      [2001, 365],
+    ]);
+    for (const [x, n] of [
+      [rows[0], 366],
+      [rows[1], 365],
+    ] as const) {
+      expect(x.scenario).toBe('s');
+      expect(x.precip_mm).toBeCloseTo(2 * n, 9);
+      expect(x.ref_et_mm).toBeCloseTo(3 * n, 9);
+      expect(x.snowmelt_mm).toBeCloseTo(31, 9);
+      expect(x.et_mm).toBeCloseTo(1.5 * n, 9);
+      expect(x.runoff_mm).toBeCloseTo(0.1 * n, 9);
+      expect(x.drainflow_mm).toBeCloseTo(0.3 * n, 9);
+      expect(x.seepage_mm).toBeCloseTo(0.05 * n, 9);
+      expect(x.balance_error_mm).toBeCloseTo(1e-8 * n, 15);
+      expect(x.no3n_load_kg_ha).toBeCloseTo(0.01 * n, 12);
+      expect(x.runoff_n_kg_ha).toBeCloseTo(0.001 * n, 12);
+      expect(x.seepage_n_kg_ha).toBeCloseTo(0.002 * n, 12);
+      expect(x.n_balance_error_kg_ha).toBeCloseTo(1e-10 * n, 18);
+      // Flow-weighted mean: 100 x load / flow = 100 x 0.01 / 0.3 (load = flow x C / 100).
+      expect(x.fwmc_mg_l).toBeCloseTo(100 / 30, 12);
+      // The storage change is the year's net inflow (water balance), pond and snow included.
+      expect(x.storage_change_mm).toBeCloseTo(net * n, 9);
+    }
+  });
+
+  it('mean and shallowest water table of each year; stress days only in the season', () => {
+    expect(rows[0].wt_mean_depth_m).toBeCloseTo(1, 12);
+    expect(rows[0].wt_shallowest_depth_m).toBe(1);
+    expect(rows[1].wt_mean_depth_m).toBeCloseTo((364 + 0.2) / 365, 12);
+    expect(rows[1].wt_shallowest_depth_m).toBe(0.2);
+    expect(rows[0].stress_days).toBe(0);
+    expect(rows[1].stress_days).toBe(10);
+  });
+
+  it('a reported period that starts and ends inside years: storage from the day before', () => {
+    const [a, b] = annualRows('s', forcing, r, no3, w, soil, 100, 500);
+    expect([a.year, a.days, b.year, b.days]).toEqual([2000, 266, 2001, 134]);
+    expect(a.storage_change_mm).toBeCloseTo(net * 266, 9);
+    expect(b.storage_change_mm).toBeCloseTo(net * 134, 9);
+    expect(a.precip_mm).toBeCloseTo(2 * 266, 9);
+    expect(a.n_balance_error_kg_ha).toBe(0); // concentration models: no pool balance
+  });
+
+  it('a growing season that wraps the new year counts its days on both sides', () => {
+    const winter = { ...w, growingSeason: { from: '12-01', to: '01-31' }, threshold: 0.3 };
+    const wet = heldYear((key, d) => {
+      if (key === '12-20' || key === '01-10' || key === '03-01') d.wtd = 0.2;
+    });
+    const [row] = annualRows('w', wet.forcing, wet.r, wet.no3, winter, soil, 0, 365);
+    expect(row.wet_days).toBe(2); // 10 Jan and 20 Dec, not 1 Mar
+  });
+
+  it('window test and part years (Gregorian leap years)', () => {
+    const summer = { from: '05-01', to: '09-30' };
+    const winter = { from: '11-01', to: '02-28' };
+    expect(['04-30', '05-01', '09-30', '10-01'].map((k) => inWindow(k, summer))).toEqual([
+      false,
+      true,
+      true,
+      false,
+    ]);
+    expect(
+      ['10-31', '11-01', '12-31', '01-01', '02-28', '03-01'].map((k) => inWindow(k, winter)),
+    ).toEqual([false, true, true, true, true, false]);
+    expect(isPartialYear(2000, 366)).toBe(false);
+    expect(isPartialYear(2000, 365)).toBe(true);
+    expect(isPartialYear(2001, 365)).toBe(false);
+    expect(isPartialYear(1900, 365)).toBe(false);
+    expect(isPartialYear(2001, 364)).toBe(true);
+    const marked = withPartialYear(rows[0]);
+    expect(Object.keys(marked).slice(0, 5)).toEqual([
+      'scenario',
+      'year',
+      'days',
+      'partial_year',
+      'drainflow_mm',
+    ]);
+    expect(marked.partial_year).toBe('no');
+    expect(withPartialYear({ ...rows[1], days: 300 }).partial_year).toBe('yes');
   });
 });
