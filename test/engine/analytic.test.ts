@@ -6,7 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { simulate } from '../../src/engine/simulate.js';
 import { TilefluxError } from '../../src/errors.js';
 import { constantForcing, flatCalendar, free, params } from './fixtures.js';
-import { moodyDepth, vdmwDepth } from '../drainage/reference.js';
+import { kirkhamGeometryFactor } from '../../src/drainage/kirkham.js';
+import { hooghoudtQ, moodyDepth, vdmwDepth } from '../drainage/reference.js';
 
 const MU = 0.05; // drainable porosity of the fixture: 50 mm of water per m of water table
 const sum = (a: Float64Array) => a.reduce((s, x) => s + x, 0);
@@ -106,6 +107,57 @@ describe('steady recharge: Hooghoudt above the outlet level', () => {
       vdmwDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM),
       12,
     );
+  });
+});
+
+describe('ponded and saturated with a free outlet', () => {
+  // Saturated to the surface under a pond, the drains run at the larger of Hooghoudt's rate at
+  // the full head (h = drain depth) and Kirkham's (1957) ponded rate
+  // q = 4 pi K (t + b - r) / (g L), t the pond depth (10 mm of depression storage plus at most
+  // one sub-step of rain), b the drain depth, r the radius.
+  const K = 0.5;
+  const run = (L: number, rainMm: number) => {
+    const p = params({
+      spacingM: L,
+      kAboveMPerDay: K,
+      kBelowMPerDay: K,
+      initialWaterTableDepthM: 0,
+    });
+    return { p, r: simulate(constantForcing(6, rainMm, 0), flatCalendar(6, 0), free(6), p) };
+  };
+
+  it("close drains (L = 5 m): Hooghoudt's rate at full head, every day", () => {
+    const { p, r } = run(5, 300);
+    const d = vdmwDepth(5, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const q = hooghoudtQ(K, K, d, p.drainDepthM, 5) * 1000;
+    for (let i = 0; i < 6; i++) {
+      // Achieved ~1e-15 relative; 1e-9 allowed.
+      expect(Math.abs(r.drainflowMm[i] / q - 1)).toBeLessThan(1e-9);
+      expect(r.waterTableDepthM[i]).toBe(0);
+      expect(r.pondedMm[i]).toBe(p.surfaceStorageMm);
+    }
+  });
+
+  it("wider drains (L = 20 m): Kirkham's ponded rate, above Hooghoudt's", () => {
+    const { p, r } = run(20, 100);
+    const g = kirkhamGeometryFactor({
+      drainDepthM: p.drainDepthM,
+      layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
+      drainRadiusM: p.drainRadiusM,
+      spacingM: 20,
+    });
+    const q = (t: number) =>
+      ((4 * Math.PI * K * (t + p.drainDepthM - p.drainRadiusM)) / (g * 20)) * 1000;
+    const lo = q(p.surfaceStorageMm / 1000);
+    const hi = q((p.surfaceStorageMm + 100 / r.substepsPerDay) / 1000);
+    const d = vdmwDepth(20, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    expect(lo).toBeGreaterThan(hooghoudtQ(K, K, d, p.drainDepthM, 20) * 1000);
+    for (let i = 1; i < 6; i++) {
+      expect(r.drainflowMm[i]).toBeGreaterThanOrEqual(lo - 1e-9);
+      expect(r.drainflowMm[i]).toBeLessThanOrEqual(hi + 1e-9);
+    }
+    // Runoff carries the rest: rain = drain flow + runoff once the profile is full.
+    expect(r.runoffMm[3] + r.drainflowMm[3]).toBeCloseTo(100, 9);
   });
 });
 

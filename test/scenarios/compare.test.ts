@@ -329,4 +329,76 @@ describe('compareScenarios', () => {
     ).toThrow(/positive length/);
     expect(() => compareScenarios([...annual, annual[1]], opts)).toThrow(/year twice/);
   });
+
+  it('says exactly what is wrong with the scenarios it is given', () => {
+    const two = (a: string, b: string) => ({
+      baseline: a,
+      scenarios: [
+        { name: a, spacingM: 20 },
+        { name: b, spacingM: 20 },
+      ],
+    });
+    expect(() => compareScenarios(annual, { baseline: 'a', scenarios: [] })).toThrow(
+      'comparison: no scenarios to compare',
+    );
+    expect(() => compareScenarios(annual, two('conventional', 'conventional'))).toThrow(
+      'comparison: scenario names must be unique (got conventional, conventional)',
+    );
+    expect(() => compareScenarios(annual, { ...opts, baseline: 'nope' })).toThrow(
+      'comparison: baseline "nope" is not one of the scenarios (conventional, controlled)',
+    );
+    const short = annual.filter((r) => !(r.scenario === 'controlled' && r.year === 2003));
+    expect(() => compareScenarios(short, opts)).toThrow(
+      'comparison: scenario "controlled" covers years 2001-2002 (2), unlike "conventional"; ' +
+        'every scenario must run over the same weather',
+    );
+    expect(() => compareScenarios(annual, two('conventional', 'x'))).toThrow(
+      'comparison: scenario "x" has no rows in the annual table',
+    );
+    expect(() => compareScenarios([...annual, annual[1]], opts)).toThrow(
+      'comparison: scenario "conventional" has a year twice in the annual table',
+    );
+    for (const bad of [NaN, -5, Infinity]) {
+      expect(() =>
+        compareScenarios(annual, { ...opts, scenarios: [{ name: 'conventional', spacingM: bad }] }),
+      ).toThrow(
+        `comparison: spacing of scenario "conventional" must be a positive length in m (got ${bad})`,
+      );
+    }
+  });
+
+  it('load parts: null without baseline flow, null percentages without baseline load', () => {
+    const scen = {
+      baseline: 'a',
+      scenarios: [
+        { name: 'a', spacingM: 20 },
+        { name: 'b', spacingM: 20 },
+      ],
+    };
+    const dry = [row('a', 2001, {}), row('b', 2001, { drainflow_mm: 10, no3n_load_kg_ha: 1 })];
+    const [, b] = compareScenarios(dry, scen);
+    expect(b.no3n_load_change_flow_part_kg_ha).toBeNull();
+    expect(b.no3n_load_change_conc_part_percent).toBeNull();
+    // Baseline with flow but no load: C0 = 0, so the parts exist but have no percentage.
+    const clean = [
+      row('a', 2001, { drainflow_mm: 10 }),
+      row('b', 2001, { drainflow_mm: 20, no3n_load_kg_ha: 2 }),
+    ];
+    const [, c] = compareScenarios(clean, scen);
+    // Q0 = 10, Q1 = 20, C0 = 0, C1 = 100 x 2 / 20 = 10: flow part 10 x 10 / 200 = 0.5,
+    // concentration part 10 x 30 / 200 = 1.5, together the 2 kg/ha change.
+    expect(c.no3n_load_change_flow_part_kg_ha).toBeCloseTo(0.5, 12);
+    expect(c.no3n_load_change_conc_part_kg_ha).toBeCloseTo(1.5, 12);
+    expect(c.no3n_load_change_flow_part_percent).toBeNull();
+    expect(c.no3n_load_change_conc_part_percent).toBeNull();
+    expect(c.no3n_load_change_percent).toBeNull();
+  });
+
+  it('a scenario missing from a seepage run gets null band values', () => {
+    const band = withSeepageBand([conv, ctrl], [conv], []);
+    expect(band[0].drainflow_change_percent_low).toBe(0);
+    expect(band[1].drainflow_change_percent_low).toBeNull();
+    expect(band[1].drainflow_change_percent_high).toBeNull();
+    expect(band[1].drainflow_change_percent).toBe(ctrl.drainflow_change_percent);
+  });
 });
