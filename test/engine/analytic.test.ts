@@ -200,7 +200,7 @@ describe('crop ET: capillary supply and FAO-56 water stress', () => {
       expect(r.waterTableDepthM[i]).toBeCloseTo(wt, 12);
       expect(r.rootZoneDepletionMm[i]).toBeCloseTo(depletion, 12);
       expect(r.etMm[i]).toBeCloseTo(5, 12);
-      expect(r.potentialEtMm[i]).toBe(5);
+      expect(r.cropEtMm[i]).toBe(5);
       expect(r.ks[i]).toBe(1);
       expect(r.soilStorageMm[i]).toBeCloseTo(-(MU * 1000 * wt + depletion), 10);
     }
@@ -271,10 +271,10 @@ describe('crop ET: capillary supply and FAO-56 water stress', () => {
     const p = params({ initialWaterTableDepthM: 2.5 });
     const r = simulate(f, flatCalendar(n, 1), free(n), p);
     for (let i = 0; i < 14; i++) {
-      expect(r.potentialEtMm[i]).toBe(0);
+      expect(r.cropEtMm[i]).toBe(0);
       expect(r.etMm[i]).toBe(0);
     }
-    expect(r.potentialEtMm[14]).toBe(3); // melted out on day 14
+    expect(r.cropEtMm[14]).toBe(3); // melted out on day 14
     expect(r.etMm[14]).toBeCloseTo(3, 12);
     // 50 mm of melt into a profile 2.5 m deep: 1 m of water table rise, no drain flow.
     expect(r.waterTableDepthM[13]).toBeCloseTo(2.5 - 40 / 50, 12);
@@ -386,5 +386,79 @@ describe('sub-steps and the refusal of layouts a daily engine cannot follow', ()
     expect(() => simulate(constantForcing(2, 0, 0), flatCalendar(2, 0), free(2), none)).toThrow(
       /: unboundedly many sub-steps a day/,
     );
+  });
+});
+
+describe('edge cases the mutation run found unchecked', () => {
+  it('ponded water evaporates first, at the crop rate, before the water table gives any', () => {
+    // No conductivity: 30 mm of rain on day 0 cannot enter, 10 mm stays (depression storage).
+    // Then Kc ET0 = 4 mm/d comes from the pond alone: 10 -> 6 -> 2, the table untouched.
+    const n = 3;
+    const f = constantForcing(n, 0, 4);
+    f.rainMm[0] = f.precipMm[0] = 30;
+    f.refEtMm[0] = 0;
+    const r = simulate(f, flatCalendar(n, 1), free(n), undrained({ initialWaterTableDepthM: 1.5 }));
+    expect(Array.from(r.pondedMm)).toEqual([10, 6, 2]);
+    expect(r.runoffMm[0]).toBe(20);
+    expect(r.etMm[1]).toBe(4);
+    expect(r.waterTableDepthM[1]).toBeCloseTo(1.5, 12);
+    expect(r.rootZoneDepletionMm[1]).toBe(0);
+  });
+
+  it('the root zone never gives more than it holds above the wilting point (Dr <= TAW)', () => {
+    // TAW = (0.20 - 0.15) x 600 mm = 30 mm, p = 0.8 (RAW 24 mm), 7 mm/d, one step a dry day:
+    // Dr 7, 14, 21, 28; then Ks = (30 - 28) / (0.2 x 30) = 1/3 asks 2.33 mm of the 2 left.
+    const n = 8;
+    const cal = { ...flatCalendar(n, 1), depletionFraction: new Float64Array(n).fill(0.8) };
+    const p = params({ initialWaterTableDepthM: 2.5, fieldCapacity: 0.2, wiltingPoint: 0.15 });
+    const r = simulate(constantForcing(n, 0, 7), cal, free(n), p);
+    expect(Array.from(r.rootZoneDepletionMm.slice(0, 4))).toEqual([7, 14, 21, 28]);
+    expect(r.rootZoneDepletionMm[4]).toBeCloseTo(30, 12);
+    expect(r.etMm[4]).toBeCloseTo(2, 12);
+    for (let i = 5; i < n; i++) expect(r.etMm[i]).toBe(0);
+  });
+
+  it('melt on the first day is part of the snow store the balance starts from', () => {
+    // 20 mm of snow melting 10 mm a day from day 0: the engine must not see 10 mm from nowhere
+    // (it throws on an open balance); the melt fills 10 / 50 = 0.2 m of pores a day.
+    const n = 2;
+    const f = constantForcing(n, 0, 0);
+    f.snowmeltMm.fill(10);
+    f.sweMm.set([10, 0]);
+    // Water table at the barrier, below the drains: no drain flow.
+    const r = simulate(f, flatCalendar(n, 0), free(n), params({ initialWaterTableDepthM: 2.5 }));
+    expect(r.waterTableDepthM[0]).toBeCloseTo(2.3, 12);
+    expect(r.waterTableDepthM[1]).toBeCloseTo(2.1, 12);
+  });
+
+  it('the linear recession is exact at any step length (ten steps a dry day)', () => {
+    const n = 10;
+    const p = params({
+      kAboveMPerDay: 0,
+      kBelowMPerDay: 0.8,
+      initialWaterTableDepthM: 0.2,
+      substepsPerDay: 80,
+    });
+    const r = simulate(constantForcing(n, 0, 0), flatCalendar(n, 0), free(n), p);
+    const d = vdmwDepth(p.spacingM, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const h = Math.exp((-8 * 0.8 * d * n) / (MU * p.spacingM ** 2));
+    expect(Math.abs(p.drainDepthM - r.waterTableDepthM[n - 1] - h)).toBeLessThan(1e-12);
+  });
+
+  it('exactly 20000 sub-steps a day is accepted', () => {
+    // K1 = 10000 m/d, no K2, L = 8 m, drains at 1 m, porosity 0.125: the linearised rate
+    // 2 x 4 K1 h / L^2 / mu = 10000 per day, so ceil(10000 / 0.5) = 20000 steps (all exact in
+    // binary floating point).
+    const p = params({
+      drainDepthM: 1,
+      spacingM: 8,
+      kAboveMPerDay: 10000,
+      kBelowMPerDay: 0,
+      porosity: { depthsM: [2.5], values: [0.125] },
+      initialWaterTableDepthM: 2.5,
+    });
+    const r = simulate(constantForcing(1, 0, 0), flatCalendar(1, 0), free(1), p);
+    expect(r.substepsPerDay).toBe(20000);
+    expect(r.equivalentDepthM).toBe(0); // no conductivity below the drains: no depth to report
   });
 });

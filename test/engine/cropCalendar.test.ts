@@ -187,3 +187,23 @@ describe('FAO-56 crop coefficient curve (Allen et al. 1998, ch. 6, Fig. 25 and E
     expect(empty.crops).toEqual(['corn']);
   });
 });
+
+describe('calendar edges', () => {
+  it('a winter crop planted in January and harvested in February of a leap year', () => {
+    // Planted 10 January, harvested 20 February 2020: the days of year 10 and 51 by hand.
+    const winter = { ...CROPS.corn, planting: '01-10', harvest: '02-20' };
+    const d = dates(366, '2020-01-01');
+    const c = cropCalendar(d, ['winter'], { winter });
+    const code = (iso: string) => c.crop[d.indexOf(iso)];
+    expect([code('2020-01-09'), code('2020-01-10')]).toEqual([0, 1]);
+    expect([code('2020-02-19'), code('2020-02-20')]).toEqual([1, 0]);
+  });
+
+  it('roots grow linearly to mid-season on the calendar too; before planting 0.15 m', () => {
+    const d = dates(366, '2000-01-01');
+    const c = cropCalendar(d, ['corn'], { ...CROPS });
+    // 5 June 2000 is day 35 after planting on 1 May: 0.15 + 35 / 70 x (1.35 - 0.15) = 0.75 m.
+    expect(c.rootDepthM![d.indexOf('2000-06-05')]).toBeCloseTo(0.75, 12);
+    expect(rootDepthOnDay(CROPS.corn, -5)).toBe(0.15);
+  });
+});

@@ -78,4 +78,15 @@ describe('layered drainable porosity: air volume and its inverse (hand sums)', (
     // One layer: 0.05 over 2.5 m = 125 mm (the doc example).
     expect(porosityTable({ depthsM: [2.5], values: [0.05] }, 2.5).maxAirMm).toBeCloseTo(125, 12);
   });
+
+  it('the last layer reaches the barrier; a layer of no thickness is not the smallest', () => {
+    // Layers given to 1.0 and 1.5 m over a barrier at 2.0 m: the last one (0.04) goes on to it.
+    const short = porosityTable({ depthsM: [1.0, 1.5], values: [0.06, 0.04] }, 2.0);
+    expect(short.maxAirMm).toBeCloseTo(60 + 40, 12);
+    expect(Array.from(short.bottoms)).toEqual([1, 2]);
+    // 0.5 to 0.5 m has no thickness: its 0.001 must not set the smallest porosity.
+    const flat = porosityTable({ depthsM: [0.5, 0.5, 2], values: [0.1, 0.001, 0.05] }, 2);
+    expect(flat.minValue).toBe(0.05);
+    expect(flat.values.length).toBe(2);
+  });
 });
