@@ -259,5 +259,16 @@ describe('rating and run checks', () => {
     expect(a.fwmc_mg_l).toBeCloseTo(12, 12);
     expect(b.drainflow_mm).toBe(0);
     expect(b.fwmc_mg_l).toBe(0);
+    // Runoff and seepage N by year, and the pool's residual summed: invented daily values.
+    const r2 = {
+      ...r,
+      runoffLoadKgHa: new Float64Array(730).fill(0.001),
+      seepageLoadKgHa: new Float64Array(730).fill(0.002),
+      pool: { balanceErrorKgHa: new Float64Array(730).fill(1e-12) },
+    } as unknown as typeof r;
+    const [c] = annualNitrate(ds, flow, r2);
+    expect(c.runoff_n_kg_ha).toBeCloseTo(0.365, 12);
+    expect(c.seepage_n_kg_ha).toBeCloseTo(0.73, 12);
+    expect(c.n_balance_error_kg_ha).toBeCloseTo(365e-12, 20);
   });
 });
