@@ -4,7 +4,8 @@
  * plain JSON specs out, same look as the run charts.
  */
 import type { TopLevelSpec } from 'vega-lite';
-import { CONFIG, CHART_WIDTH, PALETTE, VEGA_LITE_SCHEMA, roundTo, temporalX } from './charts.js';
+import { CONFIG, CHART_WIDTH, PALETTE, VEGA_LITE_SCHEMA, roundTo } from './chartTheme.js';
+import { temporalX } from './chartSeries.js';
 
 /** What the fit charts and the fit report show; SI units, days aligned with `dates`. */
 export interface FitSeries {

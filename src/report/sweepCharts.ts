@@ -6,7 +6,7 @@
  */
 import type { TopLevelSpec } from 'vega-lite';
 import { LOAD_MEASURE, WETNESS_MEASURE, type SweepResult } from '../scenarios/sweep.js';
-import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './charts.js';
+import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './chartTheme.js';
 
 /** Names of the sweep charts (file stems in `charts/`), in report order. */
 export const SWEEP_CHART_NAMES = ['frontier', 'load-map', 'wetness-map', 'cost-per-kg'] as const;

@@ -7,7 +7,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { SystemDesign, SystemSettings } from '../drainage/systemDesign.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { TilefluxError } from '../errors.js';
-import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './charts.js';
+import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './chartTheme.js';
 import { displayUnits } from './units.js';
 
 const GROUND_COLOUR = '#7a5230';

@@ -9,9 +9,9 @@ import {
   CHART_NAMES,
   niceCeil,
   placeLabels,
-  VEGA_LITE_SCHEMA,
   waterTableChart,
 } from '../../src/report/charts.js';
+import { VEGA_LITE_SCHEMA } from '../../src/report/chartTheme.js';
 import type { ReportData } from '../../src/report/types.js';
 import { TilefluxError } from '../../src/errors.js';
 import { makeReportData } from './fixture.mjs';
