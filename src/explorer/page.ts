@@ -21,7 +21,7 @@ import {
   jsonForScript,
   PAGE_CSS,
   PLANNING_CAUTIONS,
-} from '../report/html.js';
+} from '../report/htmlPage.js';
 import type { PeriodOptions } from '../scenarios/prepared.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';

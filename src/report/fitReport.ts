@@ -14,7 +14,7 @@ import {
   cautionList,
   chartFigures,
   escapeHtml,
-} from './html.js';
+} from './htmlPage.js';
 import type { VegaBundles } from './vegaBundles.js';
 
 /** Cautions that belong to a calibration, after the general ones. */

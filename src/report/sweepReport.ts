@@ -19,7 +19,7 @@ import {
   DESIGN_CAUTIONS,
   escapeHtml,
   NOSCRIPT_CHARTS,
-} from './html.js';
+} from './htmlPage.js';
 import { SWEEP_CHART_CAPTIONS } from './sweepCharts.js';
 
 function num(x: unknown, d: number): string {

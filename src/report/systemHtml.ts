@@ -15,7 +15,7 @@ import {
   DESIGN_CAUTIONS,
   escapeHtml,
   NOSCRIPT_CHARTS,
-} from './html.js';
+} from './htmlPage.js';
 import { fixed } from './format.js';
 import type { VegaBundles } from './vegaBundles.js';
 
