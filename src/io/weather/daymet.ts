@@ -80,7 +80,7 @@ export function parseDaymet(text: string, o: WeatherReadOptions): WeatherReadRes
     }
     index[key] = k;
   }
-  const absent = ['prcp', 'tmax', 'tmin'].filter((name, i) => index[COLUMNS[i][2]] === undefined);
+  const absent = ['prcp', 'tmax', 'tmin'].filter((_name, i) => index[COLUMNS[i][2]] === undefined);
   if (absent.length > 0) {
     problems.fail(
       headerLine,
