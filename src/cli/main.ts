@@ -30,7 +30,7 @@ program
   )
   .version(VERSION, '-V, --version')
   .showHelpAfterError(
-    '(run with --help for usage; quote a value that has a unit, e.g. --k "1 m/d")',
+    '(run with --help for usage; quote a value that has a unit, e.g. --conductivity "1 m/d")',
   )
   .configureHelp({ sortSubcommands: false })
   .addHelpText(
@@ -45,9 +45,9 @@ Main tasks, one example each (add --units us for inches, feet and lb N/ac):
     tileflux init my-field.yaml
     tileflux run my-field.yaml --weather my-weather.csv --out my-run
   Drain spacing for a soil and a drainage rate:
-    tileflux spacing --k "1 m/d" --drain-depth "1.2 m" --barrier-depth "2.5 m" --water-table "0.3 m" --rate "12 mm/d"
+    tileflux spacing --conductivity "1 m/d" --drain-depth "1.2 m" --restrictive-layer-depth "2.5 m" --water-table "0.3 m" --coefficient "12 mm/d"
   Pipe size for a lateral:
-    tileflux size --length "1300 ft" --spacing "60 ft" --rate "0.5 in/d" --slope "0.2 %" --units us
+    tileflux size --length "1300 ft" --spacing "60 ft" --coefficient "0.5 in/d" --slope "0.2 %" --units us
   Rank designs and managements under uncertain soils, with costs:
     tileflux sweep my-field.yaml --weather my-weather.csv --out my-study
   Fit the soil to a monitored outlet before trusting a comparison:

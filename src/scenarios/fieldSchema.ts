@@ -4,6 +4,7 @@
  * Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the unit
  * shown in brackets in each description.
  */
+import { DEFAULT_DRAIN_RADIUS_M } from '../drainage/defaults.js';
 import { z } from 'zod';
 import { zQuantity } from '../units/zodQuantity.js';
 import { nitrateSchema } from '../nitrate/schema.js';
@@ -151,7 +152,7 @@ export const drainsSchema = z
     radius: zQuantity('length', 'Effective drain radius (pipe plus envelope)', {
       min: 0.001,
       max: 0.5,
-    }).default(0.05),
+    }).default(DEFAULT_DRAIN_RADIUS_M),
     coefficient: z
       .union([
         zQuantity('rate', 'Drainage coefficient as a rate', {

@@ -186,7 +186,7 @@ const cases: Case[] = [
   // A bare slope is ambiguous: "0.2" is 0.2 m/m to some and 0.2 % to others, 100 times apart.
   {
     what: 'size --slope without a unit',
-    args: () => ['size', '--area', '12 ha', '--rate', '10 mm/d', '--slope', '0.2'],
+    args: () => ['size', '--area', '12 ha', '--coefficient', '10 mm/d', '--slope', '0.2'],
     first: /^tileflux: error: --slope needs a unit: "0\.2 %", "0\.2 m\/m" or "0\.2 ft\/100ft"/,
   },
   // Output folders the system refuses.
@@ -244,7 +244,7 @@ describe('bad-input catalogue', () => {
 
 describe('legal but doubtful input warns on stderr', () => {
   it('units written against the number, and a steep grade', () => {
-    const r = cli(['size', '--area', '12ha', '--rate', '10mm/d', '--slope', '8%', '--json']);
+    const r = cli(['size', '--area', '12ha', '--coefficient', '10mm/d', '--slope', '8%', '--json']);
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout);
     expect(out.area_ha).toBe(12);
@@ -260,7 +260,7 @@ describe('legal but doubtful input warns on stderr', () => {
   });
 
   it('a gentle grade warns of nothing', () => {
-    const r = cli(['size', '--area', '12 ha', '--rate', '10 mm/d', '--slope', '0.2 %']);
+    const r = cli(['size', '--area', '12 ha', '--coefficient', '10 mm/d', '--slope', '0.2 %']);
     expect(r.status).toBe(0);
     expect(r.stderr).toBe('');
   });

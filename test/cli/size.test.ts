@@ -8,7 +8,7 @@ const LATERAL = ['size', '--length', '400', '--spacing', '20', '--slope', '0.2 %
 
 describe('tileflux size', () => {
   it('--json: a 400 m x 20 m lateral at 1/2 in/d on 0.2 % (drainage coefficient, common practice)', () => {
-    const out = json([...LATERAL, '--rate', '0.5 in/d']);
+    const out = json([...LATERAL, '--coefficient', '0.5 in/d']);
     const q = (400 * 20 * 0.0127) / 86400; // area x rate, m3/s
     expect(out.flow_m3_s).toBeCloseTo(q, 12);
     expect(out.flow_cfs).toBeCloseTo(q / CFS, 12);
@@ -42,7 +42,7 @@ describe('tileflux size', () => {
       'size',
       '--area',
       '16',
-      '--rate',
+      '--coefficient',
       '12',
       '--slope',
       '0.1 %',
@@ -61,7 +61,7 @@ describe('tileflux size', () => {
       'size',
       '--area',
       '40 ac',
-      '--rate',
+      '--coefficient',
       '0.5 in/d',
       '--slope',
       '0.1 %',
@@ -78,7 +78,7 @@ describe('tileflux size', () => {
 
   it('--coefficient uses the middle of the tabulated range: mineral field none = 7/16 in/d (common practice, from memory)', () => {
     const out = json([...LATERAL, '--coefficient', 'mineral field none']);
-    const byRate = json([...LATERAL, '--rate', `${7 / 16} in/d`]);
+    const byRate = json([...LATERAL, '--coefficient', `${7 / 16} in/d`]);
     expect(out.rate_mm_d).toBeCloseTo((7 / 16) * 25.4, 12);
     expect(out.flow_m3_s).toBeCloseTo(byRate.flow_m3_s, 15);
     expect(out.selected_diameter_in).toBe(byRate.selected_diameter_in);
@@ -96,14 +96,14 @@ describe('tileflux size', () => {
   });
 
   it('human output: inputs as given, result, method and caution; --units us', () => {
-    const r = cli([...LATERAL, '--rate', '0.375 in/d']);
+    const r = cli([...LATERAL, '--coefficient', '0.375 in/d']);
     expect(r.status).toBe(0);
     expect(r.stdout).toContain('400 m x 20 m = 0.800 ha');
     expect(r.stdout).toContain('0.375 in/d = 9.53 mm/d');
     expect(r.stdout).toMatch(/selected size\s+\d+ in/);
     expect(r.stdout).toContain("Manning's equation");
     expect(r.stdout).toContain('Planning estimate');
-    const us = cli([...LATERAL, '--rate', '0.375 in/d', '--units', 'us']);
+    const us = cli([...LATERAL, '--coefficient', '0.375 in/d', '--units', 'us']);
     expect(us.stdout).toMatch(/design flow\s+0\.0\d+ cfs/);
     expect(us.stdout).toMatch(/ft\/s/);
   });
@@ -113,35 +113,39 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
   const cases: Array<[string, string[], RegExp]> = [
     [
       'zero slope',
-      [...LATERAL.slice(0, 5), '--slope', '0 %', '--rate', '10'],
+      [...LATERAL.slice(0, 5), '--slope', '0 %', '--coefficient', '10'],
       /--slope must be greater than 0/,
     ],
     [
       'negative slope',
-      [...LATERAL.slice(0, 5), '--slope', '-0.1 %', '--rate', '10'],
+      [...LATERAL.slice(0, 5), '--slope', '-0.1 %', '--coefficient', '10'],
       /--slope must be greater than 0/,
     ],
     [
       'flow beyond the largest size',
-      ['size', '--area', '2000', '--rate', '25', '--slope', '0.1 %'],
+      ['size', '--area', '2000', '--coefficient', '25', '--slope', '0.1 %'],
       /larger than the largest size in --sizes \(24 in\)/,
     ],
     [
       'area and lateral both',
-      ['size', '--area', '10', '--length', '400', '--rate', '10', '--slope', '0.1 %'],
+      ['size', '--area', '10', '--length', '400', '--coefficient', '10', '--slope', '0.1 %'],
       /either --area, or --length with --spacing/,
     ],
     [
       'lateral without spacing',
-      ['size', '--length', '400', '--rate', '10', '--slope', '0.1 %'],
+      ['size', '--length', '400', '--coefficient', '10', '--slope', '0.1 %'],
       /--length needs --spacing/,
     ],
-    ['no area', ['size', '--rate', '10', '--slope', '0.1 %'], /give the drained area/],
-    ['no rate', ['size', '--area', '1', '--slope', '0.1 %'], /give the drainage rate: --rate/],
+    ['no area', ['size', '--coefficient', '10', '--slope', '0.1 %'], /give the drained area/],
+    [
+      'no rate',
+      ['size', '--area', '1', '--slope', '0.1 %'],
+      /give the drainage coefficient: --coefficient/,
+    ],
     [
       'rate and coefficient',
       ['size', '--area', '1', '--slope', '0.1 %', '--rate', '10', '--coefficient', 'organic'],
-      /--rate or --coefficient, not both/,
+      /--rate is the former name of --coefficient; give only --coefficient/,
     ],
     [
       'unknown coefficient word',
@@ -154,7 +158,7 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
         'size',
         '--area',
         '1',
-        '--rate',
+        '--coefficient',
         '10',
         '--slope',
         '0.1 %',
@@ -167,17 +171,17 @@ describe('tileflux size rejects bad input with one line and exit code 1', () => 
     ],
     [
       'unknown material',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--material', 'steel'],
+      ['size', '--area', '1', '--coefficient', '10', '--slope', '0.1 %', '--material', 'steel'],
       /--material expects corrugated or smooth/,
     ],
     [
       'sizes out of order',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--sizes', '8,6'],
+      ['size', '--area', '1', '--coefficient', '10', '--slope', '0.1 %', '--sizes', '8,6'],
       /--sizes accepts .* increasing order/,
     ],
     [
       'velocity not a speed',
-      ['size', '--area', '1', '--rate', '10', '--slope', '0.1 %', '--velocity', '2 kg'],
+      ['size', '--area', '1', '--coefficient', '10', '--slope', '0.1 %', '--velocity', '2 kg'],
       /--velocity expects a velocity/,
     ],
   ];

@@ -7,18 +7,22 @@ import { gloverSeriesRatio, hooghoudtQ, vdmwDepth as vdmwD } from '../drainage/r
 
 const layout = (barrier: string) => [
   'spacing',
-  '--k',
+  '--conductivity',
   '0.5',
   '--drain-depth',
   '1.2',
-  '--barrier-depth',
+  '--restrictive-layer-depth',
   barrier,
+  // The references below are for a 0.1 m radius (a drain in a gravel envelope), given here
+  // rather than left to the default.
+  '--radius',
+  '0.1',
 ];
 const STEADY = layout('3.2');
 
 describe('tileflux spacing (steady state)', () => {
   it('--json: the spacing discharges the rate by Hooghoudt with the series d', () => {
-    const out = json([...STEADY, '--water-table', '0.5', '--rate', '7']);
+    const out = json([...STEADY, '--water-table', '0.5', '--coefficient', '7']);
     expect(out.head_m).toBeCloseTo(0.7, 12);
     expect(out.rate_mm_d).toBe(7);
     const d = vdmwD(out.spacing_m, 2, 0.1);
@@ -35,28 +39,28 @@ describe('tileflux spacing (steady state)', () => {
   it('takes unit strings and converts them once (1 in = 25.4 mm, 1 ft = 0.3048 m, exact)', () => {
     const a = json([
       'spacing',
-      '--k',
+      '--conductivity',
       '2 cm/h',
       '--drain-depth',
       '4 ft',
-      '--barrier-depth',
+      '--restrictive-layer-depth',
       '10 ft',
       '--water-table',
       '12 in',
-      '--rate',
+      '--coefficient',
       '0.375 in/d',
     ]);
     const b = json([
       'spacing',
-      '--k',
+      '--conductivity',
       String(0.02 * 24),
       '--drain-depth',
       String(4 * 0.3048),
-      '--barrier-depth',
+      '--restrictive-layer-depth',
       String(10 * 0.3048),
       '--water-table',
       String(0.3048),
-      '--rate',
+      '--coefficient',
       String(0.375 * 25.4),
     ]);
     expect(a.spacing_m).toBeCloseTo(b.spacing_m, 9);
@@ -65,15 +69,15 @@ describe('tileflux spacing (steady state)', () => {
   it('--units us echoes every input in feet and inches per day, defaults too (1 ft = 0.3048 m)', () => {
     const r = cli([
       'spacing',
-      '--k',
+      '--conductivity',
       '3 ft/d',
       '--drain-depth',
       '4 ft',
-      '--barrier-depth',
+      '--restrictive-layer-depth',
       '2.5 m',
       '--water-table',
       '1 ft',
-      '--rate',
+      '--coefficient',
       '0.5 in/d',
       '--units',
       'us',
@@ -83,23 +87,23 @@ describe('tileflux spacing (steady state)', () => {
     expect(inputs).toMatch(/conductivity above drains\s+3 ft\/d\n/);
     // 2.5 / 0.3048 = 8.202 ft; 8.202 - 4 = 4.20 ft of layer below the drains.
     expect(inputs).toContain('2.5 m = 8.202 ft (4.20 ft below the drains)');
-    // The default radius 0.1 m = 0.328 ft.
-    expect(inputs).toContain('0.328 ft (default)');
+    // The default radius 0.05 m = 0.164 ft.
+    expect(inputs).toContain('0.164 ft (default)');
     expect(inputs).not.toMatch(/\d (m|mm)(\/d)?\b(?! =)/);
   });
 
   it('an input given in the unit shown is echoed once, not "1 m/d = 1.000 m/d"', () => {
     const r = cli([
       'spacing',
-      '--k',
+      '--conductivity',
       '1 m/d',
       '--drain-depth',
       '1.2 m',
-      '--barrier-depth',
+      '--restrictive-layer-depth',
       '2.5 m',
       '--water-table',
       '0.3 m',
-      '--rate',
+      '--coefficient',
       '12 mm/d',
     ]);
     expect(r.stdout).toMatch(/drain depth\s+1\.2 m\n/);
@@ -107,7 +111,7 @@ describe('tileflux spacing (steady state)', () => {
   });
 
   it('human output echoes the inputs as given, the result, the method and the caution', () => {
-    const r = cli([...STEADY, '--water-table', '20 in', '--rate', '0.3 in/d']);
+    const r = cli([...STEADY, '--water-table', '20 in', '--coefficient', '0.3 in/d']);
     expect(r.status).toBe(0);
     expect(r.stdout).toContain('20 in = 0.508 m');
     expect(r.stdout).toContain('0.3 in/d = 7.62 mm/d');
@@ -118,8 +122,8 @@ describe('tileflux spacing (steady state)', () => {
   });
 
   it('--units us prints feet and inches per day', () => {
-    const r = cli([...STEADY, '--water-table', '0.5', '--rate', '7', '--units', 'us']);
-    const si = json([...STEADY, '--water-table', '0.5', '--rate', '7']);
+    const r = cli([...STEADY, '--water-table', '0.5', '--coefficient', '7', '--units', 'us']);
+    const si = json([...STEADY, '--water-table', '0.5', '--coefficient', '7']);
     expect(r.stdout).toContain(`${(si.spacing_m / 0.3048).toFixed(1)} ft`);
     expect(r.stdout).toMatch(/\d in\/d with the water table at the surface/);
   });
@@ -129,7 +133,7 @@ describe('tileflux spacing (steady state)', () => {
       ...STEADY,
       '--water-table',
       '0.5',
-      '--rate',
+      '--coefficient',
       '7',
       '--equivalent-depth',
       'moody',
@@ -161,39 +165,43 @@ describe('tileflux spacing rejects bad input with one line and exit code 1', () 
   const cases: Array<[string, string[], RegExp]> = [
     [
       'barrier above the drains',
-      [...layout('1'), '--water-table', '0.5', '--rate', '7'],
-      /--barrier-depth .* must be deeper than --drain-depth/,
+      [...layout('1'), '--water-table', '0.5', '--coefficient', '7'],
+      /--restrictive-layer-depth .* must be deeper than --drain-depth/,
     ],
     [
       'water table above the surface',
-      [...STEADY, '--water-table', '-0.1', '--rate', '7'],
+      [...STEADY, '--water-table', '-0.1', '--coefficient', '7'],
       /--water-table .* above the surface/,
     ],
     [
       'water table below the drains',
-      [...STEADY, '--water-table', '1.3', '--rate', '7'],
+      [...STEADY, '--water-table', '1.3', '--coefficient', '7'],
       /--water-table .* shallower than --drain-depth/,
     ],
     [
       'radius as large as the layer',
-      [...layout('1.25'), '--water-table', '0.5', '--rate', '7'],
+      [...layout('1.25'), '--water-table', '0.5', '--coefficient', '7'],
       /--radius .* smaller than the layer/,
     ],
-    ['missing rate', [...STEADY, '--water-table', '0.5'], /--rate is required/],
+    ['missing rate', [...STEADY, '--water-table', '0.5'], /--coefficient is required/],
     [
       'zero rate',
-      [...STEADY, '--water-table', '0.5', '--rate', '0'],
-      /--rate must be greater than 0/,
+      [...STEADY, '--water-table', '0.5', '--coefficient', '0'],
+      /--coefficient must be greater than 0/,
     ],
-    ['wrong unit', [...STEADY, '--water-table', '0.5', '--rate', '7 m'], /--rate expects a rate/],
+    [
+      'wrong unit',
+      [...STEADY, '--water-table', '0.5', '--coefficient', '7 m'],
+      /--coefficient expects a rate/,
+    ],
     [
       'unknown method',
-      [...STEADY, '--water-table', '0.5', '--rate', '7', '--equivalent-depth', 'x'],
+      [...STEADY, '--water-table', '0.5', '--coefficient', '7', '--equivalent-depth', 'x'],
       /--equivalent-depth expects vdmw or moody/,
     ],
     [
       'mixed modes',
-      [...STEADY, '--water-table', '0.5', '--rate', '7', '--days', '2'],
+      [...STEADY, '--water-table', '0.5', '--coefficient', '7', '--days', '2'],
       /--days applies only with --transient/,
     ],
     [
@@ -235,8 +243,35 @@ describe('tileflux spacing rejects bad input with one line and exit code 1', () 
 describe('tileflux spacing --help', () => {
   it('teaches with an example of each mode and carries the caution', () => {
     const r = cli(['spacing', '--help']);
-    expect(r.stdout).toContain('tileflux spacing --k 0.5 --drain-depth 1.2');
+    expect(r.stdout).toContain('tileflux spacing --conductivity 0.5 --drain-depth 1.2');
     expect(r.stdout).toContain('tileflux spacing --transient');
     expect(r.stdout).toContain('Planning estimate');
+  });
+});
+
+describe('former flag names', () => {
+  it('still work, with a warning naming the new flag, and give the same spacing', () => {
+    const now = cli([...STEADY, '--water-table', '0.5', '--coefficient', '7', '--json']);
+    const old = cli([
+      'spacing',
+      '--k',
+      '0.5',
+      '--drain-depth',
+      '1.2',
+      '--barrier-depth',
+      '3.2',
+      '--radius',
+      '0.1',
+      '--water-table',
+      '0.5',
+      '--rate',
+      '7',
+      '--json',
+    ]);
+    expect(old.status).toBe(0);
+    expect(old.stdout).toBe(now.stdout);
+    expect(old.stderr).toContain('--k is now --conductivity');
+    expect(old.stderr).toContain('--barrier-depth is now --restrictive-layer-depth');
+    expect(old.stderr).toContain('--rate is now --coefficient');
   });
 });

@@ -3,7 +3,7 @@
  * rate) by Manning's equation for a full circular pipe, rounded up to the next commercial size,
  * with the full-flow velocity and the minimum grade for a velocity target.
  */
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import {
   fullFlowVelocity,
@@ -141,13 +141,26 @@ function drainedArea(o: SizeFlags): {
   };
 }
 
-/** The design rate in mm/d from --rate, or from the --coefficient preset's tabulated value. */
+/**
+ * The design rate in mm/d from --coefficient: a rate ("12 mm/d", "0.5 in/d"), or the words of
+ * the tabulated coefficient ("mineral field none"), as the field file's drains.coefficient.
+ */
 function designRate(o: SizeFlags): { mmPerDay: number; text: string; table?: DrainageCoefficient } {
-  if (o.rate !== undefined && o.coefficient !== undefined) {
-    throw new TilefluxError('give --rate or --coefficient, not both');
+  if (o.rate !== undefined) {
+    if (o.coefficient !== undefined)
+      throw new TilefluxError(
+        '--rate is the former name of --coefficient; give only --coefficient',
+      );
+    warn("--rate is now --coefficient (the field file's word); the old name will go");
   }
-  if (o.coefficient !== undefined) {
-    const c = drainageCoefficient(parseCoefficientPreset(o.coefficient, '--coefficient'));
+  const given = o.coefficient ?? o.rate;
+  if (given === undefined) {
+    throw new TilefluxError(
+      'give the drainage coefficient: --coefficient with a rate (e.g. "0.5 in/d") or the table\'s words (e.g. "mineral field none")',
+    );
+  }
+  if (!/^\s*[-+.\d]/.test(given)) {
+    const c = drainageCoefficient(parseCoefficientPreset(given, '--coefficient'));
     const p = c.preset;
     return {
       mmPerDay: c.mmPerDay,
@@ -157,14 +170,10 @@ function designRate(o: SizeFlags): { mmPerDay: number; text: string; table?: Dra
         `inlets ${p.inlets}: tabulated ${fmt(c.lowInPerDay, 3)}-${fmt(c.highInPerDay, 3)} in/d, middle used)`,
     };
   }
-  if (o.rate === undefined) {
-    throw new TilefluxError(
-      'give the drainage rate: --rate (e.g. "0.5 in/d") or --coefficient (e.g. "mineral field none")',
-    );
-  }
-  const mmPerDay = requiredQuantity(o.rate, 'rate', '--rate');
-  if (!(mmPerDay > 0)) throw new TilefluxError(`--rate must be greater than 0; got ${o.rate}`);
-  return { mmPerDay, text: echo(o.rate, mmPerDay, 'mm/d', 2) };
+  const mmPerDay = requiredQuantity(given, 'rate', '--coefficient');
+  if (!(mmPerDay > 0))
+    throw new TilefluxError(`--coefficient must be greater than 0; got ${given}`);
+  return { mmPerDay, text: echo(given, mmPerDay, 'mm/d', 2) };
 }
 
 function run(o: SizeFlags): void {
@@ -301,13 +310,13 @@ function coefficientTable(): string {
 const HELP = `
 Examples:
   A lateral 400 m long draining a 20 m strip at 3/8 inch per day on a 0.2 % grade:
-    tileflux size --length 400 --spacing 20 --rate "0.375 in/d" --slope "0.2 %"
+    tileflux size --length 400 --spacing 20 --coefficient "0.375 in/d" --slope "0.2 %"
   A main serving 16 ha at 12 mm/d, smooth pipe, metric sizes:
-    tileflux size --area 16 --rate 12 --slope 0.1% --material smooth --sizes mm
+    tileflux size --area 16 --coefficient 12 --slope 0.1% --material smooth --sizes mm
   The same lateral at the tabulated coefficient for vegetables on an organic soil with blind inlets:
     tileflux size --length 400 --spacing 20 --coefficient "organic truck blind" --slope "0.2 %"
   Your own list of inside diameters:
-    tileflux size --area "40 ac" --rate "0.5 in/d" --slope "0.1 %" --sizes "6,8,10,12 in" --units us
+    tileflux size --area "40 ac" --coefficient "0.5 in/d" --slope "0.1 %" --sizes "6,8,10,12 in" --units us
 
 The design flow is the drained area times the drainage rate (drainage coefficient); common
 practice for field crops on mineral soils without surface inlets is 3/8 to 1/2 inch per day,
@@ -332,11 +341,11 @@ export function registerSize(program: Command): void {
     .option('--area <area>', 'drained area, bare number ha (or give --length and --spacing)')
     .option('--length <length>', 'length of the lateral, m')
     .option('--spacing <length>', 'drain spacing (width drained by the lateral), m')
-    .option('--rate <rate>', 'drainage rate (drainage coefficient), mm/d')
     .option(
-      '--coefficient <words>',
-      'tabulated drainage coefficient instead of --rate: soil, crop, inlets (e.g. "mineral field none")',
+      '--coefficient <rate|words>',
+      'drainage coefficient: a rate, bare number mm/d (e.g. "0.5 in/d"), or the tabulated value for soil, crop, inlets (e.g. "mineral field none")',
     )
+    .addOption(new Option('--rate <rate>').hideHelp())
     .option(
       '--slope <slope>',
       'pipe grade with its unit: %, m/m or ft/100ft (e.g. "0.2 %" or 0.002m/m); a bare number is refused',

@@ -5,7 +5,7 @@
  *
  * Also exports the small layout helpers `echo` and `blocks` that `size` uses for its report.
  */
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
 import { TilefluxError } from '../../errors.js';
 import {
   drainageIntensity,
@@ -18,6 +18,7 @@ import {
 } from '../../drainage/index.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 import { blocks, echo } from '../echo.js';
+import { DEFAULT_DRAIN_RADIUS_M } from '../../drainage/defaults.js';
 import {
   action,
   CAUTION,
@@ -26,17 +27,20 @@ import {
   quantityOption,
   requiredQuantity,
   parseUnits,
+  warn,
 } from '../common.js';
 
-/** Effective drain radius used when --radius is not given, m. */
-export const DEFAULT_RADIUS_M = 0.1;
-
 interface SpacingFlags {
+  conductivity?: string;
+  conductivityBelowDrains?: string;
+  drainDepth?: string;
+  restrictiveLayerDepth?: string;
+  waterTable?: string;
+  coefficient?: string;
+  /** Former flag names, still read (with a warning). */
   k?: string;
   kBelow?: string;
-  drainDepth?: string;
   barrierDepth?: string;
-  waterTable?: string;
   rate?: string;
   radius?: string;
   equivalentDepth?: string;
@@ -73,11 +77,33 @@ function methodOf(value: string | undefined): EquivalentDepthMethod {
   return m;
 }
 
+/** Former flag names, still read: [old key, new key, old flag, new flag]. */
+const RENAMED: Array<[keyof SpacingFlags, keyof SpacingFlags, string, string]> = [
+  ['k', 'conductivity', '--k', '--conductivity'],
+  ['kBelow', 'conductivityBelowDrains', '--k-below', '--conductivity-below-drains'],
+  ['barrierDepth', 'restrictiveLayerDepth', '--barrier-depth', '--restrictive-layer-depth'],
+  ['rate', 'coefficient', '--rate', '--coefficient'],
+];
+
+/**
+ * Read the former flag names into the new ones, with a warning: the flags now use the field
+ * file's words (soil.conductivity, soil.restrictiveLayerDepth, drains.coefficient).
+ */
+function renamedFlags(o: SpacingFlags): void {
+  for (const [old, now, oldFlag, newFlag] of RENAMED) {
+    if (o[old] === undefined) continue;
+    if (o[now] !== undefined)
+      throw new TilefluxError(`${oldFlag} is the former name of ${newFlag}; give only ${newFlag}`);
+    (o as Record<string, unknown>)[now] = o[old];
+    warn(`${oldFlag} is now ${newFlag} (the field file's word); the old name will go`);
+  }
+}
+
 /** Flags that belong to only one of the two modes, for a clear error when mixed. */
 const STEADY_ONLY: Array<[keyof SpacingFlags, string]> = [
   ['waterTable', '--water-table'],
-  ['rate', '--rate'],
-  ['kBelow', '--k-below'],
+  ['coefficient', '--coefficient'],
+  ['conductivityBelowDrains', '--conductivity-below-drains'],
 ];
 const TRANSIENT_ONLY: Array<[keyof SpacingFlags, string]> = [
   ['drainablePorosity', '--drainable-porosity'],
@@ -88,21 +114,29 @@ const TRANSIENT_ONLY: Array<[keyof SpacingFlags, string]> = [
 
 /** The layout options common to both modes, parsed and checked against each other. */
 function layout(o: SpacingFlags) {
-  const kMPerDay = positive(requiredQuantity(o.k, 'conductivity', '--k'), '--k', 'm/d');
+  const kMPerDay = positive(
+    requiredQuantity(o.conductivity, 'conductivity', '--conductivity'),
+    '--conductivity',
+    'm/d',
+  );
   const drainDepthM = positive(
     requiredQuantity(o.drainDepth, 'length', '--drain-depth'),
     '--drain-depth',
     'm',
   );
-  const barrierDepthM = requiredQuantity(o.barrierDepth, 'length', '--barrier-depth');
+  const barrierDepthM = requiredQuantity(
+    o.restrictiveLayerDepth,
+    'length',
+    '--restrictive-layer-depth',
+  );
   const radiusM = positive(
-    quantityOption(o.radius, 'length', '--radius') ?? DEFAULT_RADIUS_M,
+    quantityOption(o.radius, 'length', '--radius') ?? DEFAULT_DRAIN_RADIUS_M,
     '--radius',
     'm',
   );
   if (!(barrierDepthM > drainDepthM)) {
     throw new TilefluxError(
-      `--barrier-depth (${fmt(barrierDepthM, 3)} m) must be deeper than --drain-depth ` +
+      `--restrictive-layer-depth (${fmt(barrierDepthM, 3)} m) must be deeper than --drain-depth ` +
         `(${fmt(drainDepthM, 3)} m): the restrictive layer lies below the drains`,
     );
   }
@@ -110,7 +144,7 @@ function layout(o: SpacingFlags) {
   if (!(radiusM < layerBelowDrainsM)) {
     throw new TilefluxError(
       `--radius (${fmt(radiusM, 3)} m) must be smaller than the layer between the drains and the ` +
-        `barrier (--barrier-depth minus --drain-depth, ${fmt(layerBelowDrainsM, 3)} m)`,
+        `barrier (--restrictive-layer-depth minus --drain-depth, ${fmt(layerBelowDrainsM, 3)} m)`,
     );
   }
   if (!(radiusM < drainDepthM)) {
@@ -135,7 +169,7 @@ function layoutRows(o: SpacingFlags, l: Layout, units: UnitSystem): Array<[strin
     ['drain depth', echo(o.drainDepth, l.drainDepthM, 'm', 3, units)],
     [
       'barrier depth',
-      `${echo(o.barrierDepth, l.barrierDepthM, 'm', 3, units)} (${len(l.layerBelowDrainsM, units)} below the drains)`,
+      `${echo(o.restrictiveLayerDepth, l.barrierDepthM, 'm', 3, units)} (${len(l.layerBelowDrainsM, units)} below the drains)`,
     ],
     ['drain radius', echo(o.radius, l.radiusM, 'm', 3, units)],
   ];
@@ -144,8 +178,9 @@ function layoutRows(o: SpacingFlags, l: Layout, units: UnitSystem): Array<[strin
 function steady(o: SpacingFlags, units: UnitSystem): void {
   const l = layout(o);
   const kBelowMPerDay = positive(
-    quantityOption(o.kBelow, 'conductivity', '--k-below') ?? l.kMPerDay,
-    '--k-below',
+    quantityOption(o.conductivityBelowDrains, 'conductivity', '--conductivity-below-drains') ??
+      l.kMPerDay,
+    '--conductivity-below-drains',
     'm/d',
   );
   const waterTableM = requiredQuantity(o.waterTable, 'length', '--water-table');
@@ -162,7 +197,11 @@ function steady(o: SpacingFlags, units: UnitSystem): void {
         `the drains`,
     );
   }
-  const rateMmPerDay = positive(requiredQuantity(o.rate, 'rate', '--rate'), '--rate', 'mm/d');
+  const rateMmPerDay = positive(
+    requiredQuantity(o.coefficient, 'rate', '--coefficient'),
+    '--coefficient',
+    'mm/d',
+  );
   const headM = l.drainDepthM - waterTableM;
   const sol = hooghoudtSpacing({
     kAboveMPerDay: l.kMPerDay,
@@ -224,19 +263,19 @@ function steady(o: SpacingFlags, units: UnitSystem): void {
         [
           'Inputs',
           [
-            ['conductivity above drains', echo(o.k, l.kMPerDay, 'm/d', 3, units)],
+            ['conductivity above drains', echo(o.conductivity, l.kMPerDay, 'm/d', 3, units)],
             [
               'conductivity below drains',
-              o.kBelow === undefined
-                ? `${echo(undefined, kBelowMPerDay, 'm/d', 3, units).replace(' (default)', '')} (as --k)`
-                : echo(o.kBelow, kBelowMPerDay, 'm/d', 3, units),
+              o.conductivityBelowDrains === undefined
+                ? `${echo(undefined, kBelowMPerDay, 'm/d', 3, units).replace(' (default)', '')} (as --conductivity)`
+                : echo(o.conductivityBelowDrains, kBelowMPerDay, 'm/d', 3, units),
             ],
             ...layoutRows(o, l, units),
             [
               'midpoint water table',
               `${echo(o.waterTable, waterTableM, 'm', 3, units)} below the surface`,
             ],
-            ['drainage rate', echo(o.rate, rateMmPerDay, 'mm/d', 2, units)],
+            ['drainage rate', echo(o.coefficient, rateMmPerDay, 'mm/d', 2, units)],
           ],
         ],
         [
@@ -252,7 +291,7 @@ function steady(o: SpacingFlags, units: UnitSystem): void {
             [
               'ponded-surface rate',
               ponded === null
-                ? 'not given: Kirkham (1957) assumes one conductivity (--k-below differs)'
+                ? 'not given: Kirkham (1957) assumes one conductivity (--conductivity-below-drains differs)'
                 : `${rate(ponded * 1000, units)} with water just ponded on the surface (Kirkham 1957)`,
             ],
           ],
@@ -341,7 +380,7 @@ function transient(o: SpacingFlags, units: UnitSystem): void {
         [
           'Inputs',
           [
-            ['conductivity', echo(o.k, l.kMPerDay, 'm/d', 3, units)],
+            ['conductivity', echo(o.conductivity, l.kMPerDay, 'm/d', 3, units)],
             ['drainable porosity', echo(o.drainablePorosity, porosity, '', 3)],
             ...layoutRows(o, l, units),
             [
@@ -378,7 +417,7 @@ function transient(o: SpacingFlags, units: UnitSystem): void {
 }
 
 const HELP = `
-Steady state (Hooghoudt): the spacing at which drains remove --rate with the water table
+Steady state (Hooghoudt): the spacing at which drains remove --coefficient with the water table
 midway held at --water-table below the surface. Falling water table (Glover-Dumm, with
 --transient): the spacing that lowers the water table midway from --from to --to below the
 surface in --days after a wetting, with no further recharge.
@@ -390,13 +429,13 @@ calls for a closer spacing).
 
 Examples:
   Steady state: 0.5 m/d soil, drains 1.2 m deep, restrictive layer at 3.2 m, 7 mm/d:
-    tileflux spacing --k 0.5 --drain-depth 1.2 --barrier-depth 3.2 --water-table 0.5 --rate 7
+    tileflux spacing --conductivity 0.5 --drain-depth 1.2 --restrictive-layer-depth 3.2 --water-table 0.5 --coefficient 7
   The same kind of design in US units:
-    tileflux spacing --k "0.8 in/h" --drain-depth "4 ft" --barrier-depth "10 ft" \\
-      --water-table "1 ft" --rate "0.375 in/d" --units us
+    tileflux spacing --conductivity "0.8 in/h" --drain-depth "4 ft" --restrictive-layer-depth "10 ft" \\
+      --water-table "1 ft" --coefficient "0.375 in/d" --units us
   Falling water table, surface to 0.3 m in 2 days:
-    tileflux spacing --transient --k 0.5 --drainable-porosity 0.05 --drain-depth 1.2 \\
-      --barrier-depth 3.2 --from 0 --to 0.3 --days 2
+    tileflux spacing --transient --conductivity 0.5 --drainable-porosity 0.05 --drain-depth 1.2 \\
+      --restrictive-layer-depth 3.2 --from 0 --to 0.3 --days 2
 
 ${CAUTION}`;
 
@@ -412,24 +451,24 @@ export function registerSpacing(program: Command): void {
         'numbers are in the unit shown beside each option.',
     )
     .option(
-      '--k <conductivity>',
+      '--conductivity <conductivity>',
       'saturated hydraulic conductivity (above drain level), bare number m/d',
     )
     .option(
-      '--k-below <conductivity>',
-      'conductivity below drain level, m/d (default: --k; steady only)',
+      '--conductivity-below-drains <conductivity>',
+      'conductivity below drain level, m/d (default: --conductivity; steady only)',
     )
     .option('--drain-depth <length>', 'drain depth below the surface, m')
     .option(
-      '--barrier-depth <length>',
+      '--restrictive-layer-depth <length>',
       'depth of the restrictive (impermeable) layer below the surface, m',
     )
     .option(
       '--water-table <length>',
       'allowed midpoint water-table depth below the surface, m (steady)',
     )
-    .option('--rate <rate>', 'design drainage rate (drainage coefficient), mm/d (steady)')
-    .option('--radius <length>', `effective drain radius, m (default ${DEFAULT_RADIUS_M})`)
+    .option('--coefficient <rate>', 'design drainage rate (drainage coefficient), mm/d (steady)')
+    .option('--radius <length>', `effective drain radius, m (default ${DEFAULT_DRAIN_RADIUS_M})`)
     .option(
       '--equivalent-depth <method>',
       'equivalent depth: vdmw (van der Molen & Wesseling) or moody',
@@ -445,9 +484,14 @@ export function registerSpacing(program: Command): void {
     .option('--days <duration>', 'time allowed for the drawdown, d (transient)')
     .option('--units <system>', 'units of printed results: si or us (JSON is always SI)', 'si')
     .option('--json', 'print the result as JSON')
+    .addOption(new Option('--k <conductivity>').hideHelp())
+    .addOption(new Option('--k-below <conductivity>').hideHelp())
+    .addOption(new Option('--barrier-depth <length>').hideHelp())
+    .addOption(new Option('--rate <rate>').hideHelp())
     .addHelpText('after', HELP)
     .action(
       action((o: SpacingFlags) => {
+        renamedFlags(o);
         const units = parseUnits(o.units);
         const [wrong, mode] = o.transient ? [STEADY_ONLY, 'without'] : [TRANSIENT_ONLY, 'with'];
         for (const [key, flag] of wrong) {
