@@ -32,6 +32,7 @@ export * from './scenarios/compare.js';
 export * from './scenarios/starter.js';
 export * from './scenarios/sweepSchema.js';
 export * from './scenarios/sweep.js';
+export * from './scenarios/sweepClimates.js';
 export * from './scenarios/economics.js';
 export * from './scenarios/sampling.js';
 export * from './scenarios/frontier.js';

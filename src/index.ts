@@ -8,9 +8,13 @@ export * from './io/field.js';
 export * from './io/tables.js';
 export * from './io/runFolder.js';
 export { writeRunFolder } from './report/writeRun.js';
-export { sweepParallel, type ParallelOptions } from './io/sweepPool.js';
+export { sweepClimatesParallel, sweepParallel, type ParallelOptions } from './io/sweepPool.js';
 export {
+  buildStudyChartSpecs,
   buildSweepChartSpecs,
+  climatesChart,
+  CLIMATES_CAPTION,
+  type StudyCharts,
   SWEEP_CHART_NAMES,
   SWEEP_CHART_CAPTIONS,
 } from './report/sweepCharts.js';

@@ -19,6 +19,14 @@ import {
   type SweepOptions,
   type SweepResult,
 } from '../scenarios/sweep.js';
+import {
+  checkClimateNames,
+  climateFiguresOf,
+  climateSweepOf,
+  studyOf,
+  type ClimateInput,
+  type ClimateStudy,
+} from '../scenarios/sweepClimates.js';
 
 /** What every worker receives once. */
 export interface SweepWorkerData {
@@ -100,4 +108,27 @@ export async function sweepParallel(
     o.signal?.removeEventListener('abort', stop);
     await pool.destroy();
   }
+}
+
+/**
+ * Run a field's sweep under each climate on worker threads, one climate after the other (each
+ * on its own pool of `o.workers`); `onProgress` counts the jobs of every climate together.
+ *
+ * @example await sweepClimatesParallel(field.base, [{ name: 'today', weather }], { workers: 2 })
+ */
+export async function sweepClimatesParallel(
+  field: Field,
+  climates: readonly ClimateInput[],
+  o: ParallelOptions = {},
+): Promise<ClimateStudy> {
+  checkClimateNames(climates.map((c) => c.name));
+  const sweeps = [];
+  for (const [k, c] of climates.entries()) {
+    const result = await sweepParallel(field, c.weather, {
+      ...o,
+      onProgress: (done, total) => o.onProgress?.(k * total + done, total * climates.length),
+    });
+    sweeps.push(climateSweepOf(c, result, climateFiguresOf(field, c.weather, o)));
+  }
+  return studyOf(sweeps);
 }

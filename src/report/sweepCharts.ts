@@ -1,11 +1,13 @@
 /**
  * Vega-Lite chart specs of a sweep (pure, data inlined): the trade-off frontier of nitrate-N
  * load against wetness with cost as colour, heat maps of load and wetness over depth x spacing
- * for each outlet management, and the cost per kg of nitrate-N avoided of the frontier designs.
- * Same look as the run charts.
+ * for each outlet management, and the cost per kg of nitrate-N avoided of the frontier designs;
+ * under several climates these four for each climate and one chart setting the climates side by
+ * side. Same look as the run charts.
  */
 import type { TopLevelSpec } from 'vega-lite';
 import { LOAD_MEASURE, WETNESS_MEASURE, type SweepResult } from '../scenarios/sweep.js';
+import { climateSlug, frontierUnion, type ClimateStudy } from '../scenarios/sweepClimates.js';
 import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './chartTheme.js';
 
 /** Names of the sweep charts (file stems in `charts/`), in report order. */
@@ -241,4 +243,108 @@ export function buildSweepChartSpecs(r: SweepResult): Record<SweepChartName, Top
     ),
     'cost-per-kg': costPerKgChart(r),
   };
+}
+
+/** Caption of the chart that sets the climates side by side. */
+export const CLIMATES_CAPTION =
+  'Median nitrate-N load and aeration-stress days of every design on any climate’s frontier, ' +
+  'under each climate; filled marks: on that climate’s frontier, open: dominated there. ' +
+  'Designs are listed in the order of the first climate’s frontier.';
+
+/** The designs on any frontier under each climate, load and wetness side by side. */
+export function climatesChart(study: ClimateStudy): TopLevelSpec {
+  const union = frontierUnion(study);
+  const names = study.climates.map((c) => c.name);
+  const first = study.climates[0].result;
+  const order = union.map((d) => String(first.designs[d].design));
+  const values = study.climates.flatMap((c, k) =>
+    union.map((d) => {
+      const row = c.result.designs[d];
+      return {
+        design: String(row.design),
+        climate: c.name,
+        load: round(Number(row[LOAD_MEASURE]), 3),
+        wet: round(Number(row[WETNESS_MEASURE]), 2),
+        frontier: study.ranks[k][d] > 0 ? 'on the frontier' : 'dominated',
+        rank: study.ranks[k][d] || null,
+      };
+    }),
+  );
+  const panel = (field: 'load' | 'wet', title: string) => ({
+    width: 280,
+    height: { step: 18 },
+    mark: { type: 'point', size: 70, strokeWidth: 1.6 },
+    encoding: {
+      y: { field: 'design', type: 'nominal', title: null, sort: order, axis: { labelLimit: 260 } },
+      x: { field, type: 'quantitative', title, scale: { zero: false } },
+      color: {
+        field: 'climate',
+        type: 'nominal',
+        title: 'Climate',
+        scale: { domain: names, range: names.map((_, i) => PALETTE[i % PALETTE.length]) },
+      },
+      fill: {
+        condition: { test: "datum.frontier === 'on the frontier'", field: 'climate' },
+        value: 'white',
+      },
+      tooltip: [
+        { field: 'design' },
+        { field: 'climate' },
+        { field: 'load', title: 'nitrate-N, kg/ha/yr' },
+        { field: 'wet', title: 'aeration-stress days/yr' },
+        { field: 'rank', title: 'rank on the frontier' },
+      ],
+    },
+  });
+  return {
+    $schema: VEGA_LITE_SCHEMA,
+    title: {
+      text: 'Frontier designs under each climate',
+      subtitle: `${first.plan.field.name}: medians over ${first.plan.samples.length} soil samples; climates ${names.join(', ')}`,
+    },
+    config: CONFIG,
+    data: { values },
+    hconcat: [
+      panel('load', 'Nitrate-N load (median, kg/ha per year)'),
+      panel('wet', 'Aeration-stress days (median, per year)'),
+    ],
+  } as TopLevelSpec;
+}
+
+/** The charts of a study with their captions, in report order. */
+export interface StudyCharts {
+  specs: Record<string, TopLevelSpec>;
+  captions: Record<string, string>;
+}
+
+/**
+ * Every chart of a study. Under one climate: the sweep charts as `buildSweepChartSpecs` gives
+ * them. Under several: each sweep chart per climate (file stem `<chart>-<climate>`, the climate
+ * in the subtitle and caption), then `climates`.
+ *
+ * @example Object.keys(buildStudyChartSpecs(study).specs) // ['frontier-today', ..., 'climates']
+ */
+export function buildStudyChartSpecs(study: ClimateStudy): StudyCharts {
+  if (study.climates.length === 1) {
+    return {
+      specs: buildSweepChartSpecs(study.climates[0].result),
+      captions: { ...SWEEP_CHART_CAPTIONS },
+    };
+  }
+  const specs: Record<string, TopLevelSpec> = {};
+  const captions: Record<string, string> = {};
+  for (const c of study.climates) {
+    for (const [name, spec] of Object.entries(buildSweepChartSpecs(c.result))) {
+      const key = `${name}-${climateSlug(c.name)}`;
+      const title = spec.title as { text: string; subtitle: string };
+      specs[key] = {
+        ...spec,
+        title: { ...title, subtitle: `${title.subtitle}; climate ${c.name}` },
+      };
+      captions[key] = `${SWEEP_CHART_CAPTIONS[name as SweepChartName]} Climate: ${c.name}.`;
+    }
+  }
+  specs.climates = climatesChart(study);
+  captions.climates = CLIMATES_CAPTION;
+  return { specs, captions };
 }

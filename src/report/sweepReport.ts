@@ -1,9 +1,9 @@
 /**
- * The sweep's offline HTML report: the question, the inputs (designs, soil uncertainty, costs and
- * their basis), the ranked frontier with its robustness to the soil samples, the charts, the
- * methods and the cautions. Built on the run report's page (same look, same offline rules).
+ * The sweep's offline HTML report: the question, the inputs (climates, designs, soil
+ * uncertainty, costs and their basis), the ranked frontier of each climate with its robustness
+ * to the soil samples, under several climates the frontier designs ranked under each, the charts,
+ * the methods and the cautions. Built on the run report's page (same look, same offline rules).
  */
-import type { TopLevelSpec } from 'vega-lite';
 import {
   LOAD_MEASURE,
   WETNESS_MEASURE,
@@ -11,6 +11,7 @@ import {
   recommendationLines,
   type SweepResult,
 } from '../scenarios/sweep.js';
+import { climateSlug, frontierUnion, type ClimateStudy } from '../scenarios/sweepClimates.js';
 import { VERSION } from '../version.js';
 import {
   buildHtmlPage,
@@ -20,7 +21,7 @@ import {
   escapeHtml,
   NOSCRIPT_CHARTS,
 } from './htmlPage.js';
-import { SWEEP_CHART_CAPTIONS } from './sweepCharts.js';
+import type { StudyCharts } from './sweepCharts.js';
 
 function num(x: unknown, d: number): string {
   const v = Number(x);
@@ -42,7 +43,7 @@ function table(id: string, head: string[], rows: string[][], caption = ''): stri
 }
 
 /** The ranked frontier: lowest median load first, with the spread across soil samples. */
-function frontierTable(r: SweepResult): string {
+function frontierTable(r: SweepResult, id: string, climate = ''): string {
   const cur = escapeHtml(r.plan.costs.currency);
   const rows = r.frontier.map((i, k) => {
     const d = r.designs[i];
@@ -57,7 +58,7 @@ function frontierTable(r: SweepResult): string {
     ];
   });
   return table(
-    'frontier-table',
+    id,
     [
       'Design',
       'Nitrate-N load <span class="unit">(kg/ha/yr; median, 10th to 90th percentile)</span>',
@@ -68,22 +69,65 @@ function frontierTable(r: SweepResult): string {
       'On the frontier in <span class="unit">(share of soil samples)</span>',
     ],
     rows,
-    'Frontier designs: no other design has less nitrate-N load, fewer aeration-stress days and a lower annual ' +
+    (climate ? `Under ${escapeHtml(climate)}. ` : '') +
+      'Frontier designs: no other design has less nitrate-N load, fewer aeration-stress days and a lower annual ' +
       'cost at once (at the medians across the soil samples). The share of soil samples in which a ' +
       'design stays on the frontier tells how robust its place is to the soil uncertainty.',
   );
 }
 
+/** The climates: how each weather was read or made, its period, precipitation and reference ET. */
+function climateTable(study: ClimateStudy): string {
+  return table(
+    'climate-table',
+    [
+      'Climate',
+      'Weather',
+      'Period',
+      'Precipitation <span class="unit">(mm/yr, mean)</span>',
+      'Reference ET <span class="unit">(mm/yr, mean)</span>',
+    ],
+    study.climates.map(({ name, source, figures: f, result: r }) => [
+      escapeHtml(name),
+      `<span class="text">${escapeHtml(source)}</span>`,
+      `<span class="text">${escapeHtml(r.from)} to ${escapeHtml(r.to)} (${r.years} years)</span>`,
+      num(f.precipMmYr, 0),
+      `${num(f.refEtMmYr, 0)} <span class="chg">${escapeHtml(f.refEtMethod)}</span>`,
+    ]),
+    'Climates: every design and soil sample runs under each. Means over the reported period, ' +
+      'per year of 365.25 days; reference ET at the field’s latitude, as the runs use it.',
+  );
+}
+
+/** Every design on any climate's frontier, with its rank under each and the robust marker. */
+function robustnessTable(study: ClimateStudy): string {
+  const designs = study.climates[0].result.designs;
+  const rows = frontierUnion(study).map((d) => [
+    escapeHtml(String(designs[d].design)),
+    ...study.ranks.map((r) => (r[d] ? String(r[d]) : '–')),
+    study.robust[d] ? '<strong>robust across climates</strong>' : '',
+  ]);
+  return table(
+    'climate-frontier-table',
+    ['Design', ...study.climates.map((c) => `Rank under ${escapeHtml(c.name)}`), 'Holds'],
+    rows,
+    'Designs on the frontier under any climate, with their rank on each climate’s frontier ' +
+      '(lowest median nitrate-N load first; – = dominated under that climate). Robust across ' +
+      'climates: on the frontier under every climate.',
+  );
+}
+
 /**
- * The sweep report as one self-contained HTML page.
+ * The sweep report of a study as one self-contained HTML page.
  *
- * @example writeFileSync('report.html', buildSweepReportHtml(result, buildSweepChartSpecs(result), 'weather.csv'))
+ * @example
+ * const charts = buildStudyChartSpecs(study);
+ * writeFileSync('report.html', buildSweepReportHtml(study, charts));
  */
-export function buildSweepReportHtml(
-  r: SweepResult,
-  specs: Record<string, TopLevelSpec>,
-  weatherFile: string,
-): string {
+export function buildSweepReportHtml(study: ClimateStudy, charts: StudyCharts): string {
+  const several = study.climates.length > 1;
+  const r = study.climates[0].result;
+  const { specs } = charts;
   const { plan } = r;
   const c = plan.costs;
   const cur = escapeHtml(c.currency);
@@ -97,8 +141,10 @@ export function buildSweepReportHtml(
     ['Input', 'Value'],
     [
       ['Field', escapeHtml(plan.field.name)],
-      ['Weather file', escapeHtml(weatherFile)],
-      ['Period', `${escapeHtml(r.from)} to ${escapeHtml(r.to)} (${r.years} years)`],
+      [
+        several ? 'Climates' : 'Climate',
+        escapeHtml(study.climates.map((x) => x.name).join(', ')) + ' (table below)',
+      ],
       ['Drain depths', `${depths.join(', ')} m`],
       ['Lateral spacings', `${spacings.join(', ')} m`],
       ['Outlet managements', escapeHtml(managements.join(', '))],
@@ -152,21 +198,50 @@ export function buildSweepReportHtml(
       `<p>Which drain depth, lateral spacing and outlet management cut the nitrate-N that leaves ` +
         `${escapeHtml(plan.field.name)} through its drains the most, for the least wetness and money, ` +
         `and does that answer hold when the soil values are uncertain?</p>` +
-        `<p>Recommended candidates (frontier designs, lowest load first):</p><ul>` +
-        recommendationLines(r)
-          .map((l) => `<li>${escapeHtml(l)}</li>`)
-          .join('') +
-        '</ul>',
+        (several
+          ? `<p>And does it hold under each of the ${study.climates.length} climates ` +
+            `(${escapeHtml(study.climates.map((x) => x.name).join(', '))})? ` +
+            `${study.robust.filter(Boolean).length} design(s) stay on the frontier under every ` +
+            `climate (section “Under each climate”).</p>`
+          : '') +
+        study.climates
+          .map(
+            (x) =>
+              `<p>Recommended candidates${several ? ` under ${escapeHtml(x.name)}` : ''} ` +
+              `(frontier designs, lowest load first):</p><ul>` +
+              recommendationLines(x.result)
+                .map((l) => `<li>${escapeHtml(l)}</li>`)
+                .join('') +
+              '</ul>',
+          )
+          .join(''),
     ],
-    ['inputs', 'Inputs', inputs + uncertain + costs],
-    ['frontier', 'Ranked frontier', frontierTable(r)],
-    ['charts', 'Charts', chartFigures(Object.keys(specs), SWEEP_CHART_CAPTIONS) + NOSCRIPT_CHARTS],
+    ['inputs', 'Inputs', inputs + climateTable(study) + uncertain + costs],
+    [
+      'frontier',
+      'Ranked frontier',
+      several
+        ? study.climates
+            .map((x) => frontierTable(x.result, `frontier-table-${climateSlug(x.name)}`, x.name))
+            .join('\n')
+        : frontierTable(r, 'frontier-table'),
+    ],
+    ...(several
+      ? [['climates', 'Under each climate', robustnessTable(study)] as [string, string, string]]
+      : []),
+    ['charts', 'Charts', chartFigures(Object.keys(specs), charts.captions) + NOSCRIPT_CHARTS],
     [
       'methods',
       'Methods and assumptions',
       `<ul><li>Every design runs the daily water-balance engine and the nitrate model of a ` +
         `tileflux run over the same weather; the figures are mean annual values over the period, ` +
         `the concentration flow-weighted over the whole period.</li>` +
+        (several
+          ? `<li>Climates: the same designs and soil samples run under each climate's weather; ` +
+            `each climate has its own baseline (the field as given under that weather), changes ` +
+            `and frontier. A design is robust across climates when it is on the frontier under ` +
+            `every one.</li>`
+          : '') +
         `<li>Soil samples: Latin hypercube (McKay, Beckman &amp; Conover 1979): each sampled ` +
         `value's range is cut into as many equally likely strata as there are samples and each ` +
         `stratum is used once; every design meets the same samples, and changes against the field ` +
@@ -191,7 +266,12 @@ export function buildSweepReportHtml(
           ? 'Costs are the ones in the field file; prices, layouts and cost shares vary widely.'
           : 'The costs are illustrative defaults, not prices: replace them with local quotes before ranking designs by cost.',
         'The soil uncertainty covers only the sampled values and their ranges; everything else ' +
-          '(weather, crops, nitrate parameters) is held fixed.',
+          (several
+            ? '(crops, nitrate parameters) is held fixed, and the weather is one of the climates given.'
+            : '(weather, crops, nitrate parameters) is held fixed.'),
+        'A generated or changed climate (weather make --like, --precip-change, --temp-change) is ' +
+          'a scenario chosen by the user with the statistics of a record, not a forecast or a ' +
+          'projection for any place.',
       ]),
     ],
   ];
