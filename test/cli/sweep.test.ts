@@ -3,6 +3,11 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSy
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFieldFile } from '../../src/io/field.js';
+import { toCsv } from '../../src/io/tables.js';
+import { readWeatherFile } from '../../src/io/weather.js';
+import { sweepField } from '../../src/scenarios/sweep.js';
+import { sweepSummary } from '../../src/cli/commands/sweep.js';
 import { cli, expectUserError } from './harness.js';
 
 // Real daily weather, 2012-2015 (vega-datasets weather.csv, New York rows), so the sweeps are small.
@@ -169,5 +174,190 @@ describe('tileflux sweep', () => {
     expect(stderr).toMatch(/stopped by SIGINT; nothing was written/);
     expect(existsSync(out)).toBe(false);
     expect(readdirSync(dir).filter((n) => n.startsWith('.stopped'))).toEqual([]);
+  });
+});
+
+describe('tileflux sweep under several climates', () => {
+  let today: string;
+  let wetter: string;
+  const made = (out: string, change: string[]) => {
+    const r = cli([
+      'weather',
+      'make',
+      '--like',
+      ...WEATHER.slice(1),
+      '--years',
+      '4',
+      '--seed',
+      '3',
+      ...change,
+      '--out',
+      out,
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+  };
+  beforeAll(() => {
+    // Both climates from the generator fitted to the New York record, same seed; the wetter one
+    // with the existing delta change of +20 % precipitation intensity.
+    today = join(dir, 'today.csv');
+    wetter = join(dir, 'wetter.csv');
+    made(today, []);
+    made(wetter, ['--precip-change', '+20%']);
+  });
+  const read = (out: string, name: string) => readFileSync(join(out, name), 'utf8');
+
+  it('under one climate writes what the one-climate sweep gives, with a climate column first', () => {
+    const out = join(dir, 'one');
+    const r = cli([
+      'sweep',
+      field,
+      '--weather',
+      today,
+      '--out',
+      out,
+      '--seed',
+      '4',
+      '--no-charts',
+      '--no-report',
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    // The library's plain sweep of the same field and weather, written as the CLI writes it.
+    const lib = sweepField(readFieldFile(field).base, readWeatherFile(today).series, { seed: 4 });
+    const csvOf = (rows: typeof lib.designs) =>
+      toCsv(
+        rows.map((x) =>
+          Object.fromEntries(
+            Object.entries(x).map(([k, v]) => [k, typeof v === 'boolean' ? String(v) : v]),
+          ),
+        ),
+        'si',
+      );
+    for (const [file, rows] of [
+      ['designs.csv', lib.designs],
+      ['samples.csv', lib.samples],
+    ] as const) {
+      const lines = read(out, file).split('\n');
+      expect(lines[0].startsWith('climate,')).toBe(true);
+      expect(lines.slice(1, -1).every((l) => l.startsWith('today,'))).toBe(true);
+      expect(lines.map((l) => l.slice(l.indexOf(',') + 1)).join('\n')).toBe(csvOf(rows));
+    }
+    const { climates, frontier_by_climate, robust_across_climates, ...rest } = JSON.parse(
+      read(out, 'summary.json'),
+    );
+    expect(rest).toEqual(JSON.parse(JSON.stringify(sweepSummary(lib, 'field.yaml', 'today.csv'))));
+    expect(climates).toHaveLength(1);
+    expect(climates[0].name).toBe('today');
+    expect(climates[0].read_as).toBe('today.csv, format tileflux');
+    expect(robust_across_climates).toEqual(rest.frontier.map((d: { design: string }) => d.design));
+    expect(frontier_by_climate).toHaveLength(rest.frontier.length);
+    expect(r.stdout).toMatch(
+      /climate today: today\.csv, format tileflux; .*precipitation \d+ mm\/yr, reference ET \d+ mm\/yr/,
+    );
+    expect(r.stdout).not.toMatch(/robust across climates/);
+  });
+
+  it('under two climates equals two one-climate sweeps, byte for byte for 1 and 2 workers', () => {
+    const both = (k: string, extra: string[] = []) => {
+      const out = join(dir, `two-w${k}`);
+      const r = cli([
+        'sweep',
+        field,
+        '--weather',
+        `today=${today}`,
+        '--weather',
+        `wetter=${wetter}`,
+        '--out',
+        out,
+        '--seed',
+        '4',
+        '--workers',
+        k,
+        ...extra,
+      ]);
+      expect(r.status, r.stderr).toBe(0);
+      return { out, stdout: r.stdout };
+    };
+    const one = both('1', ['--no-charts']);
+    const two = both('2');
+    for (const n of ['designs.csv', 'samples.csv', 'summary.json']) {
+      expect(read(two.out, n), n).toBe(read(one.out, n));
+    }
+    const charts = files(two.out, 'charts').map((f) => f.replace(/^charts\//, ''));
+    for (const c of [
+      'frontier-today.svg',
+      'load-map-wetter.svg',
+      'cost-per-kg-wetter.png',
+      'climates.svg',
+    ])
+      expect(charts).toContain(c);
+    expect(charts).not.toContain('frontier.svg');
+    // Each climate alone.
+    const alone = (name: string, file: string) => {
+      const out = join(dir, `alone-${name}`);
+      const r = cli([
+        'sweep',
+        field,
+        '--weather',
+        `${name}=${file}`,
+        '--out',
+        out,
+        '--seed',
+        '4',
+        '--no-charts',
+        '--no-report',
+      ]);
+      expect(r.status, r.stderr).toBe(0);
+      return out;
+    };
+    const [a, b] = [alone('today', today), alone('wetter', wetter)];
+    for (const n of ['designs.csv', 'samples.csv']) {
+      const [head, ...rows] = read(two.out, n).trimEnd().split('\n');
+      const of = (out: string) => read(out, n).trimEnd().split('\n');
+      expect([head, ...rows.filter((l) => l.startsWith('today,'))]).toEqual(of(a));
+      expect([head, ...rows.filter((l) => l.startsWith('wetter,'))]).toEqual(of(b));
+    }
+    const s = JSON.parse(read(two.out, 'summary.json'));
+    const sb = JSON.parse(read(b, 'summary.json'));
+    expect(s.climates.map((c: { name: string }) => c.name)).toEqual(['today', 'wetter']);
+    expect(s.climates[1].frontier).toEqual(sb.frontier);
+    expect(s.climates[1].baseline).toEqual(sb.baseline);
+    expect(s.frontier).toEqual(JSON.parse(read(a, 'summary.json')).frontier);
+    expect(s.climates[1].precip_mean_mm_yr).toBeGreaterThan(s.climates[0].precip_mean_mm_yr);
+    for (const d of s.frontier_by_climate)
+      expect(d.robust_across_climates).toBe(d.rank.today !== null && d.rank.wetter !== null);
+    expect(two.stdout).toMatch(/under 2 climates/);
+    expect(two.stdout).toMatch(/climate wetter: wetter\.csv, format tileflux/);
+    expect(two.stdout).toMatch(/Recommended candidates under wetter/);
+    expect(two.stdout).toMatch(/^ +design +today +wetter$/m);
+    const html = read(two.out, 'report.html');
+    for (const id of [
+      'climate-table',
+      'climate-frontier-table',
+      'frontier-table-today',
+      'frontier-table-wetter',
+    ])
+      expect(html).toContain(`id="${id}"`);
+    expect(html).toMatch(/not a forecast or a projection/);
+  });
+
+  it('refuses repeated names and malformed --weather values in one line', () => {
+    expectUserError(
+      ['sweep', field, '--weather', `a=${today}`, '--weather', `A=${wetter}`],
+      /--weather: climate name "A" is given twice/,
+    );
+    expectUserError(
+      ['sweep', field, '--weather', today, '--weather', today],
+      /"today" is given twice/,
+    );
+    expectUserError(
+      ['sweep', field, '--weather', `=${today}`],
+      /--weather expects FILE or NAME=FILE/,
+    );
+    expectUserError(['sweep', field, '--weather', 'wet='], /--weather expects FILE or NAME=FILE/);
+    expectUserError(
+      ['sweep', field, '--weather', `to day=${today}`],
+      /climate name "to day" is not accepted/,
+    );
+    expectUserError(['sweep', field, '--weather', `x=${join(dir, 'missing.csv')}`], /missing\.csv/);
   });
 });

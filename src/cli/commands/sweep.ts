@@ -162,7 +162,9 @@ export function studySummary(s: ClimateStudy, fieldFile: string, files: readonly
       rank: Object.fromEntries(s.climates.map((c, k) => [c.name, s.ranks[k][d] || null])),
       robust_across_climates: s.robust[d],
     })),
-    robust_across_climates: designs.filter((_, d) => s.robust[d]).map((d) => d.design),
+    robust_across_climates: frontierUnion(s)
+      .filter((d) => s.robust[d])
+      .map((d) => designs[d].design),
     caution,
   };
 }
