@@ -258,10 +258,9 @@ export function registerSweep(program: Command): void {
         '      --export-units standard --out study-us --samples 40 --seed 7\n' +
         '  A quick look on the demo field with two workers:\n' +
         '    tileflux sweep data-demo/field.yaml --weather data-demo/weather.csv --out quick --samples 8 --workers 2\n' +
-        "  The same designs under today's weather and a wetter, warmer climate made from it\n" +
-        '  (the changes are a scenario you choose, not a projection):\n' +
-        '    tileflux weather make --like data-demo/weather.csv --years 30 --seed 1 \\\n' +
-        '      --precip-change +20% --temp-change +2C --out wetter.csv\n' +
+        "  The same designs under today's weather and a wetter, warmer climate made from it by\n" +
+        '  weather make --like data-demo/weather.csv --years 30 --seed 1 --precip-change +20%\n' +
+        '  --temp-change +2C --out wetter.csv (a scenario you choose, not a projection):\n' +
         '    tileflux sweep data-demo/field.yaml --weather today=data-demo/weather.csv \\\n' +
         '      --weather wetter=wetter.csv --out climates --samples 8\n\n' +
         CAUTION,
