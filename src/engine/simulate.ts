@@ -68,14 +68,26 @@ export const MAX_SUBSTEPS_PER_DAY = 20000;
 /** Largest annual water-balance residual tolerated (README, A short tour: 1e-6 mm a year), mm. */
 export const BALANCE_TOLERANCE_MM = 1e-6;
 
-interface OutletLevel {
+/** An outlet level's coefficients (see `outletLevels`). */
+export interface OutletLevel {
   depthM: number;
+  /** Air volume above the outlet level, mm: the drains do not lower the water table below it. */
+  outletAir: number;
   /** Hooghoudt coefficients: q (m/d) = a h + b h^2. */
   a: number;
   b: number;
   /** Kirkham's ponded rate is linear in the pond depth t (m): q (m/d) = k0 + k1 t. */
   kirkham0: number;
   kirkham1: number;
+  /**
+   * Without recharge the roots and the decay factor of a drain step depend only on the step
+   * length and the porosity: the last pair's values, reused while they repeat (dry spells).
+   */
+  dryDt: number;
+  dryMu: number;
+  dryH1: number;
+  dryH2: number;
+  dryE: number;
 }
 
 /**
@@ -110,10 +122,26 @@ function drainStep(
     const hEq = A > 0 ? r / A : Infinity;
     hEnd = A > 0 ? hEq + (h0 - hEq) * Math.exp((-A * dt) / mu) : h0 + (r * dt) / mu;
   } else {
-    const root = Math.sqrt(A * A + 4 * B * r);
-    const h1 = (-A + root) / (2 * B);
-    const h2 = (-A - root) / (2 * B);
-    const e = Math.exp((-B * (h1 - h2) * dt) / mu);
+    let h1: number;
+    let h2: number;
+    let e: number;
+    if (r === 0 && dt === lv.dryDt && mu === lv.dryMu) {
+      h1 = lv.dryH1;
+      h2 = lv.dryH2;
+      e = lv.dryE;
+    } else {
+      const root = Math.sqrt(A * A + 4 * B * r);
+      h1 = (-A + root) / (2 * B);
+      h2 = (-A - root) / (2 * B);
+      e = Math.exp((-B * (h1 - h2) * dt) / mu);
+      if (r === 0) {
+        lv.dryDt = dt;
+        lv.dryMu = mu;
+        lv.dryH1 = h1;
+        lv.dryH2 = h2;
+        lv.dryE = e;
+      }
+    }
     const c = (h0 - h1) / (h0 - h2);
     hEnd = (h1 - c * h2 * e) / (1 - c * e);
   }
@@ -123,6 +151,65 @@ function drainStep(
   // Outflow = what left the saturated zone: the air gained plus the recharge received.
   const dq = airEnd - air + recharge;
   return Math.min(dq, outletAir - air + recharge);
+}
+
+/**
+ * The outlet levels of a layout, each computed on first use and kept: for an outlet depth (the
+ * drain depth when free), the Hooghoudt coefficients of the layer below it and Kirkham's ponded
+ * rate. Exported for the engine benchmark's C yardstick, which runs on the same coefficients.
+ *
+ * @example outletLevels(params, porosityTable(params.porosity, params.barrierDepthM))(1.1).a
+ */
+export function outletLevels(
+  p: EngineParams,
+  table: PorosityTable,
+): (depthM: number) => OutletLevel {
+  const L2 = p.spacingM * p.spacingM;
+  // Kirkham's geometry factor depends on the pipe layout only: one series for the whole run.
+  const kirkhamG = kirkhamGeometryFactor({
+    drainDepthM: p.drainDepthM,
+    layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
+    drainRadiusM: p.drainRadiusM,
+    spacingM: p.spacingM,
+  });
+  // The drains stay at their depth; a raised outlet sets the head in the pipe (kirkham.ts).
+  const kirkhamAt = (outletDepthM: number, pondM: number) =>
+    kirkhamFlux({
+      kMPerDay: p.kAboveMPerDay,
+      pondedDepthM: pondM,
+      drainDepthM: p.drainDepthM,
+      drainRadiusM: p.drainRadiusM,
+      spacingM: p.spacingM,
+      geometryFactor: kirkhamG,
+      outletDepthM,
+    });
+
+  const levels = new Map<number, OutletLevel>();
+  return (depth: number): OutletLevel => {
+    let lv = levels.get(depth);
+    if (!lv) {
+      const below = p.barrierDepthM - depth;
+      const d =
+        below > p.drainRadiusM
+          ? equivalentDepth(p.spacingM, below, p.drainRadiusM, p.equivalentDepthMethod)
+          : 0;
+      lv = {
+        depthM: depth,
+        outletAir: airAbove(table, depth),
+        a: (8 * p.kBelowMPerDay * d) / L2,
+        b: (4 * p.kAboveMPerDay) / L2,
+        kirkham0: kirkhamAt(depth, 0),
+        kirkham1: kirkhamAt(depth, 1) - kirkhamAt(depth, 0),
+        dryDt: NaN,
+        dryMu: NaN,
+        dryH1: 0,
+        dryH2: 0,
+        dryE: 0,
+      };
+      levels.set(depth, lv);
+    }
+    return lv;
+  };
 }
 
 /**
@@ -146,45 +233,7 @@ export function simulate(
   const table = porosityTable(p.porosity, p.barrierDepthM);
   const L2 = p.spacingM * p.spacingM;
 
-  // Kirkham's geometry factor depends on the pipe layout only: one series for the whole run.
-  const kirkhamG = kirkhamGeometryFactor({
-    drainDepthM: p.drainDepthM,
-    layerBelowDrainsM: p.barrierDepthM - p.drainDepthM,
-    drainRadiusM: p.drainRadiusM,
-    spacingM: p.spacingM,
-  });
-  // The drains stay at their depth; a raised outlet sets the head in the pipe (kirkham.ts).
-  const kirkhamAt = (outletDepthM: number, pondM: number) =>
-    kirkhamFlux({
-      kMPerDay: p.kAboveMPerDay,
-      pondedDepthM: pondM,
-      drainDepthM: p.drainDepthM,
-      drainRadiusM: p.drainRadiusM,
-      spacingM: p.spacingM,
-      geometryFactor: kirkhamG,
-      outletDepthM,
-    });
-
-  const levels = new Map<number, OutletLevel>();
-  const levelFor = (depth: number): OutletLevel => {
-    let lv = levels.get(depth);
-    if (!lv) {
-      const below = p.barrierDepthM - depth;
-      const d =
-        below > p.drainRadiusM
-          ? equivalentDepth(p.spacingM, below, p.drainRadiusM, p.equivalentDepthMethod)
-          : 0;
-      lv = {
-        depthM: depth,
-        a: (8 * p.kBelowMPerDay * d) / L2,
-        b: (4 * p.kAboveMPerDay) / L2,
-        kirkham0: kirkhamAt(depth, 0),
-        kirkham1: kirkhamAt(depth, 1) - kirkhamAt(depth, 0),
-      };
-      levels.set(depth, lv);
-    }
-    return lv;
-  };
+  const levelFor = outletLevels(p, table);
   const free = levelFor(p.drainDepthM);
 
   // Sub-steps: enough that the drains change the head by at most MAX_RELATIVE_STEP per step
@@ -243,14 +292,22 @@ export function simulate(
   const years = (forcing.days ?? dayIndexOf(forcing.dates)).year;
   let year = years[0];
 
+  // The inner loops read constants and columns from locals, not from the parameter objects.
+  const { rainMm, snowmeltMm, sweMm, precipMm, refEtMm } = forcing;
+  const { kc, depletionFraction } = calendar;
+  const { capillaryDecayM, surfaceStorageMm, barrierDepthM, seepageMmPerDay } = p;
+  const { kAboveMPerDay, capacityMmPerDay, drainDepthM } = p;
+  const seepageConductance = p.seepageConductanceMmPerDayPerM;
+  const maxAirMm = table.maxAirMm;
+
   for (let i = 0; i < n; i++) {
-    const waterIn = forcing.rainMm[i] + forcing.snowmeltMm[i];
-    const snowCovered = forcing.sweMm[i] > 0;
-    const cropEt = snowCovered ? 0 : calendar.kc[i] * forcing.refEtMm[i];
-    const pDepl = calendar.depletionFraction[i];
+    const waterIn = rainMm[i] + snowmeltMm[i];
+    const snowCovered = sweMm[i] > 0;
+    const cropEt = snowCovered ? 0 : kc[i] * refEtMm[i];
+    const pDepl = depletionFraction[i];
     const ctrl = outletDepthM[i];
-    const lv = Number.isNaN(ctrl) || ctrl >= p.drainDepthM ? free : levelFor(Math.max(0, ctrl));
-    const outletAir = airAbove(table, lv.depthM);
+    const lv = Number.isNaN(ctrl) || ctrl >= drainDepthM ? free : levelFor(Math.max(0, ctrl));
+    const outletAir = lv.outletAir;
 
     const rootZoneDepthM = rootDepth ? rootDepth[i] : p.rootZoneDepthM;
     const taw = tawPerM * rootZoneDepthM;
@@ -266,8 +323,8 @@ export function simulate(
 
     const nSteps = waterIn > 0 || surface > 0 ? steps : dryDaySteps;
     const dt = 1 / nSteps;
-    const infiltrationCapMm = p.kAboveMPerDay * 1000 * dt;
-    const capacityMm = p.capacityMmPerDay * dt;
+    const infiltrationCapMm = kAboveMPerDay * 1000 * dt;
+    const capacityMm = capacityMmPerDay * dt;
     for (let s = 0; s < nSteps; s++) {
       // Rain and melt reach the surface; the profile takes what it has room for, refilling the
       // root zone first; the rest recharges the saturated zone over this sub-step.
@@ -287,8 +344,9 @@ export function simulate(
       demand -= evap;
       const wtd = depthForAir(table, air);
       const below = wtd - rootZoneDepthM;
-      const share = below <= 0 ? 1 : Math.exp(-below / p.capillaryDecayM);
-      const fromTable = Math.min(demand * share, table.maxAirMm - air);
+      // (Without demand left the share does not matter: its exponential is skipped.)
+      const share = below <= 0 || !(demand > 0) ? 1 : Math.exp(-below / capillaryDecayM);
+      const fromTable = Math.min(demand * share, maxAirMm - air);
       air += fromTable;
       demand -= fromTable;
       let ks = 1;
@@ -334,17 +392,17 @@ export function simulate(
       // Seepage while there is saturated soil above the restrictive layer: the constant and
       // head-proportional deep terms, vertical leakage to the regional head and lateral
       // seepage to the field edge (seepage.ts).
-      if (air < table.maxAirMm && hasSeepage) {
+      if (air < maxAirMm && hasSeepage) {
         const wt = depthForAir(table, air);
-        const headAboveBarrier = p.barrierDepthM - wt;
-        let rate = p.seepageMmPerDay + p.seepageConductanceMmPerDayPerM * headAboveBarrier;
+        const headAboveBarrier = barrierDepthM - wt;
+        let rate = seepageMmPerDay + seepageConductance * headAboveBarrier;
         let side = 0;
         if (sp !== undefined) {
-          rate += verticalSeepageMmPerDay(wt, p.barrierDepthM, sp);
-          side = lateralSeepageMmPerDay(wt, p.barrierDepthM, sp);
+          rate += verticalSeepageMmPerDay(wt, barrierDepthM, sp);
+          side = lateralSeepageMmPerDay(wt, barrierDepthM, sp);
           rate += side;
         }
-        const ds = Math.min(rate * dt, table.maxAirMm - air);
+        const ds = Math.min(rate * dt, maxAirMm - air);
         air += ds;
         seep += ds;
         if (side > 0) lateral += (ds * side) / rate;
@@ -366,17 +424,17 @@ export function simulate(
       }
 
       // Surface water above the depression storage runs off.
-      if (surface > p.surfaceStorageMm) {
-        runoff += surface - p.surfaceStorageMm;
-        surface = p.surfaceStorageMm;
+      if (surface > surfaceStorageMm) {
+        runoff += surface - surfaceStorageMm;
+        surface = surfaceStorageMm;
       }
     }
 
     const wtd = depthForAir(table, air);
     const storeEnd = -(air + depletion) + surface;
-    const swe = forcing.sweMm[i];
+    const swe = sweMm[i];
     const err =
-      forcing.precipMm[i] - et - runoff - drain - seep - (storeEnd - storeStart) - (swe - swePrev);
+      precipMm[i] - et - runoff - drain - seep - (storeEnd - storeStart) - (swe - swePrev);
     swePrev = swe;
 
     out.etMm[i] = et;

@@ -24,5 +24,8 @@ export function saturationFactor(
 ): number {
   const s = saturatedFraction > 1 ? 1 : saturatedFraction;
   if (!(s > threshold)) return 0;
-  return Math.pow((s - threshold) / (1 - threshold), exponent);
+  const r = (s - threshold) / (1 - threshold);
+  // The default square without the library call: IEEE multiplication rounds r * r correctly, and
+  // Math.pow(r, 2) returns the same double (a test checks it).
+  return exponent === 2 ? r * r : Math.pow(r, exponent);
 }

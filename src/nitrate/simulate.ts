@@ -10,27 +10,36 @@ import { ratingConcentration } from './rating.js';
 import { seasonalConcentration } from './seasonal.js';
 import type { NitrateConfig, NitrateInput, NitrateResult } from './types.js';
 
+/**
+ * Weather and calendar series already found finite. They are shared read-only by every run over
+ * a prepared field (a sweep runs thousands), so each is checked once; the flows of every run are
+ * checked each time.
+ */
+const checkedShared = new WeakSet<ArrayLike<number>>();
+
 /** Every daily series must have one finite value per date (the engine's contract). */
 function checkInput(input: NitrateInput): void {
   const n = input.dates.length;
-  const series: Array<[string, ArrayLike<number>]> = [
-    ['drainflowMm', input.drainflowMm],
-    ['runoffMm', input.runoffMm],
-    ['seepageMm', input.seepageMm],
-    ['tmeanC', input.tmeanC],
-    ['saturatedFraction', input.saturatedFraction],
-    ['waterTableDepthM', input.waterTableDepthM],
-    ['calendar.crop', input.calendar.crop],
-    ['calendar.seasonFraction', input.calendar.seasonFraction],
+  const series: Array<[string, ArrayLike<number>, boolean]> = [
+    ['drainflowMm', input.drainflowMm, false],
+    ['runoffMm', input.runoffMm, false],
+    ['seepageMm', input.seepageMm, false],
+    ['tmeanC', input.tmeanC, true],
+    ['saturatedFraction', input.saturatedFraction, false],
+    ['waterTableDepthM', input.waterTableDepthM, false],
+    ['calendar.crop', input.calendar.crop, true],
+    ['calendar.seasonFraction', input.calendar.seasonFraction, true],
   ];
-  for (const [name, s] of series) {
+  for (const [name, s, shared] of series) {
     if (s.length !== n)
       throw new RangeError(`nitrate input ${name} has ${s.length} days, dates ${n}`);
+    if (shared && checkedShared.has(s)) continue;
     for (let i = 0; i < n; i++) {
       if (!Number.isFinite(s[i])) {
         throw new RangeError(`nitrate input ${name} is not finite on ${input.dates[i]}: ${s[i]}`);
       }
     }
+    if (shared) checkedShared.add(s);
   }
 }
 

@@ -68,9 +68,6 @@ export function annualRows(
   end: number,
 ): AnnualRow[] {
   const rows: AnnualRow[] = [];
-  let row: AnnualRow | undefined;
-  let storagePrev = 0;
-  let wtSum = 0;
   const days = forcing.days ?? dayIndexOf(r.dates);
   const growing = windowKeys(w.growingSeason);
   const springWindow = windowKeys(w.springWindow);
@@ -90,116 +87,125 @@ export function annualRows(
     layerDepletionCapacityMm(soil, w.surfaceLayer),
   );
   const workableAtOrBelow = w.trafficabilityLimit * soil.fieldCapacity;
-  const close = () => {
-    if (!row) return;
-    row.wt_mean_depth_m = wtSum / row.days;
-    rows.push(row);
-  };
-  for (let i = start; i < end; i++) {
-    const year = days.year[i];
-    if (!row || row.year !== year) {
-      close();
-      // Storage at the start of the year: soil + ponded water + snow at the end of the day before.
-      storagePrev =
-        i > 0
-          ? r.soilStorageMm[i - 1] + r.pondedMm[i - 1] + forcing.sweMm[i - 1]
-          : r.soilStorageMm[0] +
-            r.pondedMm[0] +
-            forcing.sweMm[0] -
-            forcing.precipMm[0] +
-            r.etMm[0] +
-            r.runoffMm[0] +
-            r.drainflowMm[0] +
-            r.seepageMm[0] +
-            r.balanceErrorMm[0];
-      wtSum = 0;
-      row = {
-        scenario,
-        year,
-        days: 0,
-        drainflow_mm: 0,
-        runoff_mm: 0,
-        seepage_mm: 0,
-        et_mm: 0,
-        no3n_load_kg_ha: 0,
-        fwmc_mg_l: 0,
-        runoff_n_kg_ha: 0,
-        seepage_n_kg_ha: 0,
-        aeration_stress_days: 0,
-        aeration_deficit_days: 0,
-        stress_days: 0,
-        wet_days: 0,
-        spring_fieldwork_days: 0,
-        spring_window_days: 0,
-        fall_fieldwork_days: 0,
-        fall_window_days: 0,
-        wt_mean_depth_m: 0,
-        wt_shallowest_depth_m: Infinity,
-        precip_mm: 0,
-        snowmelt_mm: 0,
-        ref_et_mm: 0,
-        storage_change_mm: 0,
-        balance_error_mm: 0,
-        n_balance_error_kg_ha: 0,
-      };
-    }
-    const md = days.monthDay[i];
-    const wtd = r.waterTableDepthM[i];
-    row.days++;
-    row.precip_mm += forcing.precipMm[i];
-    row.snowmelt_mm += forcing.snowmeltMm[i];
-    row.ref_et_mm += forcing.refEtMm[i];
-    row.et_mm += r.etMm[i];
-    row.runoff_mm += r.runoffMm[i];
-    row.drainflow_mm += r.drainflowMm[i];
-    row.seepage_mm += r.seepageMm[i];
-    row.balance_error_mm += r.balanceErrorMm[i];
-    const storage = r.soilStorageMm[i] + r.pondedMm[i] + forcing.sweMm[i];
-    row.storage_change_mm = storage - storagePrev;
-    wtSum += wtd;
-    if (wtd < row.wt_shallowest_depth_m) row.wt_shallowest_depth_m = wtd;
-    const j = i - start;
-    if (inWindowKeys(md, growing)) {
-      if (wtd < w.threshold) row.wet_days++;
-      const air = airFilledPorosity(table, w.aerationLayer, wtd, aerationDepletion[j]);
-      if (air < w.aerationThreshold) {
-        row.aeration_stress_days++;
-        row.aeration_deficit_days += (w.aerationThreshold - air) / w.aerationThreshold;
-      }
-      if (r.ks[i] < 1 - 1e-9) row.stress_days++;
-    }
-    const spring = inWindowKeys(md, springWindow);
-    const fall = inWindowKeys(md, fallWindow);
-    if (spring || fall) {
-      const theta = surfaceWaterContent(
-        table,
-        w.surfaceLayer,
-        soil.fieldCapacity,
-        wtd,
-        surfaceDepletion[j],
-      );
-      const workable =
-        theta <= workableAtOrBelow + 1e-12 && r.pondedMm[i] <= 0 && forcing.sweMm[i] <= 0;
-      if (spring) {
-        row.spring_window_days++;
-        if (workable) row.spring_fieldwork_days++;
-      }
-      if (fall) {
-        row.fall_window_days++;
-        if (workable) row.fall_fieldwork_days++;
-      }
-    }
-  }
-  close();
+  const { precipMm, snowmeltMm, refEtMm, sweMm } = forcing;
+  const { etMm, runoffMm, drainflowMm, seepageMm, balanceErrorMm } = r;
+  const { soilStorageMm, pondedMm, waterTableDepthM, ks } = r;
+  // The nitrate columns come from the nitrate module's own yearly sums.
   const nitrate = annualNitrate(days.year, r.drainflowMm, no3, start, end);
-  rows.forEach((y, k) => {
-    const n = nitrate[k];
-    y.no3n_load_kg_ha = n.no3n_load_kg_ha;
-    y.fwmc_mg_l = n.fwmc_mg_l;
-    y.runoff_n_kg_ha = n.runoff_n_kg_ha;
-    y.seepage_n_kg_ha = n.seepage_n_kg_ha;
-    y.n_balance_error_kg_ha = n.n_balance_error_kg_ha;
-  });
+  // One year at a time, its sums in local variables (a daily loop over the fields of a row
+  // object costs several times more), made into a row at the year's end.
+  for (let first = start; first < end;) {
+    const year = days.year[first];
+    let last = first;
+    while (last < end && days.year[last] === year) last++;
+    // Storage at the start of the year: soil + ponded water + snow at the end of the day before.
+    const storagePrev =
+      first > 0
+        ? soilStorageMm[first - 1] + pondedMm[first - 1] + sweMm[first - 1]
+        : soilStorageMm[0] +
+          pondedMm[0] +
+          sweMm[0] -
+          precipMm[0] +
+          etMm[0] +
+          runoffMm[0] +
+          drainflowMm[0] +
+          seepageMm[0] +
+          balanceErrorMm[0];
+    let wtSum = 0;
+    let wtMin = Infinity;
+    let precip = 0;
+    let snowmelt = 0;
+    let refEt = 0;
+    let et = 0;
+    let runoff = 0;
+    let drainflow = 0;
+    let seepage = 0;
+    let balance = 0;
+    let wet = 0;
+    let aerationStress = 0;
+    let aerationDeficit = 0;
+    let stress = 0;
+    let springDays = 0;
+    let springWork = 0;
+    let fallDays = 0;
+    let fallWork = 0;
+    for (let i = first; i < last; i++) {
+      const md = days.monthDay[i];
+      const wtd = waterTableDepthM[i];
+      precip += precipMm[i];
+      snowmelt += snowmeltMm[i];
+      refEt += refEtMm[i];
+      et += etMm[i];
+      runoff += runoffMm[i];
+      drainflow += drainflowMm[i];
+      seepage += seepageMm[i];
+      balance += balanceErrorMm[i];
+      wtSum += wtd;
+      if (wtd < wtMin) wtMin = wtd;
+      const j = i - start;
+      if (inWindowKeys(md, growing)) {
+        if (wtd < w.threshold) wet++;
+        const air = airFilledPorosity(table, w.aerationLayer, wtd, aerationDepletion[j]);
+        if (air < w.aerationThreshold) {
+          aerationStress++;
+          aerationDeficit += (w.aerationThreshold - air) / w.aerationThreshold;
+        }
+        if (ks[i] < 1 - 1e-9) stress++;
+      }
+      const spring = inWindowKeys(md, springWindow);
+      const fall = inWindowKeys(md, fallWindow);
+      if (spring || fall) {
+        const theta = surfaceWaterContent(
+          table,
+          w.surfaceLayer,
+          soil.fieldCapacity,
+          wtd,
+          surfaceDepletion[j],
+        );
+        const workable = theta <= workableAtOrBelow + 1e-12 && pondedMm[i] <= 0 && sweMm[i] <= 0;
+        if (spring) {
+          springDays++;
+          if (workable) springWork++;
+        }
+        if (fall) {
+          fallDays++;
+          if (workable) fallWork++;
+        }
+      }
+    }
+    const n = nitrate[rows.length];
+    const storage = soilStorageMm[last - 1] + pondedMm[last - 1] + sweMm[last - 1];
+    rows.push({
+      scenario,
+      year,
+      days: last - first,
+      drainflow_mm: drainflow,
+      runoff_mm: runoff,
+      seepage_mm: seepage,
+      et_mm: et,
+      no3n_load_kg_ha: n.no3n_load_kg_ha,
+      fwmc_mg_l: n.fwmc_mg_l,
+      runoff_n_kg_ha: n.runoff_n_kg_ha,
+      seepage_n_kg_ha: n.seepage_n_kg_ha,
+      aeration_stress_days: aerationStress,
+      aeration_deficit_days: aerationDeficit,
+      stress_days: stress,
+      wet_days: wet,
+      spring_fieldwork_days: springWork,
+      spring_window_days: springDays,
+      fall_fieldwork_days: fallWork,
+      fall_window_days: fallDays,
+      wt_mean_depth_m: wtSum / (last - first),
+      wt_shallowest_depth_m: wtMin,
+      precip_mm: precip,
+      snowmelt_mm: snowmelt,
+      ref_et_mm: refEt,
+      storage_change_mm: storage - storagePrev,
+      balance_error_mm: balance,
+      n_balance_error_kg_ha: n.n_balance_error_kg_ha,
+    });
+    first = last;
+  }
   return rows;
 }
 

@@ -208,12 +208,14 @@ export function runField(
     return runPreparedScenario(period, prepareScenario(period, spec));
   });
   const names = new Set(specs.map((s) => s.name));
+  // The band needs only annual rows: each band scenario runs on the same prepared field (forcing,
+  // calendars and outlet series shared), without cutting daily columns to the reported period.
   const bandOf = (band: SeepageBand): AnnualRow[] =>
     band === field.base.seepage
       ? scenarios.flatMap((s) => s.annual)
       : scenariosOf(field, band, o.units)
           .filter((spec) => names.has(spec.name))
-          .flatMap((spec) => runPreparedScenario(period, prepareScenario(period, spec)).annual);
+          .flatMap((spec) => runDesign(period, spec).annual);
   const seepageBand =
     o.seepageBand === false
       ? undefined
