@@ -6,7 +6,7 @@
  */
 import { existsSync, renameSync, rmSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
-import { DuckDBInstance, type DuckDBAppender, type DuckDBConnection } from '@duckdb/node-api';
+import type { DuckDBAppender, DuckDBConnection, DuckDBInstance } from '@duckdb/node-api';
 import type { BatchColumn, BatchColumnType, BatchRow, JobRows } from '../scenarios/batch.js';
 import { BATCH_ANNUAL_COLUMNS, BATCH_SUMMARY_COLUMNS } from '../scenarios/batch.js';
 
@@ -50,6 +50,9 @@ export class BatchStore {
 
   /** An empty store (an in-memory database with the annual and summary tables). */
   static async open(): Promise<BatchStore> {
+    // Loaded on first use: the native library takes about 0.4 s of CPU to load, which every other
+    // command (and --help) would pay if it were imported with this module.
+    const { DuckDBInstance } = await import('@duckdb/node-api');
     const db = await DuckDBInstance.create(':memory:');
     const con = await db.connect();
     for (const [name, cols] of Object.entries(TABLES)) {
