@@ -37,5 +37,7 @@ export * from './scenarios/economics.js';
 export * from './scenarios/sampling.js';
 export * from './scenarios/frontier.js';
 export * from './report/charts.js';
+export { CHART_WIDTH, CONFIG, PALETTE, VEGA_LITE_SCHEMA, roundTo } from './report/chartTheme.js';
+export { temporalX } from './report/chartSeries.js';
 export * from './report/types.js';
 export { fixed, signed } from './report/format.js';
