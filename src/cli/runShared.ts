@@ -24,7 +24,7 @@ import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
-import { writeRunFolder } from '../report/writeRun.js';
+import { writeRunFolder, type RunFolderOptions } from '../report/writeRun.js';
 export interface RunCommandOptions extends WeatherReadFlags {
   weather: string;
   out?: string;
@@ -237,14 +237,7 @@ export function writeRunFolderOf(
   meta: RunMeta,
   out: string,
   units: UnitSystem,
-  o: {
-    force?: boolean;
-    charts?: boolean;
-    report?: boolean;
-    year?: string;
-    daily?: string;
-    explorerHtml?: () => string;
-  },
+  o: Omit<RunFolderOptions, 'chartYear' | 'daily'> & { year?: string; daily?: string },
 ) {
   return writeRunFolder(run, meta, out, units, {
     force: o.force,

@@ -15,6 +15,20 @@ import { buildChartSpecs } from './charts.js';
 import { writeCharts, writeReport } from './index.js';
 import { reportDataOf } from './reportData.js';
 
+/** What `writeRunFolder` writes besides the tables. */
+export interface RunFolderOptions {
+  /** Replace an existing tileflux output folder. */
+  force?: boolean;
+  charts?: boolean;
+  report?: boolean;
+  /** Year of the water-table and hydrograph charts (default the wettest year). */
+  chartYear?: number;
+  /** Write daily.csv (default true; false for large studies). */
+  daily?: boolean;
+  /** The explorer page to write beside the report (explorer.html); none when absent. */
+  explorerHtml?: () => string;
+}
+
 /**
  * Write a run's output folder atomically, as `tileflux run` does: daily.csv, annual.csv,
  * comparison.csv, summary.json, and unless switched off charts/ and report.html (and
@@ -27,17 +41,7 @@ export async function writeRunFolder(
   meta: RunMeta,
   out: string,
   units: UnitSystem,
-  o: {
-    force?: boolean;
-    charts?: boolean;
-    report?: boolean;
-    /** Year of the water-table and hydrograph charts (default the wettest year). */
-    chartYear?: number;
-    /** Write daily.csv (default true; false for large studies). */
-    daily?: boolean;
-    /** The explorer page to write beside the report (explorer.html); none when absent. */
-    explorerHtml?: () => string;
-  },
+  o: RunFolderOptions,
 ): Promise<{
   summary: ReturnType<typeof buildSummary>;
   written: string[];
