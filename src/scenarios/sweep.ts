@@ -16,7 +16,7 @@
  */
 import { quantileSorted } from 'simple-statistics';
 import type { z } from 'zod';
-import { TilefluxError } from '../errors.js';
+import { SettingError, TilefluxError } from '../errors.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { designCost, type DesignCost } from './economics.js';
 import { soilSchema, type Field } from './fieldSchema.js';
@@ -138,7 +138,9 @@ export function planSweep(field: Field, o: SweepOptions = {}): SweepPlan {
   const seed = o.seed ?? 1;
   const nSamples = o.samples ?? sw.samples;
   if (!(Number.isInteger(nSamples) && nSamples >= 1 && nSamples <= 10000)) {
-    throw new TilefluxError(`--samples expects a whole number from 1 to 10000; got ${nSamples}`);
+    throw new SettingError(
+      (n) => `${n('samples')} expects a whole number from 1 to 10000; got ${nSamples}`,
+    );
   }
   const managements = Object.entries(sw.outlet) as Array<[string, Field['outlet']]>;
   const key = (x: unknown) => JSON.stringify(x);

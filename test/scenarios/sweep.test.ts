@@ -161,6 +161,16 @@ describe('sweep plan', () => {
   });
 });
 
+describe('the sample count', () => {
+  it('is refused outside 1 to 10000 with the setting named as the library calls it', () => {
+    const f = parseField(FIELD + 'sweep: { depth: [1.1 m], spacing: [18 m] }\n').base;
+    // The library names its own setting; the command line maps it to --samples.
+    expect(() => planSweep(f, { samples: 0 })).toThrow(/^samples expects a whole number/);
+    expect(() => planSweep(f, { samples: 10001 })).toThrow(/from 1 to 10000; got 10001/);
+    expect(() => planSweep(f, { samples: 2.5 })).toThrow(/got 2\.5/);
+  });
+});
+
 describe('a sweep', () => {
   it('of one design gives the same numbers as run of that design', () => {
     const f = parseField(FIELD + 'sweep: { depth: [1.1 m], spacing: [18 m] }\n');
