@@ -31,6 +31,7 @@ import {
   weatherReadOptions,
   type WeatherReadFlags,
 } from '../weatherOptions.js';
+import { summaryOf } from '../catalog.js';
 
 interface BatchCommandOptions extends WeatherReadFlags {
   out: string;
@@ -106,7 +107,7 @@ function checkAll(
 export function registerBatch(program: Command): void {
   const cmd = program
     .command('batch')
-    .summary('run many fields from a manifest CSV, sharded across machines, into Parquet')
+    .summary(summaryOf('batch'))
     .description(
       'Run every job of a manifest CSV (one row per job: id, field, weather, optional ' +
         `scenarios separated by ${SCENARIO_SEPARATOR}, optional columns named by field-file keys ` +

@@ -7,6 +7,7 @@ import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import { action, emit, CAUTION, parseUnits } from '../common.js';
 import { runFromFiles, runReport, writeRunFolderOf } from '../runShared.js';
+import { summaryOf } from '../catalog.js';
 
 /** The bundled demo files, found relative to this module (works from a clone or an install). */
 export const DEMO_FIELD = fileURLToPath(new URL('../../../data-demo/field.yaml', import.meta.url));
@@ -17,7 +18,7 @@ export const DEMO_WEATHER = fileURLToPath(
 export function registerDemo(program: Command): void {
   program
     .command('demo')
-    .summary('compare drainage alternatives on the bundled demo field (start here)')
+    .summary(summaryOf('demo'))
     .description(
       'Run the comparison on the bundled demo: an invented field on an invented farm with 30 years ' +
         'of synthetic weather, under conventional, shallow and controlled drainage. Writes the ' +

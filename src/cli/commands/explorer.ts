@@ -15,6 +15,7 @@ import {
   weatherReadOptions,
   type WeatherReadFlags,
 } from '../weatherOptions.js';
+import { summaryOf } from '../catalog.js';
 
 interface ExplorerOptions extends WeatherReadFlags {
   weather: string;
@@ -27,7 +28,7 @@ interface ExplorerOptions extends WeatherReadFlags {
 export function registerExplorer(program: Command): void {
   const cmd = program
     .command('explorer')
-    .summary('write an interactive page that reruns two designs in the browser')
+    .summary(summaryOf('explorer'))
     .description(
       'Write one self-contained HTML page (no network; opens from a file on a laptop or tablet) ' +
         'holding the field, the weather record and the engine. Design A is the field file as ' +

@@ -39,6 +39,7 @@ import {
   weatherReadOptions,
   type WeatherReadFlags,
 } from '../weatherOptions.js';
+import { summaryOf } from '../catalog.js';
 
 export interface FitCommandOptions extends WeatherReadFlags {
   weather: string;
@@ -171,7 +172,7 @@ function headerLines(doc: FitDocument, r: FitResult): string[] {
 export function registerFit(program: Command): void {
   const cmd = program
     .command('fit')
-    .summary('fit a field to a monitored site’s drain flow and water table; show how well it fits')
+    .summary(summaryOf('fit'))
     .description(
       'Calibrate the drain-side parameters of a field file against observations at a monitored ' +
         'site (daily drain flow at the outlet and/or water-table depth in wells midway between ' +

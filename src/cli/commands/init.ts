@@ -5,11 +5,12 @@ import { fieldSchema } from '../../scenarios/fieldSchema.js';
 import { starterFieldFile } from '../../scenarios/starter.js';
 import { action } from '../common.js';
 import { writeFileAtomic } from '../../io/atomicOutput.js';
+import { summaryOf } from '../catalog.js';
 
 export function registerInit(program: Command): void {
   program
     .command('init')
-    .summary('write a commented starter field file')
+    .summary(summaryOf('init'))
     .description(
       'Write a starter field file in which every key is explained (meaning, unit, default) by a ' +
         'comment generated from the schema that validates field files. Without FILE it prints to ' +

@@ -8,11 +8,12 @@ import type { Command } from 'commander';
 import { action, emit, CAUTION, parseUnits } from '../common.js';
 import { addWeatherReadOptions } from '../weatherOptions.js';
 import { runFromFiles, runReport, writeRunFolderOf, type RunCommandOptions } from '../runShared.js';
+import { summaryOf } from '../catalog.js';
 
 export function registerRun(program: Command): void {
   const cmd = program
     .command('run')
-    .summary('simulate a field’s drainage scenarios over a weather record')
+    .summary(summaryOf('run'))
     .description(
       'Simulate the daily water table midway between drains, drain outflow, runoff, ET, seepage ' +
         'and nitrate-N load for every scenario of a field file over a weather record, and write ' +

@@ -25,6 +25,7 @@ import {
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
 import { action, CAUTION, emit, fmt, requiredQuantity, warn, parseUnits } from '../common.js';
 import { blocks, echo } from '../echo.js';
+import { summaryOf } from '../catalog.js';
 
 /** Full-flow velocity target for the minimum grade when --velocity is not given (1.4 ft/s). */
 export const DEFAULT_VELOCITY_MS = SEDIMENT_VELOCITY_MS;
@@ -332,7 +333,7 @@ ${CAUTION}`;
 export function registerSize(program: Command): void {
   program
     .command('size')
-    .summary('pipe size for a drain line or main (Manning, next commercial size up)')
+    .summary(summaryOf('size'))
     .description(
       'Pipe diameter a drain line needs to carry its drained area times the drainage rate, by ' +
         "Manning's equation for a full circular pipe, rounded up to the next commercial size, " +

@@ -29,6 +29,7 @@ import {
   parseUnits,
   warn,
 } from '../common.js';
+import { summaryOf } from '../catalog.js';
 
 interface SpacingFlags {
   conductivity?: string;
@@ -443,7 +444,7 @@ ${CAUTION}`;
 export function registerSpacing(program: Command): void {
   program
     .command('spacing')
-    .summary('drain spacing for a drainage rate (Hooghoudt) or a drawdown time (Glover-Dumm)')
+    .summary(summaryOf('spacing'))
     .description(
       'Drain spacing for a design drainage rate and midpoint water table (Hooghoudt ' +
         'steady-state equation), or with --transient for lowering the water table midway in a ' +

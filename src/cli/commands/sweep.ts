@@ -40,6 +40,7 @@ import {
   readWeatherOption,
   type WeatherReadFlags,
 } from '../weatherOptions.js';
+import { summaryOf } from '../catalog.js';
 
 interface SweepCommandOptions extends WeatherReadFlags {
   weather: string[];
@@ -215,7 +216,7 @@ export function studyText(study: ClimateStudy, out: string, written: readonly st
 export function registerSweep(program: Command): void {
   const cmd = program
     .command('sweep')
-    .summary('sweep designs and managements under uncertain soils, with costs, and rank them')
+    .summary(summaryOf('sweep'))
     .description(
       'Run every design of the field file’s sweep: section (drain depth x lateral spacing x ' +
         'outlet management) over a weather record, for each Latin-hypercube sample of the ' +

@@ -18,6 +18,7 @@ import { US, type UnitSystem } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
 import { action, CAUTION, emit, fmt, parseUnits } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
+import { summaryOf } from '../catalog.js';
 
 interface SystemFlags {
   profile?: string;
@@ -161,7 +162,7 @@ Trenching is dangerous: locate buried utilities and follow the excavation safety
 export function registerSystem(program: Command): void {
   program
     .command('system')
-    .summary('design a drain system: mains and laterals sized, grades and depth of cut')
+    .summary(summaryOf('system'))
     .description(
       'Size every reach of every main and every lateral group of a drain system for the area ' +
         'above it times the drainage coefficient (Manning, full pipe), lay the grades on a ' +

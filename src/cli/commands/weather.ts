@@ -42,6 +42,7 @@ import { describeChange, monthlyChange } from '../climateOptions.js';
 import { action, emit, fmt, quantityOption, parseUnits } from '../common.js';
 import { writeFileAtomic } from '../../io/atomicOutput.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
+import { summaryOf } from '../catalog.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
 export const DEFAULT_LATITUDE_DEG = 42;
@@ -332,7 +333,7 @@ function compareLines(
 export function registerWeather(program: Command): void {
   const weather = program
     .command('weather')
-    .summary('check a daily weather CSV, or make a synthetic one')
+    .summary(summaryOf('weather'))
     .description(
       'Daily weather is what drives every simulation. `weather check` reads a weather CSV the way ' +
         '`run` does, reports its problems with line and column, and summarises it; `weather make` ' +
