@@ -8,13 +8,17 @@ import { buildReportHtml } from './html.js';
 import { PNG_SCALE, renderSvg, svgToPngAsync } from './renderChart.js';
 import type { ReportData } from './types.js';
 
-export * from './charts.js';
-export * from './types.js';
+// Chart specs of a run, by name (core.ts also lists the builder of each chart)
+export { buildChartSpecs, CHART_NAMES, type ChartName, CHART_CAPTIONS } from './charts.js';
+// The report's data, its units and numbers, its summary lines
+export type { ScenarioDailySeries, ReportData } from './types.js';
 export { displayUnits, type DisplayUnit, type DisplayUnits } from './units.js';
 export { fixed, signed } from './format.js';
 export { cropConditionLines, headlineLines } from './summary.js';
+// The HTML report, and the vega bundles it embeds
 export { buildReportHtml, escapeHtml, jsonForScript, BALANCE_TOLERANCE } from './html.js';
 export { loadVegaBundles, type VegaBundles } from './vegaBundles.js';
+// SVG and PNG renderings of a spec
 export {
   renderSvg,
   svgToPng,
