@@ -4,161 +4,30 @@
  * (a Blob URL, so it works from file://) or, where workers are not available, on the page.
  * The same script is the worker: without a document it answers run requests.
  *
- * Every text from the field file is set as text (textContent, value), never as markup.
+ * Every text from the field file is set as text (textContent, value), never as markup. The
+ * controls are built in controls.ts, the runs answered by runner.ts. The rest is longer than most
+ * files: `startPage` is one closure that holds the page's state (settings, the latest run, the
+ * worker) and wires controls, results, charts and saving to it.
  */
 import { fixed, signed } from '../../report/format.js';
 import { displayUnits } from '../../report/units.js';
 import type { ComparisonRow } from '../../scenarios/compare.js';
-import type { PreparedField } from '../../scenarios/prepared.js';
-import { US } from '../../units/quantity.js';
 import {
   nitrateParameterOf,
-  prepareExplorer,
-  runBoth,
   settingsOf,
   settingsProblems,
-  type DesignSettings,
   type ExplorerData,
   type ExplorerSettings,
 } from './model.js';
 import { savedFieldYaml } from './savedField.js';
-import { EXPLORER_CHARTS, explorerChartSpecs, type ExplorerChart } from './charts.js';
+import { EXPLORER_CHARTS, type ExplorerChart } from './charts.js';
 import { readHash, writeHash } from './hashState.js';
 import type { NitrateConfig } from '../../nitrate/types.js';
-
-/** Request and answer between the page and the worker. */
-type Request =
-  | { type: 'init'; data: ExplorerData }
-  | { type: 'run'; id: number; settings: ExplorerSettings; year: number | null };
-type Answer =
-  | {
-      type: 'result';
-      id: number;
-      rows: ComparisonRow[];
-      specs: Record<ExplorerChart, object>;
-      year: number;
-      years: number[];
-    }
-  | { type: 'error'; id: number; message: string };
+import { boxValue, controlUnits, designBox, el, numberField } from './controls.js';
+import { engine, type Answer, type Request } from './runner.js';
 
 /** vega-embed's entry point, inlined on the page as a global (not in the worker). */
 type VegaEmbed = (el: Element, spec: object, opts: Record<string, unknown>) => Promise<unknown>;
-
-/** Answer run requests on a prepared field (in the worker, or on the page). */
-function engine() {
-  let data: ExplorerData | undefined;
-  let prepared: PreparedField | undefined;
-  return (req: Request): Answer | undefined => {
-    if (req.type === 'init') {
-      data = req.data;
-      prepared = undefined;
-      return undefined;
-    }
-    try {
-      if (!data) throw new Error('no field loaded');
-      prepared ??= prepareExplorer(data);
-      const both = runBoth(prepared, data, req.settings);
-      const charts = explorerChartSpecs(prepared, data, both.runs, both.rows, req.year);
-      return {
-        type: 'result',
-        id: req.id,
-        rows: both.rows,
-        specs: charts.specs,
-        year: charts.year,
-        years: both.runs[0].annual.map((r) => r.year),
-      };
-    } catch (err) {
-      return {
-        type: 'error',
-        id: req.id,
-        message: err instanceof Error ? err.message : String(err),
-      };
-    }
-  };
-}
-
-// ---------------------------------------------------------------------------------------------
-// Units of the controls
-
-interface ControlUnit {
-  label: string;
-  /** Core value -> shown value. */
-  factor: number;
-  step: string;
-  decimals: number;
-}
-
-function controlUnits(system: ExplorerData['units']) {
-  const us = system === 'us';
-  return {
-    length: us
-      ? { label: 'ft', factor: 1 / US.mPerFt, step: '0.1', decimals: 2 }
-      : { label: 'm', factor: 1, step: '0.05', decimals: 3 },
-    spacing: us
-      ? { label: 'ft', factor: 1 / US.mPerFt, step: '1', decimals: 1 }
-      : { label: 'm', factor: 1, step: '0.5', decimals: 2 },
-    // 1 in/h = 0.0254 m x 24 h = 0.6096 m/d.
-    conductivity: us
-      ? { label: 'in/h', factor: 1 / 0.6096, step: '0.05', decimals: 3 }
-      : { label: 'm/d', factor: 1, step: '0.05', decimals: 3 },
-    fraction: { label: 'volume fraction', factor: 1, step: '0.005', decimals: 3 },
-    concentration: { label: 'mg/L', factor: 1, step: '0.5', decimals: 2 },
-    load: us
-      ? { label: 'lb N/ac', factor: US.lbAcPerKgHa, step: '5', decimals: 1 }
-      : { label: 'kg N/ha', factor: 1, step: '5', decimals: 1 },
-  } satisfies Record<string, ControlUnit>;
-}
-
-/** A number for an input box: rounded for reading, without trailing zeros. */
-function boxValue(x: number, u: ControlUnit): string {
-  return String(Number((x * u.factor).toFixed(u.decimals)));
-}
-
-// ---------------------------------------------------------------------------------------------
-// Small DOM helpers
-
-function el<K extends keyof HTMLElementTagNameMap>(
-  tag: K,
-  attrs: Record<string, string> = {},
-  ...children: Array<Node | string>
-): HTMLElementTagNameMap[K] {
-  const e = document.createElement(tag);
-  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, v);
-  for (const c of children) e.append(c);
-  return e;
-}
-
-let uid = 0;
-const nextId = (stem: string) => `${stem}-${++uid}`;
-
-/**
- * A labelled number box in display units; `read` converts back to the core unit. The core
- * value stays exact until the box is edited (the box shows it rounded).
- */
-function numberField(
-  label: string,
-  u: ControlUnit,
-  value: number,
-  onChange: (core: number) => void,
-  testId: string,
-): HTMLElement {
-  const id = nextId(testId);
-  const input = el('input', {
-    id,
-    type: 'number',
-    inputmode: 'decimal',
-    step: 'any',
-    value: boxValue(value, u),
-    'data-control': testId,
-  });
-  input.addEventListener('change', () => onChange(Number(input.value) / u.factor));
-  return el(
-    'div',
-    { class: 'control' },
-    el('label', { for: id }, `${label} `, el('span', { class: 'unit' }, `(${u.label})`)),
-    input,
-  );
-}
 
 // ---------------------------------------------------------------------------------------------
 // The page
@@ -385,158 +254,13 @@ function startPage(source: string): void {
     );
   }
 
-  const designBox = (
-    key: 'a' | 'b',
-    title: string,
-    d: DesignSettings,
-    name: string,
-    description: string,
-  ) => {
-    const box = el(
-      'fieldset',
-      { class: 'design', id: `design-${key}` },
-      el('legend', {}, `${title}: `, el('span', { class: 'name' }, name)),
-    );
-    if (description) box.append(el('p', { class: 'note' }, description));
-    box.append(
-      numberField(
-        'Drain depth',
-        cu.length,
-        d.depthM,
-        (v) => {
-          d.depthM = v;
-          request();
-        },
-        `${key}-depth`,
-      ),
-      numberField(
-        'Drain spacing',
-        cu.spacing,
-        d.spacingM,
-        (v) => {
-          d.spacingM = v;
-          request();
-        },
-        `${key}-spacing`,
-      ),
-    );
-    box.append(outletEditor(key, d));
-    return box;
-  };
-
-  const outletEditor = (key: 'a' | 'b', d: DesignSettings) => {
-    const wrap = el('div', { class: 'outlet' });
-    const caption = el(
-      'caption',
-      {},
-      `Outlet schedule of design ${key.toUpperCase()}, repeating every year (no rows: free outlet all year). Level in ${cu.length.label} below the surface.`,
-    );
-    const body = el('tbody');
-    const table = el(
-      'table',
-      { class: 'schedule', 'data-schedule': key },
-      caption,
-      el(
-        'thead',
-        {},
-        el(
-          'tr',
-          {},
-          el('th', { scope: 'col' }, 'From (MM-DD)'),
-          el('th', { scope: 'col' }, 'Outlet'),
-          el('th', { scope: 'col' }, `Level (${cu.length.label})`),
-          el('th', { scope: 'col' }, el('span', { class: 'visually-hidden' }, 'Remove')),
-        ),
-      ),
-      body,
-    );
-    const draw = () => {
-      body.replaceChildren(
-        ...d.outlet.map((r, i) => {
-          const n = i + 1;
-          const from = el('input', {
-            type: 'text',
-            value: r.from,
-            size: '6',
-            inputmode: 'numeric',
-            pattern: '\\d{2}-\\d{2}',
-            'aria-label': `Row ${n}: from (MM-DD)`,
-            'data-control': `${key}-from-${n}`,
-          });
-          from.addEventListener('change', () => {
-            r.from = from.value.trim();
-            request();
-          });
-          const kind = el(
-            'select',
-            { 'aria-label': `Row ${n}: outlet held or free`, 'data-control': `${key}-kind-${n}` },
-            el('option', { value: 'held' }, 'held at level'),
-            el('option', { value: 'free' }, 'free'),
-          );
-          kind.value = r.depthM === null ? 'free' : 'held';
-          const level = el('input', {
-            type: 'number',
-            step: 'any',
-            inputmode: 'decimal',
-            value: r.depthM === null ? '' : boxValue(r.depthM, cu.length),
-            'aria-label': `Row ${n}: level below the surface (${cu.length.label})`,
-            'data-control': `${key}-level-${n}`,
-          });
-          level.disabled = r.depthM === null;
-          kind.addEventListener('change', () => {
-            if (kind.value === 'free') r.depthM = null;
-            else r.depthM = Number(level.value || boxValue(0.3, cu.length)) / cu.length.factor;
-            draw();
-            request();
-          });
-          level.addEventListener('change', () => {
-            r.depthM = Number(level.value) / cu.length.factor;
-            request();
-          });
-          const remove = el(
-            'button',
-            { type: 'button', 'aria-label': `Remove row ${n} of design ${key.toUpperCase()}` },
-            'Remove',
-          );
-          remove.addEventListener('click', () => {
-            d.outlet.splice(i, 1);
-            draw();
-            request();
-            add.focus();
-          });
-          return el(
-            'tr',
-            {},
-            el('td', {}, from),
-            el('td', {}, kind),
-            el('td', {}, level),
-            el('td', {}, remove),
-          );
-        }),
-      );
-    };
-    const add = el(
-      'button',
-      { type: 'button', 'data-control': `${key}-add-row` },
-      `Add a row to design ${key.toUpperCase()}`,
-    );
-    add.addEventListener('click', () => {
-      d.outlet.push({ from: '01-01', depthM: null });
-      draw();
-      request();
-    });
-    draw();
-    wrap.append(table, add);
-    return wrap;
-  };
-
   root.append(
     fieldSet,
     el(
       'div',
       { class: 'designs' },
-      designBox('a', 'Design A', settings.a, data.a.name, data.a.description),
-      designBox('b', 'Design B', settings.b, data.b.name, data.b.description),
+      designBox('a', 'Design A', settings.a, data.a.name, data.a.description, cu, request),
+      designBox('b', 'Design B', settings.b, data.b.name, data.b.description, cu, request),
     ),
   );
 
