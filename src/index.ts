@@ -2,7 +2,8 @@
  * tileflux as a Node library: the browser-safe core plus the file readers and writers (weather
  * CSV, field YAML, run folders) and the chart rendering and HTML report.
  *
- * Every export is listed by name: first all of src/core.ts, then the Node-only ones.
+ * Every export is listed by name: first all of src/core.ts (a test checks that none is left
+ * out), then the Node-only ones. test/api/api-report.md shows each with its type.
  */
 
 // From the core: errors, the version and quantity strings
