@@ -13,7 +13,7 @@ import { designSystem, type SystemSettings } from '../drainage/systemDesign.js';
 import { systemSchema, type SystemFile } from '../drainage/systemSchema.js';
 import { buildSystemTree, type SystemTree } from '../drainage/systemTree.js';
 import { US } from '../units/quantity.js';
-import { locate, locatedIssue, readYamlMapping, type Path } from './field.js';
+import { locate, locatedIssue, readYamlMapping, type Path } from './yamlIssues.js';
 import { readTextFile } from './files.js';
 
 /** A read system: the validated file, its checked tree and the design settings. */
