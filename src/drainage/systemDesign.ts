@@ -20,6 +20,10 @@
  *   chosen coefficient when rounding up (spare capacity for later inlets or sediment), smaller
  *   when rounding down.
  * Tributary mains start at the invert of the main they join, at the junction station.
+ *
+ * Longer than most files: sizing and grade laying depend on each other reach by reach (each size
+ * is tried with its own laid grade), so `designSystem` walks the mains and their laterals in one
+ * pass; the grade laying, Manning and the size lists are in their own modules.
  */
 import { TilefluxError } from '../errors.js';
 import {

@@ -28,6 +28,9 @@
  * Every day the water balance P = ET + runoff + drain flow + seepage + change in storage (soil,
  * surface, snow) is computed from the states and its residual returned; a residual above
  * 1e-6 mm in any year is a defect and throws.
+ *
+ * Longer than most files: the engine is one daily loop with its sub-step, kept in one place so
+ * that every flux of the water balance, and the balance check that closes them, reads in order.
  */
 import { dayIndexOf } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';

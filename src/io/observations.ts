@@ -12,6 +12,9 @@
  *
  * Conversions are exact definitions: 1 in = 25.4 mm; 1 ft = 0.3048 m; 1 US gal = 3.785411784 L;
  * 1 ft3 = 0.028316846592 m3; a flow Q (m3/s) over an area A (m2) is Q x 86400 / A x 1000 mm/d.
+ *
+ * Longer than most files: every accepted column with its unit conversion, and a located message
+ * for each way a cell, a row or the dates can be wrong.
  */
 import { readTextFile } from './files.js';
 import { CsvError, parse } from 'csv-parse/sync';

@@ -3,6 +3,9 @@
  * Validation messages, `tileflux init` comments and the resolved parameters all come from here.
  * Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the unit
  * shown in brackets in each description.
+ *
+ * Longer than most files: it is the whole field file, section after section, and each key's
+ * description here is its documentation (messages and `tileflux init` print them).
  */
 import { DEFAULT_DRAIN_RADIUS_M } from '../drainage/defaults.js';
 import { z } from 'zod';

@@ -10,6 +10,10 @@
  * can share a sweep and the result does not depend on how it was split. Measures are taken
  * generically from the annual table (every numeric column but the bookkeeping ones).
  *
+ * Longer than most files: planning, running and summarising a sweep share the job order and the
+ * measure names; the sampling, the frontier, the costs, the climates and the worker pool are in
+ * their own modules.
+ *
  * @example
  * const result = sweepField(field.base, weather, { samples: 20, seed: 1 });
  * result.designs.filter((d) => d.on_frontier);

@@ -2,6 +2,9 @@
  * `tileflux size`: the pipe a drain line needs for its design flow (drained area times drainage
  * rate) by Manning's equation for a full circular pipe, rounded up to the next commercial size,
  * with the full-flow velocity and the minimum grade for a velocity target.
+ *
+ * Longer than most commands: the drained area, the drainage rate and the roughness each come
+ * from one of several options (or the coefficient table), and each is echoed with its source.
  */
 import { Option, type Command } from 'commander';
 import { TilefluxError } from '../../errors.js';

@@ -11,6 +11,9 @@
  * fields optionally in double quotes (a doubled quote inside is one quote, quoted fields may
  * span lines), LF, CRLF or CR line ends, spaces and tabs around fields ignored, a leading
  * byte-order mark dropped, records whose fields are all empty skipped.
+ *
+ * Longer than most files: the record walker, the number and date readers that work on the
+ * characters, and the calendar helpers they need are one hot path, kept together.
  */
 import { isLeapYear } from '../../climate/calendar.js';
 
