@@ -64,8 +64,9 @@ export const CROPS: Readonly<Record<string, CropParams>> = {
 };
 
 /**
- * Kc of bare or residue-covered soil between seasons. FAO-56 (Fig. 29 / Eq. 7.x) gives Kc ini of
- * 0.3 to 0.5 for bare soil wetted every few days at moderate ET0; we take 0.35 (assumption).
+ * Kc of bare or residue-covered soil between seasons. FAO-56 (Allen et al. 1998, chapter 6,
+ * Kc ini and its Fig. 29; from memory) gives Kc ini of 0.3 to 0.5 for bare soil wetted every
+ * few days at moderate ET0; we take 0.35 (assumption).
  */
 export const BARE_SOIL_KC = 0.35;
 /** Depletion fraction used between seasons (bare soil evaporation dries only the top layer). */

@@ -3,7 +3,7 @@
  *
  * A schedule is a list of steps. Yearly steps ("MM-DD") repeat every year: the step in force on a
  * day is the latest one whose date has passed, wrapping from the previous year, so
- * [{ from: '10-25', depth: 0.3 }, { from: '04-10', depth: null }] holds the outlet at 0.3 m from
+ * [{ from: '10-25', depthM: 0.3 }, { from: '04-10', depthM: null }] holds the outlet at 0.3 m from
  * late October to early April and leaves it free over the season. Dated steps ("YYYY-MM-DD") are
  * a one-off list; before the first one the outlet is free. `null` depth means free (the outlet at
  * the drains).

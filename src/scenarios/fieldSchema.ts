@@ -4,6 +4,11 @@
  * Quantities accept unit strings ("1.2 m", "48 in", "0.5 in/d"); a bare number is in the unit
  * shown in brackets in each description.
  *
+ * The parsed `Field` keeps the file's key names (`drains.depth`, `pipe.diameter`), each in the unit
+ * its description states; `resolve.ts` turns it into the core's parameter objects, whose names
+ * carry their unit (`drainDepthM`, `kAboveMPerDay`, `capacityMmPerDay`); the engine and the
+ * nitrate models read only those.
+ *
  * Longer than most files: it is the whole field file, section after section, and each key's
  * description here is its documentation (messages and `tileflux init` print them).
  */

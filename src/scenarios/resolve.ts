@@ -88,7 +88,9 @@ export function capacityWithSource(f: Field): { mmPerDay: number; source: string
   }
   const pipe = f.drains.pipe;
   if (pipe) {
-    const q = manningFullCapacity(pipe.diameter / 1000, pipe.grade, pipe.roughness);
+    // The field file gives the pipe's diameter in mm and lengths in m (fieldSchema.ts).
+    const diameterM = pipe.diameter / 1000;
+    const q = manningFullCapacity(diameterM, pipe.grade, pipe.roughness);
     const areaM2 = pipe.length * f.drains.spacing;
     return { mmPerDay: ((q * 86400) / areaM2) * 1000, source: 'drains.pipe (Manning, full flow)' };
   }

@@ -6,7 +6,8 @@ import { vdmwDepth } from '../drainage/reference.js';
 
 /**
  * Glover-Dumm midpoint head ratio for an initially flat water table (linearised Boussinesq,
- * Dumm 1954; e.g. Ritzema 1994, ILRI Publ. 16, eq. 8.x):
+ * Dumm 1954; e.g. Ritzema 1994, ILRI Publ. 16, the chapter on subsurface flow to drains; from
+ * memory):
  *   h(t)/h0 = (4/pi) sum_{n=1,3,5..} (1/n) exp(-n^2 pi^2 K D t / (mu L^2)),  D = d + h0/2.
  * Evaluated here independently of the project's own glover.ts.
  */
