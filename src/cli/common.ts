@@ -24,6 +24,8 @@ const FLAG_OF_SETTING: Readonly<Record<string, string>> = {
   shard: '--shard',
   shards: '--shards',
   sizes: '--sizes',
+  force: '--force',
+  out: '--out',
 };
 
 /** A user error's message as the CLI says it: settings called by their flags. */

@@ -3,6 +3,9 @@
  * written under a temporary name and renamed into place, an existing output is replaced only
  * with `force` and only when it is one of ours, a lock keeps two runs off one folder, and
  * temporaries are removed on Ctrl-C and repaired after a kill.
+ *
+ * Errors that tell the user to set `force` or choose another `out` are SettingErrors naming
+ * those settings, which the CLI calls by its flags (--force, --out).
  */
 import { randomBytes } from 'node:crypto';
 import {
@@ -18,7 +21,7 @@ import {
 } from 'node:fs';
 import { homedir } from 'node:os';
 import { basename, dirname, join, resolve, sep } from 'node:path';
-import { clip, TilefluxError } from '../errors.js';
+import { clip, SettingError, TilefluxError, type SettingNamer } from '../errors.js';
 import { VERSION } from '../version.js';
 import { fsErrorReason } from './files.js';
 
@@ -100,7 +103,7 @@ export function writeFileAtomic(path: string, content: string | Uint8Array, forc
   path = clip(path);
   try {
     if (existsSync(target) && !force) {
-      throw new TilefluxError(`${path} already exists; use --force to overwrite it`);
+      throw new SettingError((n) => `${path} already exists; use ${n('force')} to overwrite it`);
     }
     if (existsSync(target) && statSync(target).isDirectory()) {
       throw new TilefluxError(`${path} is a folder; give a file name`);
@@ -124,7 +127,7 @@ export function writeFileAtomic(path: string, content: string | Uint8Array, forc
   }
 }
 
-/** The file that marks a folder as a tileflux output folder, which `--force` may replace. */
+/** The file that marks a folder as a tileflux output folder, which `force` may replace. */
 export const RUN_MARKER = '.tileflux-run';
 
 /** Whether `dir` is an output folder written by tileflux (the marker, or our summary.json). */
@@ -145,20 +148,27 @@ const within = (inner: string, outer: string) =>
   inner === outer || inner.startsWith(outer.endsWith(sep) ? outer : outer + sep);
 
 /**
- * Why the existing `target` must not be replaced, even with `--force`, or undefined when it may
+ * Why the existing `target` must not be replaced, even with `force`, or undefined when it may
  * be: only a folder tileflux wrote, and never the root, the home folder, the working folder (or
- * a folder holding it) or a folder holding one of the run's input files.
+ * a folder holding it) or a folder holding one of the run's input files. The reason is written
+ * with `n` naming the settings.
  */
-function refusal(target: string, inputs: readonly string[]): string | undefined {
-  const why = 'tileflux replaces only folders it wrote itself; choose another --out';
-  if (target === resolve('/')) return `it is the root folder; ${why}`;
-  if (target === resolve(homedir())) return `it is your home folder; ${why}`;
-  if (within(process.cwd(), target)) return `it is or holds the working folder; ${why}`;
+function refusal(
+  target: string,
+  inputs: readonly string[],
+): ((n: SettingNamer) => string) | undefined {
+  const why = (n: SettingNamer) =>
+    `tileflux replaces only folders it wrote itself; choose another ${n('out')}`;
+  if (target === resolve('/')) return (n) => `it is the root folder; ${why(n)}`;
+  if (target === resolve(homedir())) return (n) => `it is your home folder; ${why(n)}`;
+  if (within(process.cwd(), target)) return (n) => `it is or holds the working folder; ${why(n)}`;
   const input = inputs.find((f) => within(resolve(f), target));
-  if (input !== undefined) return `it holds the input file ${input}; ${why}`;
-  if (!statSync(target).isDirectory()) return `it is a file, not a folder; choose another --out`;
+  if (input !== undefined) return (n) => `it holds the input file ${input}; ${why(n)}`;
+  if (!statSync(target).isDirectory())
+    return (n) => `it is a file, not a folder; choose another ${n('out')}`;
   if (!isRunFolder(target))
-    return `it was not written by tileflux (no ${RUN_MARKER} marker or tileflux summary.json); ${why}, or remove it yourself`;
+    return (n) =>
+      `it was not written by tileflux (no ${RUN_MARKER} marker or tileflux summary.json); ${why(n)}, or remove it yourself`;
   return undefined;
 }
 
@@ -166,9 +176,13 @@ function refusal(target: string, inputs: readonly string[]): string | undefined 
 function mayReplace(path: string, target: string, force: boolean, inputs: readonly string[]) {
   if (!existsSync(target)) return;
   const no = refusal(target, inputs);
-  if (no !== undefined) throw new TilefluxError(`will not replace output folder ${path}: ${no}`);
+  if (no !== undefined) {
+    throw new SettingError((n) => `will not replace output folder ${path}: ${no(n)}`);
+  }
   if (!force) {
-    throw new TilefluxError(`output folder ${path} already exists; use --force to replace it`);
+    throw new SettingError(
+      (n) => `output folder ${path} already exists; use ${n('force')} to replace it`,
+    );
   }
 }
 
@@ -238,8 +252,9 @@ function lock(parent: string, name: string, path: string): string {
       if ((err as NodeJS.ErrnoException).code !== 'EEXIST' || attempt > 0) throw err;
       const pid = Number(readFileSync(file, 'utf8'));
       if (alive(pid)) {
-        throw new TilefluxError(
-          `another tileflux run (process ${pid}) is writing output folder ${path}; nothing was replaced, run again when it has finished or choose another --out`,
+        throw new SettingError(
+          (n) =>
+            `another tileflux run (process ${pid}) is writing output folder ${path}; nothing was replaced, run again when it has finished or choose another ${n('out')}`,
         );
       }
       rmSync(file, { force: true });
@@ -275,7 +290,7 @@ export async function writeDirAtomic(
   opts: { inputs?: readonly string[] } = {},
 ): Promise<void> {
   if (path.trim() === '') {
-    throw new TilefluxError('--out is empty; give the name of the output folder');
+    throw new SettingError((n) => `${n('out')} is empty; give the name of the output folder`);
   }
   const target = resolve(path);
   const parent = dirname(target);
@@ -299,8 +314,9 @@ export async function writeDirAtomic(
     track(held);
     step('locked');
     if (existsSync(target) && !force) {
-      throw new TilefluxError(
-        `another run wrote output folder ${path} while this one ran; it was kept and this run's result discarded (use --force to replace it)`,
+      throw new SettingError(
+        (n) =>
+          `another run wrote output folder ${path} while this one ran; it was kept and this run's result discarded (use ${n('force')} to replace it)`,
       );
     }
     mayReplace(path, target, force, inputs);
