@@ -5,6 +5,7 @@
  * three-month groups djf, mam, jja, son.
  */
 import { TilefluxError } from '../errors.js';
+import { roundTo } from '../units/decimal.js';
 
 const MONTHS = ['jan', 'feb', 'mar', 'apr', 'may', 'jun', 'jul', 'aug', 'sep', 'oct', 'nov', 'dec'];
 const SEASONS: Readonly<Record<string, number[]>> = {
@@ -73,7 +74,7 @@ export function monthlyChange(
 
 /** A short description of monthly changes: `+10%` or `Dec-Feb +20%, Jun-Aug -10%`. */
 export function describeChange(values: readonly number[], unit: string): string {
-  const sign = (x: number) => `${x > 0 ? '+' : ''}${Math.round(x * 100) / 100}${unit}`;
+  const sign = (x: number) => `${x > 0 ? '+' : ''}${roundTo(x, 2)}${unit}`;
   if (values.every((x) => x === values[0])) return sign(values[0]);
   const names = 'Jan Feb Mar Apr May Jun Jul Aug Sep Oct Nov Dec'.split(' ');
   return values

@@ -100,13 +100,6 @@ export function parseUnits(u: string | undefined): UnitSystem {
   throw new TilefluxError(`--units expects si or us; got ${u}`);
 }
 
-/** Format a number for people: a fixed number of decimals, no "-0". */
-export function fmt(x: number, decimals = 1): string {
-  if (!Number.isFinite(x)) return String(x);
-  const s = x.toFixed(decimals);
-  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
-}
-
 /** One-line caution printed under design and simulation results (README, Cautions). */
 export const CAUTION =
   'Planning estimate from simplified physics. Local drainage guides, conservation practice ' +

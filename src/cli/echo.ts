@@ -2,10 +2,8 @@
  * The printed blocks of the design commands (`spacing`, `size`): each input echoed as the user
  * gave it beside the value used, and aligned "label   value" sections.
  */
+import { fixedText, isDecimalNumber } from '../units/decimal.js';
 import { US, type UnitSystem } from '../units/quantity.js';
-import { fmt } from './common.js';
-
-const BARE = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
 /** SI input units and their US customary display: label and factor from the SI value. */
 const US_ECHO: Readonly<Record<string, [label: string, factor: number]>> = {
@@ -30,10 +28,10 @@ export function echo(
 ): string {
   const us = units === 'us' ? US_ECHO[unit] : undefined;
   const label = us ? us[0] : unit;
-  const used = `${fmt(us ? value * us[1] : value, decimals)} ${label}`.trim();
+  const used = `${fixedText(us ? value * us[1] : value, decimals)} ${label}`.trim();
   if (raw === undefined) return `${used} (default)`;
   const given = raw.trim();
-  if (BARE.test(given)) return us ? `${given} ${unit} = ${used}` : `${given} ${unit}`.trim();
+  if (isDecimalNumber(given)) return us ? `${given} ${unit} = ${used}` : `${given} ${unit}`.trim();
   // Given in the unit shown: nothing to convert.
   if (given.replace(/^[-+\d.eE\s]+/, '') === label) return given;
   return `${given} = ${used}`;

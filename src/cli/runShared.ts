@@ -19,12 +19,13 @@ import { counted } from '../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../io/weather.js';
 import { runField, type RunOutput } from '../scenarios/run.js';
 import type { UnitSystem } from '../units/quantity.js';
-import { fmt, warn, CAUTION, parseUnits } from './common.js';
+import { warn, CAUTION, parseUnits } from './common.js';
 import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
 import { writeRunFolder, type RunFolderOptions } from '../report/writeRun.js';
+import { fixedText } from '../units/decimal.js';
 export interface RunCommandOptions extends WeatherReadFlags {
   weather: string;
   out?: string;
@@ -142,7 +143,7 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   const load = columnIn('no3n_load_kg_ha', units);
   const flowU = units === 'us' ? 'in/yr' : 'mm/yr';
   const loadU = units === 'us' ? 'lb N/ac/yr' : 'kg N/ha/yr';
-  const pct = (x: number | null) => (x === null ? '' : `${x >= 0 ? '+' : ''}${fmt(x, 0)}%`);
+  const pct = (x: number | null) => (x === null ? '' : `${x >= 0 ? '+' : ''}${fixedText(x, 0)}%`);
   // The name column is as wide as the longest name, so different names never print the same.
   const w = Math.max(16, ...comparison.map((r) => r.scenario.length));
   const lines = [
@@ -150,7 +151,7 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
   ];
   for (const r of comparison) {
     lines.push(
-      `${r.scenario.padEnd(w)} ${fmt(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fmt(r.no3n_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3n_load_change_percent).padStart(8)} ${fmt(r.aeration_stress_days, 1).padStart(21)} ${fmt(r.wet_days, 1).padStart(9)}`,
+      `${r.scenario.padEnd(w)} ${fixedText(r.drainflow_mm * flow.factor, units === 'us' ? 2 : 0).padStart(18)} ${pct(r.drainflow_change_percent).padStart(8)} ${fixedText(r.no3n_load_kg_ha * load.factor, 1).padStart(22)} ${pct(r.no3n_load_change_percent).padStart(8)} ${fixedText(r.aeration_stress_days, 1).padStart(21)} ${fixedText(r.wet_days, 1).padStart(9)}`,
     );
   }
   return lines.join('\n');

@@ -8,7 +8,8 @@ import { TilefluxError } from '../errors.js';
 import type { EquivalentDepthMethod } from '../drainage/index.js';
 import { DEFAULT_DRAIN_RADIUS_M } from '../drainage/defaults.js';
 import { echo } from './echo.js';
-import { fmt, quantityOption, requiredQuantity, warn } from './common.js';
+import { quantityOption, requiredQuantity, warn } from './common.js';
+import { fixedText } from '../units/decimal.js';
 
 export interface SpacingFlags {
   conductivity?: string;
@@ -35,12 +36,16 @@ export interface SpacingFlags {
 
 /** A length for people in the chosen unit system: metres or feet. */
 export function len(m: number, units: UnitSystem, decimals = 2): string {
-  return units === 'us' ? `${fmt(m / US.mPerFt, decimals)} ft` : `${fmt(m, decimals)} m`;
+  return units === 'us'
+    ? `${fixedText(m / US.mPerFt, decimals)} ft`
+    : `${fixedText(m, decimals)} m`;
 }
 
 /** A rate for people in the chosen unit system: mm/d or in/d. */
 export function rate(mmPerDay: number, units: UnitSystem): string {
-  return units === 'us' ? `${fmt(mmPerDay / US.mmPerIn, 3)} in/d` : `${fmt(mmPerDay, 1)} mm/d`;
+  return units === 'us'
+    ? `${fixedText(mmPerDay / US.mmPerIn, 3)} in/d`
+    : `${fixedText(mmPerDay, 1)} mm/d`;
 }
 
 export function positive(value: number, option: string, unit: string): number {
@@ -116,20 +121,20 @@ export function layout(o: SpacingFlags) {
   );
   if (!(barrierDepthM > drainDepthM)) {
     throw new TilefluxError(
-      `--restrictive-layer-depth (${fmt(barrierDepthM, 3)} m) must be deeper than --drain-depth ` +
-        `(${fmt(drainDepthM, 3)} m): the restrictive layer lies below the drains`,
+      `--restrictive-layer-depth (${fixedText(barrierDepthM, 3)} m) must be deeper than --drain-depth ` +
+        `(${fixedText(drainDepthM, 3)} m): the restrictive layer lies below the drains`,
     );
   }
   const layerBelowDrainsM = barrierDepthM - drainDepthM;
   if (!(radiusM < layerBelowDrainsM)) {
     throw new TilefluxError(
-      `--radius (${fmt(radiusM, 3)} m) must be smaller than the layer between the drains and the ` +
-        `barrier (--restrictive-layer-depth minus --drain-depth, ${fmt(layerBelowDrainsM, 3)} m)`,
+      `--radius (${fixedText(radiusM, 3)} m) must be smaller than the layer between the drains and the ` +
+        `barrier (--restrictive-layer-depth minus --drain-depth, ${fixedText(layerBelowDrainsM, 3)} m)`,
     );
   }
   if (!(radiusM < drainDepthM)) {
     throw new TilefluxError(
-      `--radius (${fmt(radiusM, 3)} m) must be smaller than --drain-depth (${fmt(drainDepthM, 3)} m)`,
+      `--radius (${fixedText(radiusM, 3)} m) must be smaller than --drain-depth (${fixedText(drainDepthM, 3)} m)`,
     );
   }
   return {

@@ -13,8 +13,9 @@ import {
 } from '../drainage/index.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { blocks, echo } from './echo.js';
-import { CAUTION, emit, fmt, quantityOption, requiredQuantity } from './common.js';
+import { CAUTION, emit, quantityOption, requiredQuantity } from './common.js';
 import { layout, layoutRows, len, positive, rate, type SpacingFlags } from './spacingLayout.js';
+import { fixedText } from '../units/decimal.js';
 
 /** `tileflux spacing` in steady state: Hooghoudt's spacing for a drainage rate, printed. */
 export function steadySpacing(o: SpacingFlags, units: UnitSystem): void {
@@ -28,14 +29,14 @@ export function steadySpacing(o: SpacingFlags, units: UnitSystem): void {
   const waterTableM = requiredQuantity(o.waterTable, 'length', '--water-table');
   if (waterTableM < 0) {
     throw new TilefluxError(
-      `--water-table (${fmt(waterTableM, 3)} m) puts the water table above the surface; give ` +
+      `--water-table (${fixedText(waterTableM, 3)} m) puts the water table above the surface; give ` +
         `its depth below the surface, from 0 up to --drain-depth`,
     );
   }
   if (!(waterTableM < l.drainDepthM)) {
     throw new TilefluxError(
-      `--water-table (${fmt(waterTableM, 3)} m) must be shallower than --drain-depth ` +
-        `(${fmt(l.drainDepthM, 3)} m): the head midway is the height of the water table above ` +
+      `--water-table (${fixedText(waterTableM, 3)} m) must be shallower than --drain-depth ` +
+        `(${fixedText(l.drainDepthM, 3)} m): the head midway is the height of the water table above ` +
         `the drains`,
     );
   }

@@ -7,8 +7,9 @@ import { TilefluxError } from '../errors.js';
 import { drainageIntensity, EQUIVALENT_DEPTH_METHODS, gloverSpacing } from '../drainage/index.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { blocks, echo } from './echo.js';
-import { CAUTION, emit, fmt, requiredQuantity } from './common.js';
+import { CAUTION, emit, requiredQuantity } from './common.js';
 import { layout, layoutRows, len, positive, rate, type SpacingFlags } from './spacingLayout.js';
+import { fixedText } from '../units/decimal.js';
 
 /** `tileflux spacing --transient`: the Glover-Dumm spacing for a drawdown time, printed. */
 export function transientSpacing(o: SpacingFlags, units: UnitSystem): void {
@@ -24,18 +25,18 @@ export function transientSpacing(o: SpacingFlags, units: UnitSystem): void {
   const days = positive(requiredQuantity(o.days, 'duration', '--days'), '--days', 'd');
   if (fromM < 0) {
     throw new TilefluxError(
-      `--from (${fmt(fromM, 3)} m) puts the water table above the surface; give its depth below ` +
+      `--from (${fixedText(fromM, 3)} m) puts the water table above the surface; give its depth below ` +
         `the surface (0 for a water table at the surface)`,
     );
   }
   if (!(toM > fromM)) {
     throw new TilefluxError(
-      `--to (${fmt(toM, 3)} m) must be deeper than --from (${fmt(fromM, 3)} m): the water table falls`,
+      `--to (${fixedText(toM, 3)} m) must be deeper than --from (${fixedText(fromM, 3)} m): the water table falls`,
     );
   }
   if (!(toM < l.drainDepthM)) {
     throw new TilefluxError(
-      `--to (${fmt(toM, 3)} m) must be shallower than --drain-depth (${fmt(l.drainDepthM, 3)} m): ` +
+      `--to (${fixedText(toM, 3)} m) must be shallower than --drain-depth (${fixedText(l.drainDepthM, 3)} m): ` +
         `drains never lower the water table quite to their own level`,
     );
   }
@@ -103,7 +104,7 @@ export function transientSpacing(o: SpacingFlags, units: UnitSystem): void {
             ['average flow depth', `${len(sol.averageFlowDepthM, units)} (d + h0/2)`],
             [
               'head midway',
-              `${len(data.initial_head_m, units)} falling to ${len(data.final_head_m, units)} (ratio ${fmt(sol.headRatio, 3)})`,
+              `${len(data.initial_head_m, units)} falling to ${len(data.final_head_m, units)} (ratio ${fixedText(sol.headRatio, 3)})`,
             ],
             [
               'drainage intensity',

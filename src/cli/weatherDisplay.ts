@@ -12,11 +12,9 @@ import {
   type WeatherSummary,
 } from '../climate/index.js';
 import { US, type UnitSystem } from '../units/quantity.js';
-import { fmt } from './common.js';
+import { fixedText, roundTo } from '../units/decimal.js';
 
 /** Rounded to 0.01 for JSON figures. */
-const round2 = (x: number) => Math.round(x * 100) / 100;
-
 /** The summary fields shared by check and make, with units in their names. */
 export function summaryJson(
   s: WeatherSummary,
@@ -30,17 +28,17 @@ export function summaryJson(
     days: s.days,
     complete_years: s.completeYears.length,
     annual_basis: s.annualBasis,
-    precip_mean_mm_yr: round2(s.precipMeanMmYr),
-    precip_min_mm_yr: s.precipMin ? round2(s.precipMin.mm) : null,
+    precip_mean_mm_yr: roundTo(s.precipMeanMmYr, 2),
+    precip_min_mm_yr: s.precipMin ? roundTo(s.precipMin.mm, 2) : null,
     precip_min_year: s.precipMin?.year ?? null,
-    precip_max_mm_yr: s.precipMax ? round2(s.precipMax.mm) : null,
+    precip_max_mm_yr: s.precipMax ? roundTo(s.precipMax.mm, 2) : null,
     precip_max_year: s.precipMax?.year ?? null,
-    ref_et_mean_mm_yr: round2(s.refEtMeanMmYr),
+    ref_et_mean_mm_yr: roundTo(s.refEtMeanMmYr, 2),
     ref_et_method: s.refEtMethod,
     latitude_deg: latitudeDeg,
     latitude_assumed: assumed,
     elevation_m: elevationM,
-    snow_share_percent: round2(s.snowSharePercent),
+    snow_share_percent: roundTo(s.snowSharePercent, 2),
   };
 }
 
@@ -49,12 +47,13 @@ function weatherDisplay(units: UnitSystem) {
   const us = units === 'us';
   return {
     /** A depth of water from mm, with its unit: "944.9 mm" or "37.20 in". */
-    water: (mm: number, d = 1) => (us ? `${fmt(mm / US.mmPerIn, d + 1)} in` : `${fmt(mm, d)} mm`),
+    water: (mm: number, d = 1) =>
+      us ? `${fixedText(mm / US.mmPerIn, d + 1)} in` : `${fixedText(mm, d)} mm`,
     waterUnit: us ? 'in' : 'mm',
     /** A depth of water from mm without its unit. */
-    waterValue: (mm: number, d = 1) => (us ? fmt(mm / US.mmPerIn, d + 1) : fmt(mm, d)),
+    waterValue: (mm: number, d = 1) => (us ? fixedText(mm / US.mmPerIn, d + 1) : fixedText(mm, d)),
     /** A temperature from degC without its unit (degF by 9/5 C + 32). */
-    temp: (c: number, d = 1) => fmt(us ? (c * 9) / 5 + 32 : c, d),
+    temp: (c: number, d = 1) => fixedText(us ? (c * 9) / 5 + 32 : c, d),
     tempUnit: us ? 'degF' : 'degC',
   };
 }
@@ -79,13 +78,12 @@ export function summaryLines(
     et += ` at latitude ${latitudeDeg} deg${latitudeNote}`;
   }
   const snow =
-    `${fmt(s.snowSharePercent)} % of precipitation falls as snow (degree-day model: snow at a ` +
+    `${fixedText(s.snowSharePercent, 1)} % of precipitation falls as snow (degree-day model: snow at a ` +
     `daily mean of ${units === 'us' ? u.temp(DEFAULT_SNOW.rainSnowThresholdC) : DEFAULT_SNOW.rainSnowThresholdC} ${u.tempUnit} or below)`;
   return [`  precipitation  ${precip}`, `  reference ET   ${et}`, `  snow           ${snow}`];
 }
 
 const MONTHS = 'Jan Feb Mar Apr May Jun Jul Aug Sep Oct Nov Dec'.split(' ');
-const r3 = (x: number) => Math.round(x * 1000) / 1000;
 
 /** Annual totals of complete years: mean, standard deviation, driest, wettest (mm). */
 function annual(s: RecordStatistics) {
@@ -95,10 +93,10 @@ function annual(s: RecordStatistics) {
   const sd = Math.sqrt(a.reduce((x, y) => x + (y - mean) ** 2, 0) / Math.max(1, a.length - 1));
   return {
     years: a.length,
-    mean_mm: round2(mean),
-    sd_mm: round2(sd),
-    min_mm: round2(Math.min(...a)),
-    max_mm: round2(Math.max(...a)),
+    mean_mm: roundTo(mean, 2),
+    sd_mm: roundTo(sd, 2),
+    min_mm: roundTo(Math.min(...a), 2),
+    max_mm: roundTo(Math.max(...a), 2),
   };
 }
 
@@ -109,15 +107,15 @@ function statisticsJson(file: string, s: RecordStatistics) {
     first_date: s.firstDate,
     last_date: s.lastDate,
     days: s.days,
-    precip_month_mm: s.precipMonthMm.map(round2),
-    wet_day_fraction: s.wetDayFraction.map(r3),
-    tmax_month_c: s.tmaxMonthC.map(round2),
-    tmin_month_c: s.tminMonthC.map(round2),
+    precip_month_mm: s.precipMonthMm.map((x) => roundTo(x, 2)),
+    wet_day_fraction: s.wetDayFraction.map((x) => roundTo(x, 3)),
+    tmax_month_c: s.tmaxMonthC.map((x) => roundTo(x, 2)),
+    tmin_month_c: s.tminMonthC.map((x) => roundTo(x, 2)),
     annual_precip: annual(s),
-    max_daily_precip_mm: round2(s.maxDailyPrecipMm),
+    max_daily_precip_mm: roundTo(s.maxDailyPrecipMm, 2),
     max_daily_precip_date: s.maxDailyPrecipDate,
-    max_tmax_c: round2(s.maxTmaxC),
-    min_tmin_c: round2(s.minTminC),
+    max_tmax_c: roundTo(s.maxTmaxC, 2),
+    min_tmin_c: roundTo(s.minTminC, 2),
   };
 }
 
@@ -136,10 +134,11 @@ export function compareLines(
   const pad = (x: string) => x.padStart(7);
   const pairWater = (x: number, y: number) => `${pad(u.waterValue(x))} ${pad(u.waterValue(y))}`;
   const pairTemp = (x: number, y: number) => `${pad(u.temp(x))} ${pad(u.temp(y))}`;
-  const pair = (x: number, y: number, d: number) => `${pad(fmt(x, d))} ${pad(fmt(y, d))}`;
+  const pair = (x: number, y: number, d: number) =>
+    `${pad(fixedText(x, d))} ${pad(fixedText(y, d))}`;
   const lines = [
     `A = ${files[0]} (${a.firstDate} to ${a.lastDate}), B = ${files[1]} (${b.firstDate} to ${b.lastDate})`,
-    `month   precip ${u.waterUnit}/month   wet-day share (>= ${units === 'us' ? `${fmt(WET_DAY_MM / US.mmPerIn, 3)} in` : `${WET_DAY_MM} mm`})   mean Tmax ${u.tempUnit}   mean Tmin ${u.tempUnit}`,
+    `month   precip ${u.waterUnit}/month   wet-day share (>= ${units === 'us' ? `${fixedText(WET_DAY_MM / US.mmPerIn, 3)} in` : `${WET_DAY_MM} mm`})   mean Tmax ${u.tempUnit}   mean Tmin ${u.tempUnit}`,
     `             A       B               A       B            A       B        A       B`,
   ];
   for (let m = 0; m < 12; m++) {

@@ -7,6 +7,7 @@
  * give the makers' inside diameters as a custom list.
  */
 import { TilefluxError } from '../errors.js';
+import { isDecimalNumber } from '../units/decimal.js';
 import { tryParseQuantity } from '../units/quantity.js';
 
 /** A list of available pipe sizes, ascending, in one unit. */
@@ -117,7 +118,7 @@ export function pipeSizeList(spec: string, option = 'sizes'): PipeSizeList {
   const unit: 'in' | 'mm' = unitMatch ? (unitMatch[1] as 'in' | 'mm') : 'mm';
   const nominal: number[] = [];
   for (const part of parts) {
-    const bare = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(part);
+    const bare = isDecimalNumber(part);
     const r = tryParseQuantity(bare ? `${part} ${unit}` : part, 'diameter');
     if (!r.ok || !(r.value > 0)) {
       throw new TilefluxError(`${accepted}; "${part}" is not a positive diameter`);

@@ -20,6 +20,7 @@ import { readTextFile } from './files.js';
 import { CsvError, parse } from 'csv-parse/sync';
 import { dayNumber, isoDate } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
+import { isDecimalNumber } from '../units/decimal.js';
 
 /** One located problem in an observation file. */
 export interface ObservationProblem {
@@ -134,7 +135,6 @@ const CORE_UNIT: Readonly<Record<Variable, string>> = {
   no3: 'mg/L',
 };
 const MISSING = new Set(['', 'na', 'n/a', 'nan', 'null']);
-const NUMERIC = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
 /**
  * Parse an observation CSV into daily series in core units.
@@ -256,7 +256,7 @@ export function parseObservationsCsv(
       const cell = record[index];
       if (MISSING.has(cell.toLowerCase())) continue;
       const where = header[index];
-      if (!NUMERIC.test(cell)) {
+      if (!isDecimalNumber(cell)) {
         add(
           line,
           where,

@@ -7,6 +7,7 @@
  */
 import { stringify } from 'csv-stringify/sync';
 import { US, type UnitSystem } from '../units/quantity.js';
+import { roundTo } from '../units/decimal.js';
 
 /** Suffix conversions from SI to US customary (exact factors, NIST Handbook 44 App. C). */
 const US_SUFFIXES: ReadonlyArray<[string, string, number]> = [
@@ -51,14 +52,12 @@ function decimalsFor(name: string): number {
 export function numberText(x: number, decimals: number): string {
   if (Number.isNaN(x)) return '';
   if (!Number.isFinite(x)) return x > 0 ? 'inf' : '-inf';
-  // Round to the decimals, then print the shortest text that reads back to that double
-  // (ECMAScript Number::toString), which drops trailing zeros; + 0 turns -0 into 0.
-  const p = POW10[decimals];
-  const r = Math.round(x * p) / p + 0;
+  // Unlike fixedText (units/decimal.ts), a cell drops trailing zeros: round to the decimals,
+  // then print the shortest text that reads back to that double (ECMAScript Number::toString),
+  // so files stay short and a value reads back as written; + 0 turns -0 into 0.
+  const r = roundTo(x, decimals) + 0;
   return Math.abs(r) < 1e15 ? String(r) : r.toFixed(0);
 }
-
-const POW10 = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9];
 
 /**
  * CSV text for records, converting columns to the unit system and renaming their suffixes.

@@ -12,9 +12,8 @@
 import { CsvError, parse } from 'csv-parse/browser/esm/sync';
 import { dayNumber } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
+import { isDecimalNumber } from '../units/decimal.js';
 import type { RatingPairs } from './types.js';
-
-const NUMERIC = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 
 /**
  * Parse `date,flow_mm,no3n_mg_l` text into observed pairs.
@@ -90,7 +89,7 @@ export function readRatingPairsCsv(text: string, file = 'rating observations'): 
     const value = (i: number, col: string, unit: string): number | undefined => {
       const cell = record[i];
       if (cell === '') return undefined;
-      if (!NUMERIC.test(cell) || Number(cell) < 0) {
+      if (!isDecimalNumber(cell) || Number(cell) < 0) {
         throw new TilefluxError(
           `${where(col)}: "${cell}" is not a number of at least 0; expected ${unit}, or an empty cell for no sample`,
           file,

@@ -16,6 +16,7 @@
 import { z } from 'zod';
 import { dayNumber } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
+import { DECIMAL_NUMBER } from '../units/decimal.js';
 import { US } from '../units/quantity.js';
 import { zQuantity } from '../units/zodQuantity.js';
 import { fitRating } from './fitRating.js';
@@ -27,10 +28,15 @@ import {
 import { readRatingPairsCsv } from './ratingCsv.js';
 import type { NitrateConfig, RatingFit } from './types.js';
 
-const NUMBER = String.raw`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`;
-const KG_HA = new RegExp(String.raw`^\s*(${NUMBER})\s*kg\s*(?:N\s*)?/\s*(?:ha|hectare)\s*$`, 'i');
-const LB_AC = new RegExp(String.raw`^\s*(${NUMBER})\s*lbs?\s*(?:N\s*)?/\s*(?:ac|acre)\s*$`, 'i');
-const BARE = new RegExp(String.raw`^\s*(${NUMBER})\s*$`);
+const KG_HA = new RegExp(
+  String.raw`^\s*(${DECIMAL_NUMBER})\s*kg\s*(?:N\s*)?/\s*(?:ha|hectare)\s*$`,
+  'i',
+);
+const LB_AC = new RegExp(
+  String.raw`^\s*(${DECIMAL_NUMBER})\s*lbs?\s*(?:N\s*)?/\s*(?:ac|acre)\s*$`,
+  'i',
+);
+const BARE = new RegExp(String.raw`^\s*(${DECIMAL_NUMBER})\s*$`);
 
 /**
  * A mass of N per area: a number in kg N/ha, or "150 kg/ha", "150 kg N/ha", "134 lb/ac".

@@ -84,8 +84,5 @@ export const CONFIG: Config = {
   line: { strokeWidth: 1.8 },
   point: { size: 40, filled: true },
 };
-/** Round to a fixed number of decimals, keeping the inlined data short and deterministic. */
-export function roundTo(x: number, decimals: number): number {
-  const f = 10 ** decimals;
-  return Math.round(x * f) / f;
-}
+/** The charts round their inlined data with `roundTo`, keeping it short and deterministic. */
+export { roundTo } from '../units/decimal.js';

@@ -2,16 +2,17 @@
  * Number formatting for people (report tables and summary lines): fixed decimals, no "-0",
  * explicit sign for changes, and "n/a" where a figure does not exist (null).
  */
+import { fixedText } from '../units/decimal.js';
 
 /**
- * A number with a fixed number of decimals; "n/a" for null or a non-finite value.
+ * A number with a fixed number of decimals (`fixedText`); "n/a" for null or a non-finite value,
+ * since a report table shows a figure that does not exist as words, not as "NaN".
  *
  * @example fixed(-0.04, 1) // '0.0'
  */
 export function fixed(x: number | null, decimals = 1): string {
   if (x === null || !Number.isFinite(x)) return 'n/a';
-  const s = x.toFixed(decimals);
-  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
+  return fixedText(x, decimals);
 }
 
 /**

@@ -9,6 +9,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import { LOAD_MEASURE, WETNESS_MEASURE, type SweepResult } from '../scenarios/sweep.js';
 import { climateSlug, frontierUnion, type ClimateStudy } from '../scenarios/sweepClimates.js';
 import { CONFIG, PALETTE, VEGA_LITE_SCHEMA } from './chartTheme.js';
+import { roundTo } from '../units/decimal.js';
 
 /** Names of the sweep charts (file stems in `charts/`), in report order. */
 export const SWEEP_CHART_NAMES = ['frontier', 'load-map', 'wetness-map', 'cost-per-kg'] as const;
@@ -31,10 +32,9 @@ export const SWEEP_CHART_CAPTIONS: Readonly<Record<SweepChartName, string>> = {
 
 const COST_RANGE = ['#f3e3b5', '#d1603d', '#5a1f2b'];
 
+/** Rounded for the inlined chart data; null (Vega-Lite's missing value) when not finite. */
 function round(x: number, decimals: number): number | null {
-  if (!Number.isFinite(x)) return null;
-  const f = 10 ** decimals;
-  return Math.round(x * f) / f;
+  return Number.isFinite(x) ? roundTo(x, decimals) : null;
 }
 
 function managements(r: SweepResult): string[] {

@@ -30,6 +30,7 @@ import { scenarioOf } from './resolve.js';
 import { latinHypercube, scaledValue } from './sampling.js';
 import { costsSchema, type CostsSection } from './sweepSchema.js';
 import type { AnnualRow } from './types.js';
+import { roundTo } from '../units/decimal.js';
 
 /** Annual columns that are bookkeeping or weather, not results of a design. */
 const NOT_MEASURES = new Set([
@@ -114,7 +115,7 @@ export interface SweepOptions extends PeriodOptions {
 }
 
 function lengthText(x: number): string {
-  return String(Math.round(x * 1000) / 1000);
+  return String(roundTo(x, 3));
 }
 
 /** The unit of a soil key from its schema description ("... [m/d; e.g. ...]"), as a suffix. */

@@ -13,11 +13,14 @@
  * evaluations. Put local prices in the field file.
  */
 import { z } from 'zod';
+import { DECIMAL_NUMBER } from '../units/decimal.js';
 import { zQuantity } from '../units/zodQuantity.js';
 
-const NUMBER = String.raw`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`;
-const PER_M = new RegExp(String.raw`^\s*(${NUMBER})\s*/\s*(m|metre|meter|ft|foot|feet)\s*$`, 'i');
-const OF_LATERAL = new RegExp(String.raw`^\s*(${NUMBER})\s*(%?)\s*of\s+lateral\s*$`, 'i');
+const PER_M = new RegExp(
+  String.raw`^\s*(${DECIMAL_NUMBER})\s*/\s*(m|metre|meter|ft|foot|feet)\s*$`,
+  'i',
+);
+const OF_LATERAL = new RegExp(String.raw`^\s*(${DECIMAL_NUMBER})\s*(%?)\s*of\s+lateral\s*$`, 'i');
 const M_PER_FT = 0.3048;
 
 /** A list of lengths, or an evenly spaced range { from, to, step } (both ends included). */

@@ -3,6 +3,7 @@
  * states), in the reader's unit system. SI keeps the numbers as given; US customary converts
  * with the exact definitions of the foot (0.3048 m) and the inch (25.4 mm).
  */
+import { fixedText } from './decimal.js';
 import { US, type UnitSystem } from './quantity.js';
 
 /** How a unit system writes quantities in prose. */
@@ -14,12 +15,6 @@ export interface Prose {
   rate(mmPerDay: number): string;
   /** A hydraulic conductivity, from m/d: "0.9 m/d" or "2.95 ft/d". */
   conductivity(mPerDay: number): string;
-}
-
-/** Round for prose: fixed decimals, without a negative zero. */
-function fixedText(x: number, decimals: number): string {
-  const s = x.toFixed(decimals);
-  return /^-0(\.0*)?$/.test(s) ? s.slice(1) : s;
 }
 
 /**

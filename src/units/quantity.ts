@@ -8,6 +8,7 @@
  */
 import Qty from 'js-quantities';
 import { clip, TilefluxError } from '../errors.js';
+import { DECIMAL_NUMBER, isDecimalNumber } from './decimal.js';
 
 /** What a quantity measures, and therefore which unit the core receives it in. */
 export type QuantityKind =
@@ -81,14 +82,14 @@ const ALIASES: ReadonlyArray<[RegExp, string]> = [
   [/ft\/100\s*ft/g, 'percent'],
 ];
 
+/** A leading number written against its unit ("12ha"), the whole number in group 1. */
+const NUMBER_AGAINST_UNIT = new RegExp(
+  String.raw`^(${DECIMAL_NUMBER})(?![\d.]|[eE][-+]?\d)(?=[A-Za-z%])`,
+);
+
 function normalise(text: string): string {
   // "12ha", "10mm/d", "1.2m": a unit written against its number reads as if spaced.
-  let s = text
-    .trim()
-    .replace(
-      /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)(?![\d.]|[eE][-+]?\d)(?=[A-Za-z%])/,
-      '$1 ',
-    );
+  let s = text.trim().replace(NUMBER_AGAINST_UNIT, '$1 ');
   for (const [re, to] of ALIASES) s = s.replace(re, to);
   return s;
 }
@@ -113,8 +114,7 @@ export function tryParseQuantity(
   const text = value.trim();
   if (text === '') return fail('an empty value');
   // A bare number is in the documented unit.
-  if (/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(text))
-    return { ok: true, value: Number(text) };
+  if (isDecimalNumber(text)) return { ok: true, value: Number(text) };
   let q: Qty;
   try {
     q = Qty(normalise(text));

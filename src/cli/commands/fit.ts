@@ -30,7 +30,7 @@ import { fitColumns, fitDocument, fitSeriesOf, type FitDocument } from '../../re
 import { localRunner, type SearchRunner } from '../../scenarios/optimise.js';
 import { parseQuantity } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { action, emit, fmt, CAUTION } from '../common.js';
+import { action, emit, CAUTION } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { poolRunner } from '../fitPool.js';
 import { progress } from '../progress.js';
@@ -40,6 +40,7 @@ import {
   type WeatherReadFlags,
 } from '../weatherOptions.js';
 import { summaryOf } from '../catalog.js';
+import { fixedText } from '../../units/decimal.js';
 
 export interface FitCommandOptions extends WeatherReadFlags {
   weather: string;
@@ -107,17 +108,17 @@ function fitReportText(doc: FitDocument, out: string, written: string[]): string
       const s = p.drainflow;
       const r = p.drainflow_ratings!;
       lines.push(
-        `  drain flow (${s.n_days} days): NSE ${fmt(s.nse ?? NaN, 3)} (${r.nse ?? 'n/a'}), ` +
-          `KGE ${fmt(s.kge ?? NaN, 3)}, log-NSE ${fmt(s.log_nse ?? NaN, 3)}, ` +
-          `PBIAS ${fmt(s.pbias_percent ?? NaN, 1)} % (${r.pbias_percent ?? 'n/a'}), ` +
-          `R^2 ${fmt(s.r2 ?? NaN, 3)} (${r.r2 ?? 'n/a'}), RMSE ${fmt(s.rmse_mm ?? NaN, 3)} mm/d`,
+        `  drain flow (${s.n_days} days): NSE ${fixedText(s.nse ?? NaN, 3)} (${r.nse ?? 'n/a'}), ` +
+          `KGE ${fixedText(s.kge ?? NaN, 3)}, log-NSE ${fixedText(s.log_nse ?? NaN, 3)}, ` +
+          `PBIAS ${fixedText(s.pbias_percent ?? NaN, 1)} % (${r.pbias_percent ?? 'n/a'}), ` +
+          `R^2 ${fixedText(s.r2 ?? NaN, 3)} (${r.r2 ?? 'n/a'}), RMSE ${fixedText(s.rmse_mm ?? NaN, 3)} mm/d`,
       );
     }
     if (p.water_table) {
       const s = p.water_table;
       lines.push(
-        `  water-table depth (${s.n_days} days): NSE ${fmt(s.nse ?? NaN, 3)}, KGE ` +
-          `${fmt(s.kge ?? NaN, 3)}, RMSE ${fmt(s.rmse_m ?? NaN, 3)} m`,
+        `  water-table depth (${s.n_days} days): NSE ${fixedText(s.nse ?? NaN, 3)}, KGE ` +
+          `${fixedText(s.kge ?? NaN, 3)}, RMSE ${fixedText(s.rmse_m ?? NaN, 3)} m`,
       );
     }
   }
@@ -137,7 +138,7 @@ function fitReportText(doc: FitDocument, out: string, written: string[]): string
 /** Header comment of fitted.yaml: what was fitted, against what, and how well. */
 function headerLines(doc: FitDocument, r: FitResult): string[] {
   const stat = (x: number | null | undefined, d: number) =>
-    x === null || x === undefined ? 'n/a' : fmt(x, d);
+    x === null || x === undefined ? 'n/a' : fixedText(x, d);
   const lines = [
     `Fitted by ${doc.generated_by} fit against ${doc.observations_file} on ${doc.weather_file}`,
     `(objective ${doc.objective}, seed ${doc.seed}, ${doc.model_runs} model runs; details in fit.json).`,

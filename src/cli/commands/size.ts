@@ -25,8 +25,9 @@ import {
   SEDIMENT_VELOCITY_MS,
   type PipeMaterial,
 } from '../../drainage/index.js';
+import { fixedText, isDecimalNumber } from '../../units/decimal.js';
 import { parseQuantity, tryParseQuantity, US, type UnitSystem } from '../../units/quantity.js';
-import { action, CAUTION, emit, fmt, requiredQuantity, warn, parseUnits } from '../common.js';
+import { action, CAUTION, emit, requiredQuantity, warn, parseUnits } from '../common.js';
 import { blocks, echo } from '../echo.js';
 import { summaryOf } from '../catalog.js';
 
@@ -64,7 +65,7 @@ const SCOUR_VELOCITY_MS = 3.5 * 0.3048;
  * some and as percent by others, a factor of 100 apart.
  */
 function slopeOption(value: string | undefined): number {
-  if (value !== undefined && /^\s*[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?\s*$/.test(value)) {
+  if (value !== undefined && isDecimalNumber(value.trim())) {
     throw new TilefluxError(
       `--slope needs a unit: "${value.trim()} %", "${value.trim()} m/m" or "${value.trim()} ft/100ft" ` +
         `(a bare number could be either, a factor of 100 apart); got ${value.trim()}`,
@@ -141,7 +142,7 @@ function drainedArea(o: SizeFlags): {
     m2,
     lengthM,
     spacingM,
-    text: `${echo(o.length, lengthM, 'm', 1)} x ${echo(o.spacing, spacingM, 'm', 1)} = ${fmt(m2 / 10000, 3)} ha`,
+    text: `${echo(o.length, lengthM, 'm', 1)} x ${echo(o.spacing, spacingM, 'm', 1)} = ${fixedText(m2 / 10000, 3)} ha`,
   };
 }
 
@@ -170,8 +171,8 @@ function designRate(o: SizeFlags): { mmPerDay: number; text: string; table?: Dra
       mmPerDay: c.mmPerDay,
       table: c,
       text:
-        `${fmt(c.inPerDay, 4)} in/d = ${fmt(c.mmPerDay, 2)} mm/d (${p.soil} soil, ${p.crop} crops, ` +
-        `inlets ${p.inlets}: tabulated ${fmt(c.lowInPerDay, 3)}-${fmt(c.highInPerDay, 3)} in/d, middle used)`,
+        `${fixedText(c.inPerDay, 4)} in/d = ${fixedText(c.mmPerDay, 2)} mm/d (${p.soil} soil, ${p.crop} crops, ` +
+        `inlets ${p.inlets}: tabulated ${fixedText(c.lowInPerDay, 3)}-${fixedText(c.highInPerDay, 3)} in/d, middle used)`,
     };
   }
   const mmPerDay = requiredQuantity(given, 'rate', '--coefficient');
@@ -203,12 +204,12 @@ function run(o: SizeFlags): void {
   const minGrade = minimumGrade(pipe.diameterM, velocityMs, rough.n);
   if (slope > STEEP_GRADE) {
     warn(
-      `--slope ${o.slope} is ${fmt(slope * 100, 3)} %, steeper than the 5 % drain lines rarely exceed (common practice); check the unit (0.2 % = 0.002 m/m)`,
+      `--slope ${o.slope} is ${fixedText(slope * 100, 3)} %, steeper than the 5 % drain lines rarely exceed (common practice); check the unit (0.2 % = 0.002 m/m)`,
     );
   }
   if (velocity > SCOUR_VELOCITY_MS) {
     warn(
-      `full-flow velocity ${fmt(velocity, 2)} m/s (${fmt(velocity / US.mPerFt, 2)} ft/s) exceeds 3.5 ft/s, the usual limit for drains in sandy soils without protected joints or envelope (US conservation practice standards for subsurface drains, from memory; finer soils allow 5-7 ft/s)`,
+      `full-flow velocity ${fixedText(velocity, 2)} m/s (${fixedText(velocity / US.mPerFt, 2)} ft/s) exceeds 3.5 ft/s, the usual limit for drains in sandy soils without protected joints or envelope (US conservation practice standards for subsurface drains, from memory; finer soils allow 5-7 ft/s)`,
     );
   }
   const selectedKey = pipe.unit === 'in' ? 'selected_diameter_in' : 'selected_diameter_mm';
@@ -245,11 +246,12 @@ function run(o: SizeFlags): void {
   };
   const us = units === 'us';
   const flow = (m3s: number) =>
-    us ? `${fmt(m3s * US.cfsPerM3s, 4)} cfs` : `${fmt(m3s * 1000, 2)} L/s`;
-  const speed = (ms: number) => (us ? `${fmt(ms / US.mPerFt, 2)} ft/s` : `${fmt(ms, 2)} m/s`);
+    us ? `${fixedText(m3s * US.cfsPerM3s, 4)} cfs` : `${fixedText(m3s * 1000, 2)} L/s`;
+  const speed = (ms: number) =>
+    us ? `${fixedText(ms / US.mPerFt, 2)} ft/s` : `${fixedText(ms, 2)} m/s`;
   const needed = us
-    ? `${fmt((requiredM * 1000) / US.mmPerIn, 2)} in (${fmt(requiredM * 1000, 0)} mm)`
-    : `${fmt(requiredM * 1000, 0)} mm (${fmt((requiredM * 1000) / US.mmPerIn, 2)} in)`;
+    ? `${fixedText((requiredM * 1000) / US.mmPerIn, 2)} in (${fixedText(requiredM * 1000, 0)} mm)`
+    : `${fixedText(requiredM * 1000, 0)} mm (${fixedText((requiredM * 1000) / US.mmPerIn, 2)} in)`;
   emit(o.json, data, () =>
     [
       "Pipe size for a drain line (Manning's equation, circular pipe flowing full)",
@@ -273,12 +275,12 @@ function run(o: SizeFlags): void {
             [
               'selected size',
               `${pipe.nominal} ${pipe.unit}, the next size up: ${flow(capacity)} full, ` +
-                `${fmt(data.capacity_used_percent, 0)} % used`,
+                `${fixedText(data.capacity_used_percent, 0)} % used`,
             ],
             ['full-flow velocity', `${speed(velocity)} at this grade`],
             [
               'minimum grade',
-              `${fmt(minGrade * 100, 3)} % for ${speed(velocityMs)} full-flow velocity (--velocity)`,
+              `${fixedText(minGrade * 100, 3)} % for ${speed(velocityMs)} full-flow velocity (--velocity)`,
             ],
           ],
         ],
@@ -305,7 +307,7 @@ function coefficientTable(): string {
         `  ${`${soil} ${crop}`.padEnd(14)}` +
         COEFFICIENT_INLETS.map((inlets) => {
           const c = drainageCoefficient({ soil, crop, inlets });
-          return `${inlets} ${fmt(c.lowInPerDay, 3)}-${fmt(c.highInPerDay, 3)}`;
+          return `${inlets} ${fixedText(c.lowInPerDay, 3)}-${fixedText(c.highInPerDay, 3)}`;
         }).join(', '),
     ),
   ).join('\n');

@@ -41,6 +41,7 @@ import {
   type WeatherReadFlags,
 } from '../weatherOptions.js';
 import { summaryOf } from '../catalog.js';
+import { roundTo } from '../../units/decimal.js';
 
 interface SweepCommandOptions extends WeatherReadFlags {
   weather: string[];
@@ -137,7 +138,6 @@ export function sweepSummary(r: SweepResult, fieldFile: string, weatherFile: str
  * each design on any frontier with its rank per climate, and the designs robust across climates.
  */
 export function studySummary(s: ClimateStudy, fieldFile: string, files: readonly string[]) {
-  const round1 = (x: number) => Math.round(x * 10) / 10;
   const { caution, ...first } = sweepSummary(s.climates[0].result, fieldFile, files[0]);
   const designs = s.climates[0].result.designs;
   return {
@@ -151,8 +151,8 @@ export function studySummary(s: ClimateStudy, fieldFile: string, files: readonly
         from: one.from,
         to: one.to,
         years: one.years,
-        precip_mean_mm_yr: round1(c.figures.precipMmYr),
-        ref_et_mean_mm_yr: round1(c.figures.refEtMmYr),
+        precip_mean_mm_yr: roundTo(c.figures.precipMmYr, 1),
+        ref_et_mean_mm_yr: roundTo(c.figures.refEtMmYr, 1),
         ref_et_method: c.figures.refEtMethod,
         baseline: one.baseline,
         frontier: one.frontier,

@@ -16,9 +16,10 @@ import { profileChartSpecs } from '../../report/systemCharts.js';
 import { buildSystemReportHtml } from '../../report/systemHtml.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { action, CAUTION, emit, fmt, parseUnits } from '../common.js';
+import { action, CAUTION, emit, parseUnits } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { summaryOf } from '../catalog.js';
+import { fixedText } from '../../units/decimal.js';
 
 interface SystemFlags {
   profile?: string;
@@ -35,19 +36,20 @@ interface SystemFlags {
 function table(design: SystemDesign, units: UnitSystem): string {
   const us = units === 'us';
   const flowU = us ? 'ft3/s' : 'L/s';
-  const flow = (m3s: number) => (us ? fmt(m3s * US.cfsPerM3s, 3) : fmt(m3s * 1000, 2));
-  const dc = (mmD: number) => (us ? fmt(mmD / US.mmPerIn, 3) : fmt(mmD, 1));
+  const flow = (m3s: number) => (us ? fixedText(m3s * US.cfsPerM3s, 3) : fixedText(m3s * 1000, 2));
+  const dc = (mmD: number) => (us ? fixedText(mmD / US.mmPerIn, 3) : fixedText(mmD, 1));
   const dcU = us ? 'in/d' : 'mm/d';
-  const area = (m2: number) => (us ? fmt(m2 / 10000 / US.haPerAc, 2) : fmt(m2 / 10000, 2));
+  const area = (m2: number) =>
+    us ? fixedText(m2 / 10000 / US.haPerAc, 2) : fixedText(m2 / 10000, 2);
   const areaU = us ? 'ac' : 'ha';
   const head =
     `${'pipe'.padEnd(14)} ${`area ${areaU}`.padStart(9)} ${`flow ${flowU}`.padStart(11)} ` +
     `${'needs'.padStart(8)} ${'size'.padStart(7)} ${'used'.padStart(5)} ${'grade %'.padStart(8)} ` +
     `${'min %'.padStart(6)} ${`eff. ${dcU}`.padStart(10)} ${'cut max'.padStart(8)}`;
   const needs = (d: number) =>
-    us ? `${fmt((d * 1000) / US.mmPerIn, 2)}in` : `${fmt(d * 1000, 0)}mm`;
+    us ? `${fixedText((d * 1000) / US.mmPerIn, 2)}in` : `${fixedText(d * 1000, 0)}mm`;
   const cut = (m: number | undefined) =>
-    m === undefined ? '' : us ? `${fmt(m / US.mPerFt, 1)}ft` : `${fmt(m, 2)}m`;
+    m === undefined ? '' : us ? `${fixedText(m / US.mPerFt, 1)}ft` : `${fixedText(m, 2)}m`;
   const line = (
     id: string,
     areaM2: number,
@@ -56,8 +58,8 @@ function table(design: SystemDesign, units: UnitSystem): string {
   ) =>
     `${id.slice(0, 14).padEnd(14)} ${area(areaM2).padStart(9)} ${flow(p.designFlowM3s).padStart(11)} ` +
     `${needs(p.requiredDiameterM).padStart(8)} ${`${p.selected.nominal} ${p.selected.unit}`.padStart(7)} ` +
-    `${`${fmt(p.sharePercent, 0)}%`.padStart(5)} ${fmt(p.grade * 100, 3).padStart(8)} ` +
-    `${fmt(p.minimumGrade * 100, 3).padStart(6)} ${dc(p.effectiveCoefficientMmD).padStart(10)} ${cut(maxCut).padStart(8)}`;
+    `${`${fixedText(p.sharePercent, 0)}%`.padStart(5)} ${fixedText(p.grade * 100, 3).padStart(8)} ` +
+    `${fixedText(p.minimumGrade * 100, 3).padStart(6)} ${dc(p.effectiveCoefficientMmD).padStart(10)} ${cut(maxCut).padStart(8)}`;
   return [
     head,
     ...design.reaches.map((r) => line(r.reach.id, r.reach.areaAboveM2, r, r.maxCutM)),
@@ -128,8 +130,8 @@ async function run(systemPath: string, o: SystemFlags): Promise<void> {
       `${planName}: ${design.reaches.length} reaches on ${design.mains.length} mains, ` +
         `${design.laterals.length} lateral groups; coefficient ${
           units === 'us'
-            ? `${fmt(loaded.settings.coefficientMmD / US.mmPerIn, 3)} in/d`
-            : `${fmt(loaded.settings.coefficientMmD, 1)} mm/d`
+            ? `${fixedText(loaded.settings.coefficientMmD / US.mmPerIn, 3)} in/d`
+            : `${fixedText(loaded.settings.coefficientMmD, 1)} mm/d`
         } (${loaded.coefficientText}), sizes rounded ${loaded.settings.round}`,
       '',
       table(design, units),

@@ -227,8 +227,8 @@ export class CsvRows {
   }
 
   /**
-   * Field k as a decimal number (`[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?`), NaN when it is not
-   * one. Up to 15 significant digits without exponent are read as integer / 10^k, which is
+   * Field k as a decimal number (the forms of `DECIMAL_NUMBER`, units/decimal.ts), NaN when it
+   * is not one. Up to 15 significant digits without exponent are read as integer / 10^k, which is
    * correctly rounded (both exact in binary64; Clinger, 1990, "How to read floating point
    * numbers accurately", PLDI), so the result equals Number(text); other forms use Number().
    */

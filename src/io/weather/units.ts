@@ -3,6 +3,7 @@
  * the vocabulary every weather reader and message shares.
  */
 import { US } from '../../units/quantity.js';
+import { roundTo } from '../../units/decimal.js';
 
 /** The variables a weather file can hold, by their short names (used by `columns`). */
 export const WEATHER_VARIABLES = [
@@ -105,7 +106,10 @@ export function isMissingText(cell: string): boolean {
   return MISSING.has(cell.toLowerCase());
 }
 
-/** A value for messages: at most two decimals. */
+/**
+ * A value for messages: at most two decimals, trailing zeros dropped ("12.5 degC", not
+ * "12.50"), as the cell was likely written; String prints a rounded -0 as "0".
+ */
 export function fmtValue(x: number): string {
-  return String(Math.round(x * 100) / 100);
+  return String(roundTo(x, 2));
 }

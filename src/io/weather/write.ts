@@ -3,6 +3,7 @@
  * with fixed decimals so the same series always gives the same bytes.
  */
 import type { WeatherSeries } from '../../climate/weatherSeries.js';
+import { fixedText } from '../../units/decimal.js';
 
 /** Columns of tileflux's own weather CSV: header, series field, decimals. */
 const OWN_COLUMNS: ReadonlyArray<[string, keyof Omit<WeatherSeries, 'dates'>, number]> = [
@@ -31,9 +32,7 @@ export function formatWeatherCsv(w: WeatherSeries): string {
   for (let i = 0; i < w.dates.length; i++) {
     let row = w.dates[i];
     for (let k = 0; k < arrays.length; k++) {
-      let s = arrays[k][i].toFixed(decimals[k]);
-      if (s.charCodeAt(0) === 45 && /^-0\.0*$/.test(s)) s = s.slice(1);
-      row += ',' + s;
+      row += ',' + fixedText(arrays[k][i], decimals[k]);
     }
     out.push(row);
   }
