@@ -26,6 +26,7 @@ import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
 import { writeRunFolder, type RunFolderOptions } from '../report/writeRun.js';
 import { fixedText } from '../units/decimal.js';
+
 export interface RunCommandOptions extends WeatherReadFlags {
   weather: string;
   out?: string;
