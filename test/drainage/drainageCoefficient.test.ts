@@ -99,4 +99,28 @@ describe('parseCoefficientPreset', () => {
     );
     expect(() => parseCoefficientPreset('  ', '--coefficient')).toThrowError(/--coefficient/);
   });
+
+  it('separates words by spaces, commas, slashes, plus signs and hyphens', () => {
+    const want = { soil: 'organic', crop: 'truck', inlets: 'blind' };
+    for (const text of ['organic/truck/blind', 'organic-truck-blind', 'organic+truck+blind'])
+      expect(parseCoefficientPreset(text, 'x')).toEqual(want);
+    expect(parseCoefficientPreset(' ORGANIC ,  truck,blind ', 'x')).toEqual(want);
+  });
+
+  it('says in full what is accepted (the messages users see)', () => {
+    const accepted =
+      'words from soil mineral|organic, crop field|truck, inlets none|blind|open (e.g. "mineral field none")';
+    expect(() => parseCoefficientPreset('  ', 'drains.coefficient')).toThrowError(
+      `drains.coefficient: expects ${accepted}; got "  "`,
+    );
+    expect(() => parseCoefficientPreset('open blind', 'drains.coefficient')).toThrowError(
+      `drains.coefficient: gives the inlets twice (open, blind); ${accepted}`,
+    );
+    expect(() =>
+      drainageCoefficient({ soil: 'peat', crop: 'field', inlets: 'none' } as never),
+    ).toThrowError(
+      'unknown drainage-coefficient preset {"soil":"peat","crop":"field","inlets":"none"}; ' +
+        'accepted: soil mineral|organic, crop field|truck, inlets none|blind|open',
+    );
+  });
 });
