@@ -3,8 +3,8 @@
  * engine, nitrate models, scenario runs and comparison, and the Vega-Lite chart specs. Nothing
  * here imports Node, so it runs in a browser, a worker thread or a notebook kernel.
  *
- * Every export is listed by name, so the public API is this list; test/api/api-report.md shows
- * each with its type (`npm run api` rewrites it, a test checks it).
+ * Every export is listed by name, so the public API is this list (hence its length);
+ * test/api/api-report.md shows each with its type (`npm run api` rewrites it, a test checks it).
  */
 
 // Errors a user can cause, and the package version

@@ -3,7 +3,8 @@
  * CSV, field YAML, run folders) and the chart rendering and HTML report.
  *
  * Every export is listed by name: first all of src/core.ts (a test checks that none is left
- * out), then the Node-only ones. test/api/api-report.md shows each with its type.
+ * out), then the Node-only ones, which makes the file long. test/api/api-report.md shows each
+ * with its type.
  */
 
 // From the core: errors, the version and quantity strings
