@@ -26,6 +26,7 @@ const FLAG_OF_SETTING: Readonly<Record<string, string>> = {
   sizes: '--sizes',
   force: '--force',
   out: '--out',
+  profile: '--profile',
 };
 
 /** A user error's message as the CLI says it: settings called by their flags. */

@@ -25,7 +25,7 @@
  * is tried with its own laid grade), so `designSystem` walks the mains and their laterals in one
  * pass; the grade laying, Manning and the size lists are in their own modules.
  */
-import { TilefluxError } from '../errors.js';
+import { SettingError, TilefluxError } from '../errors.js';
 import {
   layReach,
   groundAt,
@@ -238,8 +238,9 @@ export function designSystem(
       }
     }
   } else if (s.outletDepthM !== undefined) {
-    throw new TilefluxError(
-      'outlet.depth is a depth below the ground and needs a profile (--profile); give outlet.invert instead',
+    throw new SettingError(
+      (n) =>
+        `outlet.depth is a depth below the ground and needs a profile (${n('profile')}); give outlet.invert instead`,
     );
   }
   const outletMain = tree.mains[0];
@@ -282,8 +283,9 @@ export function designSystem(
             maximumDepthM: s.maximumDepthM,
           });
       } else {
-        throw new TilefluxError(
-          `${r.key}.grade: reach ${r.id} has no grade; give it a grade (or the main one), or give a ground profile with --profile`,
+        throw new SettingError(
+          (n) =>
+            `${r.key}.grade: reach ${r.id} has no grade; give it a grade (or the main one), or give a ground profile with ${n('profile')}`,
         );
       }
       const sized = sizePipe(

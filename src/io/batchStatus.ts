@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { stringify } from 'csv-stringify/sync';
-import { clip, TilefluxError } from '../errors.js';
+import { clip, SettingError } from '../errors.js';
 import { safeCell } from './tables.js';
 import { CsvRows, CsvSyntaxError } from './weather/csvRows.js';
 
@@ -37,11 +37,17 @@ export function statusCsv(rows: readonly JobStatus[]): string {
   ]);
 }
 
-/** An error as one line for the status file: no line breaks, at most 1,000 characters. */
+/** Names of the user errors (TilefluxError and its subclasses), which keep their message. */
+const USER_ERRORS = new Set(['TilefluxError', 'SettingError', 'WeatherInputError']);
+
+/**
+ * An error as one line for the status file: no line breaks, at most 1,000 characters. Errors
+ * are told apart by name, as a job's error may come back from a worker thread as a plain Error.
+ */
 export function oneLine(err: unknown): string {
   const text =
     err instanceof Error
-      ? err.name === 'TilefluxError' || err.name === 'WeatherInputError'
+      ? USER_ERRORS.has(err.name)
         ? err.message
         : `internal error: ${err.message}`
       : String(err);
@@ -53,9 +59,9 @@ export function readStatus(path: string): JobStatus[] {
   const text = readFileSync(path, 'utf8');
   const rows = new CsvRows(text);
   const bad = (line: number, what: string) =>
-    new TilefluxError(
-      `line ${line}: ${what}; this is not a status file of tileflux batch (remove it or use --force to start the shard again)`,
-      path,
+    new SettingError(
+      (n) =>
+        `${path}: line ${line}: ${what}; this is not a status file of tileflux batch (remove it or use ${n('force')} to start the shard again)`,
     );
   try {
     if (!rows.next() || rows.fields().join(',') !== STATUS_COLUMNS.join(','))

@@ -33,12 +33,13 @@ export interface FitSetup {
   warmupYears?: number;
 }
 
-/** Parse "FROM..TO" (ISO dates) for --calibrate and --validate. */
-export function parsePeriod(text: string, option: string): [string, string] {
+/** Parse "FROM..TO" (ISO dates) for the setting `calibrate` or `validate`. */
+export function parsePeriod(text: string, setting: 'calibrate' | 'validate'): [string, string] {
   const m = /^(\d{4}-\d{2}-\d{2})\.\.(\d{4}-\d{2}-\d{2})$/.exec(text.trim());
   if (!m || dayNumber(m[1]) === undefined || dayNumber(m[2]) === undefined || m[2] < m[1]) {
-    throw new TilefluxError(
-      `${option} expects FROM..TO with two dates, the first not after the second, such as ` +
+    throw new SettingError(
+      (n) =>
+        `${n(setting)} expects FROM..TO with two dates, the first not after the second, such as ` +
         `2013-01-01..2014-12-31; got ${text}`,
     );
   }
@@ -121,9 +122,10 @@ export function buildFitProblem(s: FitSetup): FitProblem {
   const usableFrom = obs.dates[firstObs] > earliest ? obs.dates[firstObs] : earliest;
   const usableTo = obs.dates[lastObs];
   if (!s.calibrate && usableFrom > usableTo) {
-    throw new TilefluxError(
-      `every observation lies in the warm-up (the first ${warmupYears} year${warmupYears === 1 ? '' : 's'} ` +
-        `of the weather, ${wFirst} to before ${earliest}); give weather from earlier or use --warmup-years 0`,
+    throw new SettingError(
+      (n) =>
+        `every observation lies in the warm-up (the first ${warmupYears} year${warmupYears === 1 ? '' : 's'} ` +
+        `of the weather, ${wFirst} to before ${earliest}); give weather from earlier or use ${n('warmupYears')} 0`,
     );
   }
   if (
@@ -132,8 +134,10 @@ export function buildFitProblem(s: FitSetup): FitProblem {
     s.calibrate[0] <= s.validate[1] &&
     s.validate[0] <= s.calibrate[1]
   ) {
-    throw new TilefluxError(
-      `--calibrate ${s.calibrate.join('..')} and --validate ${s.validate.join('..')} overlap; ` +
+    const [calibrate, validate] = [s.calibrate.join('..'), s.validate.join('..')];
+    throw new SettingError(
+      (n) =>
+        `${n('calibrate')} ${calibrate} and ${n('validate')} ${validate} overlap; ` +
         'a split-sample test needs separate periods',
     );
   }

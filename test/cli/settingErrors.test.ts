@@ -3,7 +3,12 @@
  */
 import { describe, expect, it } from 'vitest';
 import { cliMessage } from '../../src/cli/common.js';
+import { designSystem } from '../../src/drainage/systemDesign.js';
+import { systemSchema } from '../../src/drainage/systemSchema.js';
+import { buildSystemTree } from '../../src/drainage/systemTree.js';
+import { INCH_SIZES } from '../../src/drainage/pipeSizes.js';
 import { SettingError, TilefluxError } from '../../src/errors.js';
+import { parsePeriod } from '../../src/scenarios/fitProblem.js';
 import { tileflux, FIELD, WEATHER } from './cli.js';
 
 describe('setting errors', () => {
@@ -23,6 +28,40 @@ describe('setting errors', () => {
     expect(cliMessage(new TilefluxError('x is wrong', 'field.yaml'))).toBe(
       'field.yaml: x is wrong',
     );
+  });
+
+  it('the fit periods and the ground profile are settings in the library, flags on the command line', () => {
+    const caught = (fn: () => unknown): SettingError => {
+      try {
+        fn();
+      } catch (err) {
+        expect(err).toBeInstanceOf(SettingError);
+        return err as SettingError;
+      }
+      throw new Error('expected an error');
+    };
+    const period = caught(() => parsePeriod('2015-01-01..2014-01-01', 'validate'));
+    expect(period.message).toMatch(/^validate expects FROM..TO/);
+    expect(cliMessage(period)).toMatch(/^--validate expects FROM..TO/);
+
+    // A reach without a grade needs a ground profile to lay it on.
+    const file = systemSchema.parse({
+      name: 'no grade',
+      coefficient: '0.5 in/d',
+      mains: [{ name: 'trunk', reaches: [{ length: '400 m', area: '4 ha' }] }],
+    });
+    const settings = {
+      coefficientMmD: 12.7,
+      sizes: INCH_SIZES,
+      velocityMs: 0.43,
+      round: 'up' as const,
+      depthM: 1.1,
+      minimumCoverM: 0.6,
+      maximumDepthM: 2.5,
+    };
+    const profile = caught(() => designSystem(buildSystemTree(file), settings));
+    expect(profile.message).toMatch(/has no grade; .*, or give a ground profile with profile$/);
+    expect(cliMessage(profile)).toMatch(/, or give a ground profile with --profile$/);
   });
 
   it('tileflux run says --from for a start outside the record', () => {

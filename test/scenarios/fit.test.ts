@@ -85,8 +85,8 @@ describe('split-sample test', () => {
 
   it('validation statistics come from the validation period alone', async () => {
     const paths = ['soil.conductivity', 'soil.seepageConductance'];
-    const calibrate = parsePeriod('2013-01-01..2014-12-31', '--calibrate');
-    const validate = parsePeriod('2015-01-01..2015-12-31', '--validate');
+    const calibrate = parsePeriod('2013-01-01..2014-12-31', 'calibrate');
+    const validate = parsePeriod('2015-01-01..2015-12-31', 'validate');
     const r = await fit(
       { dates: obs.dates, drainflowMm: obs.drainflowMm },
       {
@@ -137,8 +137,8 @@ describe('split-sample test', () => {
     expect(() => buildFitProblem({ ...base, calibrate: ['2012-03-01', '2013-12-31'] })).toThrow(
       /calibrate starts 2012-03-01, but the model first runs 1 warm-up year on the weather from 2012-01-01: start on 2013-01-01 or later/,
     );
-    expect(() => parsePeriod('2015-01-01..2014-01-01', '--validate')).toThrow(
-      /--validate expects FROM..TO/,
+    expect(() => parsePeriod('2015-01-01..2014-01-01', 'validate')).toThrow(
+      /^validate expects FROM..TO/,
     );
   });
 });

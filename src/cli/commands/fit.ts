@@ -257,8 +257,8 @@ export function registerFit(program: Command): void {
         if (areaHa !== undefined && !(areaHa > 0)) {
           throw new TilefluxError(`--area must be greater than 0; got ${o.area}`);
         }
-        const calibrate = o.calibrate ? parsePeriod(o.calibrate, '--calibrate') : undefined;
-        const validate = o.validate ? parsePeriod(o.validate, '--validate') : undefined;
+        const calibrate = o.calibrate ? parsePeriod(o.calibrate, 'calibrate') : undefined;
+        const validate = o.validate ? parsePeriod(o.validate, 'validate') : undefined;
         const paths = o.params
           ?.split(',')
           .map((s) => s.trim())
