@@ -27,6 +27,16 @@ const FLAG_OF_SETTING: Readonly<Record<string, string>> = {
   force: '--force',
   out: '--out',
   profile: '--profile',
+  // The weather and observation readers' settings.
+  fill: '--fill',
+  columns: '--columns',
+  precipUnit: '--precip-unit',
+  tempUnit: '--temp-unit',
+  where: '--where',
+  station: '--station',
+  exportUnits: '--export-units',
+  format: '--format',
+  areaHa: '--area',
 };
 
 /** A user error's message as the CLI says it: settings called by their flags. */

@@ -19,7 +19,8 @@
 import { readTextFile } from './files.js';
 import { CsvError, parse } from 'csv-parse/sync';
 import { dayNumber, isoDate } from '../climate/calendar.js';
-import { TilefluxError } from '../errors.js';
+import { SettingError } from '../errors.js';
+import { problemsLine, type LocatedProblem, type ProblemMessage } from './weather/problems.js';
 import { isDecimalNumber } from '../units/decimal.js';
 
 /** One located problem in an observation file. */
@@ -29,20 +30,20 @@ export interface ObservationProblem {
   message: string;
 }
 
-/** An observation file the reader cannot accept; lists the first problems with line and column. */
-export class ObservationInputError extends TilefluxError {
+/**
+ * An observation file the reader cannot accept; lists the first problems with line and column.
+ * Settings are named as the library names them (`areaHa`); the CLI names its flags (`--area`).
+ */
+export class ObservationInputError extends SettingError {
   readonly problems: ObservationProblem[];
-  constructor(file: string, problems: ObservationProblem[]) {
-    const shown = problems
-      .slice(0, 3)
-      .map(
-        (p) =>
-          `line ${p.line}${p.column !== undefined ? `, column ${p.column}` : ''}: ${p.message}`,
-      );
-    const more = problems.length > 3 ? ` (and ${problems.length - 3} more problems)` : '';
-    super(`${file} ${shown.join('; ')}${more}`);
+  constructor(file: string, problems: readonly LocatedProblem[]) {
+    const list = [...problems];
+    super((n) => problemsLine(file, list, n));
     this.name = 'ObservationInputError';
-    this.problems = problems;
+    this.problems = list.map((p) => ({
+      ...p,
+      message: typeof p.message === 'string' ? p.message : p.message((s) => s),
+    }));
   }
 }
 
@@ -146,8 +147,8 @@ export function parseObservationsCsv(
   o: ObservationReadOptions = {},
 ): ObservationSeries {
   const file = o.file ?? 'observation file';
-  const problems: ObservationProblem[] = [];
-  const fail = (line: number, column: string | undefined, message: string): never => {
+  const problems: LocatedProblem[] = [];
+  const fail = (line: number, column: string | undefined, message: ProblemMessage): never => {
     problems.push({ line, column, message });
     throw new ObservationInputError(file, problems);
   };
@@ -206,8 +207,9 @@ export function parseObservationsCsv(
       fail(
         headerLine,
         header[index],
-        `${header[index]} is a flow rate (${spec.unit}); give the drained area it comes from with ` +
-          '--area (e.g. --area "16 ha" or "40 ac") to turn it into mm/d, or give drainflow_mm',
+        (n) =>
+          `${header[index]} is a flow rate (${spec.unit}); give the drained area it comes from with ` +
+          `${n('areaHa')} (such as 16 ha or 40 ac) to turn it into mm/d, or give drainflow_mm`,
       );
     }
     used.set(spec.variable, { index, spec });
@@ -228,7 +230,7 @@ export function parseObservationsCsv(
   for (const v of used.keys()) columns.set(v, new Float64Array(n).fill(NaN));
   const days = new Float64Array(n);
   const lines = new Int32Array(n);
-  const add = (line: number, column: string | undefined, message: string) => {
+  const add = (line: number, column: string | undefined, message: ProblemMessage) => {
     if (problems.length < 100) problems.push({ line, column, message });
   };
   for (let r = 0; r < n; r++) {
@@ -282,10 +284,11 @@ export function parseObservationsCsv(
         add(
           line,
           where,
-          `${NOUN[v]} ${cell} ${spec.unit}` +
+          (n) =>
+            `${NOUN[v]} ${cell} ${spec.unit}` +
             (spec.unit !== CORE_UNIT[v] ? ` (${x.toPrecision(4)} ${CORE_UNIT[v]})` : '') +
             ` is above the plausible ${UPPER[v]}; check the unit` +
-            (spec.rate ? ' and --area' : ''),
+            (spec.rate ? ` and ${n('areaHa')}` : ''),
         );
         continue;
       }

@@ -59,7 +59,7 @@ describe('observation files', () => {
   it('a flow rate without --area, an unknown unit, two flow columns: errors at the header', () => {
     expect(errorOf(() => read('date,flow_l_s\n2024-04-01,1\n'))).toBe(
       'obs.csv line 1, column flow_l_s: flow_l_s is a flow rate (L/s); give the drained area it ' +
-        'comes from with --area (e.g. --area "16 ha" or "40 ac") to turn it into mm/d, or give drainflow_mm',
+        'comes from with areaHa (such as 16 ha or 40 ac) to turn it into mm/d, or give drainflow_mm',
     );
     expect(errorOf(() => read('date,flow_mgd\n2024-04-01,1\n'))).toMatch(
       /^obs.csv line 1, column flow_mgd: unknown unit in "flow_mgd"; drain flow is read from drainflow_mm, drainflow_in, flow_l_s/,
@@ -103,7 +103,7 @@ describe('observation files', () => {
     );
     // 10 L/s from 0.1 ha is 864 mm/d: a wrong area or unit.
     expect(errorOf(() => read('date,flow_l_s\n2024-04-01,10\n', 0.1))).toMatch(
-      /line 2, column flow_l_s: drain flow 10 L\/s \(864.0 mm\/d\) is above the plausible 300; check the unit and --area/,
+      /line 2, column flow_l_s: drain flow 10 L\/s \(864.0 mm\/d\) is above the plausible 300; check the unit and areaHa/,
     );
     expect(errorOf(() => read('date,drainflow_mm\n2024-04-01,1,2\n'))).toMatch(
       /line 2: the row has 3 fields but the header has 2/,

@@ -134,7 +134,7 @@ describe('parseWeatherCsv: every bad input names file, line and column', () => {
     expect(problem('date,precip_mm,precip_in,tmax_c,tmin_c\n').column).toBe('precip_in');
     const conflict = problem(GOOD, { precipUnit: 'in' });
     expect(conflict.column).toBe('precip_mm');
-    expect(conflict.message).toMatch(/--precip-unit says in/);
+    expect(conflict.message).toMatch(/but precipUnit says in/);
   });
 
   it('no rows for the where value lists the values present', () => {
@@ -160,7 +160,7 @@ describe('parseWeatherCsv: every bad input names file, line and column', () => {
       '2024-05-02,,22',
       3,
       'precip_mm',
-      /no precipitation value.*--fill/,
+      /no precipitation value.*use fill for up to 7/,
     ],
     ['negative precipitation', '7.25,18', '-1,18', 4, 'precip_mm', /precipitation -1 is negative/],
     [
@@ -202,7 +202,7 @@ describe('parseWeatherCsv: every bad input names file, line and column', () => {
     expect(gap.message).toMatch(/5 missing days \(2024-05-03, 2024-05-04, 2024-05-05, \.\.\.\)/);
     const long = problem(GOOD.replace('2024-05-03', '2024-05-11'), { fill: true });
     expect(long.message).toMatch(
-      /8 days are missing \(2024-05-03 to 2024-05-10\); --fill fills at most 7/,
+      /8 days are missing \(2024-05-03 to 2024-05-10\); fill fills at most 7/,
     );
   });
 

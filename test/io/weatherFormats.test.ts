@@ -76,10 +76,10 @@ describe('GHCN-Daily wide export', () => {
 
   it('asks for the station when the file holds several, and for the export units', () => {
     expect(problemOf('ghcn-wide-metric.csv', { exportUnits: 'metric' }).message).toMatch(
-      /2 stations \(XX000000001, XX000000002\); choose one with --station/,
+      /2 stations \(XX000000001, XX000000002\); choose one with station ID/,
     );
     expect(problemOf('ghcn-wide-metric.csv', { station: 'XX000000002' }).message).toMatch(
-      /--export-units metric .* or --export-units standard/,
+      /give exportUnits metric .* or exportUnits standard/,
     );
     expect(
       problemOf('ghcn-wide-metric.csv', { station: 'XX9', exportUnits: 'metric' }).message,

@@ -113,15 +113,17 @@ export function assembleSeries(
       problems.add(
         lines[r],
         dateHeader,
-        `dates jump from ${isoDate(days[r - 1])} to ${isoDate(days[r])}: ${missing} missing ` +
+        (n) =>
+          `dates jump from ${isoDate(days[r - 1])} to ${isoDate(days[r])}: ${missing} missing ` +
           `day${missing > 1 ? 's' : ''} (${listed.join(', ')}${missing > 3 ? ', ...' : ''}); ` +
-          `add the rows, or use --fill for gaps of up to ${MAX_FILL_DAYS} days`,
+          `add the rows, or use ${n('fill')} for gaps of up to ${MAX_FILL_DAYS} days`,
       );
     } else if (missing > MAX_FILL_DAYS) {
       problems.add(
         lines[r],
         dateHeader,
-        `${missing} days are missing (${first} to ${last}); --fill fills at most ` +
+        (n) =>
+          `${missing} days are missing (${first} to ${last}); ${n('fill')} fills at most ` +
           `${MAX_FILL_DAYS} days in a row`,
       );
     }
@@ -161,8 +163,9 @@ export function assembleSeries(
           problems.add(
             lineOfDay[start],
             rows.headers[v],
-            `${length} days in a row have no ${NOUN[v]} (${isoDate(first + start)} to ` +
-              `${isoDate(first + start + length - 1)}); --fill fills at most ${MAX_FILL_DAYS}`,
+            (n) =>
+              `${length} days in a row have no ${NOUN[v]} (${isoDate(first + start)} to ` +
+              `${isoDate(first + start + length - 1)}); ${n('fill')} fills at most ${MAX_FILL_DAYS}`,
           );
         },
         filled,

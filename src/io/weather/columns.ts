@@ -81,7 +81,8 @@ export function resolveColumns(
         problems.fail(
           line,
           h,
-          `the header says ${fromSuffix.label} but --${v === 'precip' || v === 'ref_et' ? 'precip' : 'temp'}-unit says ${flag}; ` +
+          (n) =>
+            `the header says ${fromSuffix.label} but ${n(v === 'precip' || v === 'ref_et' ? 'precipUnit' : 'tempUnit')} says ${flag}; ` +
             'drop the option or rename the column',
         );
       }
@@ -100,7 +101,8 @@ export function resolveColumns(
       problems.fail(
         line,
         undefined,
-        `--columns names an unknown variable "${key}"; accepted: ${WEATHER_VARIABLES.join(', ')}`,
+        (n) =>
+          `${n('columns')} names an unknown variable "${key}"; accepted: ${WEATHER_VARIABLES.join(', ')}`,
       );
     }
     const index = findHeader(header, name);
@@ -108,7 +110,8 @@ export function resolveColumns(
       problems.fail(
         line,
         undefined,
-        `--columns ${key}=${name}: the file has no column "${name}"; its columns are ${list}`,
+        (n) =>
+          `${n('columns')} ${key}=${name}: the file has no column "${name}"; its columns are ${list}`,
       );
     }
     const v = key as WeatherVariable;
@@ -138,8 +141,9 @@ export function resolveColumns(
       problems.fail(
         line,
         header[matches[1]],
-        `two ${NOUN[v]} columns (${matches.map((i) => header[i]).join(' and ')}); ` +
-          `keep one or choose with --columns ${v}=NAME`,
+        (n) =>
+          `two ${NOUN[v]} columns (${matches.map((i) => header[i]).join(' and ')}); ` +
+          `keep one or choose with ${n('columns')} ${v}=NAME`,
       );
     }
     if (matches.length === 1) use(v, matches[0], unitOf(v, header[matches[0]], true));
@@ -153,8 +157,9 @@ export function resolveColumns(
       problems.fail(
         line,
         old,
-        `reference ET is read from a column named ref_et_${old.slice(4).toLowerCase()}; ` +
-          `rename the header or map it with --columns ref_et=${old}`,
+        (n) =>
+          `reference ET is read from a column named ref_et_${old.slice(4).toLowerCase()}; ` +
+          `rename the header or map it with ${n('columns')} ref_et=${old}`,
       );
     }
   }
@@ -170,8 +175,9 @@ export function resolveColumns(
     problems.fail(
       line,
       undefined,
-      `no ${absent.map((v) => NOUN[v]).join(', ')} column${absent.length > 1 ? 's' : ''}; ` +
-        `expected headers ${expect.join(', ')}, or map yours with --columns ` +
+      (n) =>
+        `no ${absent.map((v) => NOUN[v]).join(', ')} column${absent.length > 1 ? 's' : ''}; ` +
+        `expected headers ${expect.join(', ')}, or map yours with ${n('columns')} ` +
         `${absent.map((v) => `${v}=NAME`).join(',')}; the file has ${list}${hint}`,
     );
   }
@@ -184,14 +190,15 @@ export function whereColumn(
   line: number,
   where: { column: string; value: string },
   problems: Problems,
-  option = '--where',
+  setting: 'where' | 'station' = 'where',
 ): number {
   const index = findHeader(header, where.column);
   if (index < 0) {
     problems.fail(
       line,
       undefined,
-      `${option} ${where.column}=${where.value}: the file has no column "${where.column}"; ` +
+      (n) =>
+        `${n(setting)} ${where.column}=${where.value}: the file has no column "${where.column}"; ` +
         `its columns are ${headerList(header)}`,
     );
   }

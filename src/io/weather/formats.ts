@@ -3,7 +3,7 @@
  * tileflux's own CSV (and any CSV mapped with `columns`), GHCN-Daily exports (wide with a
  * header, or by-station without one) and Daymet single-pixel tables.
  */
-import { TilefluxError } from '../../errors.js';
+import { SettingError } from '../../errors.js';
 import { daymetTable, parseDaymet } from './daymet.js';
 import { GHCN_BY_STATION_LINE, parseGhcnByStation, parseGhcnWide } from './ghcn.js';
 import { parseWeatherCsv, type WeatherReadOptions, type WeatherReadResult } from './parse.js';
@@ -43,40 +43,37 @@ export function detectWeatherFormat(text: string): Exclude<WeatherFormat, 'auto'
   return 'tileflux';
 }
 
-/** Options that only tileflux's own format takes, with their flags. */
-const OWN_ONLY: ReadonlyArray<[keyof WeatherReadOptions, string]> = [
-  ['columns', '--columns'],
-  ['precipUnit', '--precip-unit'],
-  ['tempUnit', '--temp-unit'],
-  ['where', '--where'],
-];
+/** Options that only tileflux's own format takes. */
+const OWN_ONLY = ['columns', 'precipUnit', 'tempUnit', 'where'] as const;
+/** Options that only GHCN-Daily files take. */
+const GHCN_ONLY = ['station', 'exportUnits'] as const;
 
 /**
  * Read weather text in the given format (detected when `auto` or not given); the result says
- * which format was read and what was done beyond reading (`notes`).
+ * which format was read and what was done beyond reading (`notes`). An option of another
+ * format is a SettingError naming it (the CLI: by its flag).
  */
 export function readWeather(text: string, o: WeatherReadOptions = {}): WeatherReadResult {
   const format =
     o.format === undefined || o.format === 'auto' ? detectWeatherFormat(text) : o.format;
   const file = o.file ?? 'weather CSV';
   if (format !== 'tileflux') {
-    for (const [key, flag] of OWN_ONLY) {
+    for (const key of OWN_ONLY) {
       if (o[key] !== undefined) {
-        throw new TilefluxError(
-          `${file}: ${flag} applies to tileflux's own format, not to ${format} files` +
-            (key === 'where' ? '; choose a GHCN-Daily station with --station' : ''),
+        throw new SettingError(
+          (n) =>
+            `${file}: ${n(key)} applies to tileflux's own format, not to ${format} files` +
+            (key === 'where' ? `; choose a GHCN-Daily station with ${n('station')}` : ''),
         );
       }
     }
   } else {
-    for (const [key, flag] of [
-      ['station', '--station'],
-      ['exportUnits', '--export-units'],
-    ] as const) {
+    for (const key of GHCN_ONLY) {
       if (o[key] !== undefined) {
-        throw new TilefluxError(
-          `${file}: ${flag} applies to GHCN-Daily files; this one reads as tileflux's own format ` +
-            '(give --format ghcn if it is one)',
+        throw new SettingError(
+          (n) =>
+            `${file}: ${n(key)} applies to GHCN-Daily files; this one reads as tileflux's own format ` +
+            `(give ${n('format')} ghcn if it is one)`,
         );
       }
     }

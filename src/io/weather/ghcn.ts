@@ -76,7 +76,7 @@ function stationChoiceError(
   problems.fail(
     line,
     column,
-    `the file holds ${count} stations (${list}); choose one with --station ID`,
+    (n) => `the file holds ${count} stations (${list}); choose one with ${n('station')} ID`,
   );
 }
 
@@ -91,8 +91,9 @@ export function parseGhcnWide(text: string, o: WeatherReadOptions): WeatherReadR
     problems.fail(
       headerLine,
       undefined,
-      'a GHCN-Daily export does not record its units: give --export-units metric (mm, degC) ' +
-        'or --export-units standard (in, degF), as chosen when the file was ordered',
+      (n) =>
+        `a GHCN-Daily export does not record its units: give ${n('exportUnits')} metric (mm, degC) ` +
+        `or ${n('exportUnits')} standard (in, degF), as chosen when the file was ordered`,
     );
   }
   const stationIndex = findHeader(header, 'STATION');
@@ -143,7 +144,7 @@ export function parseGhcnWide(text: string, o: WeatherReadOptions): WeatherReadR
     },
     problems,
     {
-      whereOption: '--station',
+      whereSetting: 'station',
       gap: (r, v) => {
         const index = attributes[v];
         if (index === undefined || index >= r.count || r.isEmpty(index)) return undefined;
@@ -257,7 +258,8 @@ export function parseGhcnByStation(text: string, o: WeatherReadOptions): Weather
         problems.add(
           line,
           use[v]!.header,
-          `no ${NOUN[v]} value (-9999); use --fill for up to ${MAX_FILL_DAYS} missing days in a row`,
+          (n) =>
+            `no ${NOUN[v]} value (-9999); use ${n('fill')} for up to ${MAX_FILL_DAYS} missing days in a row`,
         );
       }
     } else if (q !== '') {
@@ -266,8 +268,9 @@ export function parseGhcnByStation(text: string, o: WeatherReadOptions): Weather
         problems.add(
           line,
           use[v]!.header,
-          `${NOUN[v]} ${rows.field(3)} is quality-flagged (Q flag ${q}), so it counts as a gap; ` +
-            `use --fill for up to ${MAX_FILL_DAYS} missing days in a row`,
+          (n) =>
+            `${NOUN[v]} ${rows.field(3)} is quality-flagged (Q flag ${q}), so it counts as a gap; ` +
+            `use ${n('fill')} for up to ${MAX_FILL_DAYS} missing days in a row`,
         );
       }
     } else {
@@ -303,8 +306,9 @@ export function parseGhcnByStation(text: string, o: WeatherReadOptions): Weather
           problems.add(
             lineList[i],
             use[k]!.header,
-            `no ${ELEMENT_OF[k]} row for ${compactDate(dayList[i])}; ` +
-              `use --fill for up to ${MAX_FILL_DAYS} missing days in a row`,
+            (n) =>
+              `no ${ELEMENT_OF[k]} row for ${compactDate(dayList[i])}; ` +
+              `use ${n('fill')} for up to ${MAX_FILL_DAYS} missing days in a row`,
           );
         }
       }

@@ -144,8 +144,8 @@ export type CellGap = (rows: CsvRows, v: ValueVariable) => string | undefined;
 export interface RowRules {
   /** A cell's reason to be a gap (quality flags). */
   gap?: CellGap;
-  /** Option that selects rows, for messages (default --where). */
-  whereOption?: string;
+  /** Setting that selects rows, for messages (default `where`). */
+  whereSetting?: 'where' | 'station';
   /** Date forms accepted besides YYYY-MM-DD. */
   compactDates?: boolean;
 }
@@ -171,7 +171,7 @@ export function readOwnRows(
   const width = header.length;
   const fill = o.fill === true;
   const whereIndex = o.where
-    ? whereColumn(header, headerLine, o.where, problems, rules.whereOption)
+    ? whereColumn(header, headerLine, o.where, problems, rules.whereSetting)
     : -1;
   const seen = new SeenValues();
   let offered = 0;
@@ -222,8 +222,9 @@ export function readOwnRows(
             problems.add(
               line,
               c.header,
-              `${NOUN[v]} ${rows.field(c.index)} is ${gap}, so it counts as a gap; ` +
-                `use --fill for up to ${MAX_FILL_DAYS} missing days in a row`,
+              (n) =>
+                `${NOUN[v]} ${rows.field(c.index)} is ${gap}, so it counts as a gap; ` +
+                `use ${n('fill')} for up to ${MAX_FILL_DAYS} missing days in a row`,
             );
           }
           x = NaN;
@@ -265,7 +266,8 @@ function badCell(
       problems.add(
         line,
         c.header,
-        `no ${NOUN[v]} value ("${cell}"); give a number, or use --fill for up to ` +
+        (n) =>
+          `no ${NOUN[v]} value ("${cell}"); give a number, or use ${n('fill')} for up to ` +
           `${MAX_FILL_DAYS} missing days in a row`,
       );
     }
