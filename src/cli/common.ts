@@ -27,6 +27,7 @@ const FLAG_OF_SETTING: Readonly<Record<string, string>> = {
   force: '--force',
   out: '--out',
   profile: '--profile',
+  chartYear: '--year',
   // The weather and observation readers' settings.
   fill: '--fill',
   columns: '--columns',

@@ -3,7 +3,7 @@
  * days of one year, fieldwork-window bands, the temporal axis, grouped bars and monthly sums.
  * Pure.
  */
-import { TilefluxError } from '../errors.js';
+import { SettingError } from '../errors.js';
 import { PALETTE, WIDTH } from './chartTheme.js';
 import type { ReportData } from './types.js';
 
@@ -38,10 +38,10 @@ export function yearRange(dates: readonly string[], year: number): [number, numb
     }
   }
   if (i0 < 0) {
-    throw new TilefluxError(
-      `chart year ${year} is outside the weather period ` +
+    throw new SettingError(
+      (n) =>
+        `${n('chartYear')}: chart year ${year} is outside the weather period ` +
         `(${dates[0] ?? '?'} to ${dates[dates.length - 1] ?? '?'}); choose a year inside it`,
-      '--year',
     );
   }
   return [i0, i1];
