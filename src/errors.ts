@@ -8,7 +8,7 @@ export class TilefluxError extends Error {
   constructor(message: string, where?: string) {
     super(where ? `${where}: ${message}` : message);
     this.name = 'TilefluxError';
-    this.where = where;
+    if (where !== undefined) this.where = where;
   }
 }
 

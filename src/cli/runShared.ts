@@ -36,7 +36,7 @@ export interface RunCommandOptions extends WeatherReadFlags {
   warmupYears?: string;
   force?: boolean;
   json?: boolean;
-  units?: string;
+  units?: string | undefined;
   charts?: boolean;
   report?: boolean;
   year?: string;

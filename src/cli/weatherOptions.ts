@@ -74,7 +74,7 @@ export function weatherReadOptions(f: WeatherReadFlags): WeatherReadOptions {
         `--format expects one of ${WEATHER_FORMATS.join(', ')}; got ${f.format}`,
       );
     }
-    o.format = format as WeatherReadOptions['format'];
+    o.format = format as NonNullable<WeatherReadOptions['format']>;
   }
   if (f.columns !== undefined) {
     const columns: Record<string, string> = {};

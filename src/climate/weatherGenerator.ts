@@ -106,8 +106,8 @@ export function forHemisphere(p: GeneratorParams, latitudeDeg: number): Generato
     pWetGivenWet: shift(p.pWetGivenWet),
     gammaShape: shift(p.gammaShape),
     gammaScaleMm: shift(p.gammaScaleMm),
-    tmaxMonthlyOffsetC: p.tmaxMonthlyOffsetC && shift(p.tmaxMonthlyOffsetC),
-    tminMonthlyOffsetC: p.tminMonthlyOffsetC && shift(p.tminMonthlyOffsetC),
+    ...(p.tmaxMonthlyOffsetC && { tmaxMonthlyOffsetC: shift(p.tmaxMonthlyOffsetC) }),
+    ...(p.tminMonthlyOffsetC && { tminMonthlyOffsetC: shift(p.tminMonthlyOffsetC) }),
     warmestDayOfYear: ((p.warmestDayOfYear + 182.625 - 1) % 365.25) + 1,
   };
 }

@@ -117,12 +117,13 @@ export function buildSystemTree(file: SystemFile): SystemTree {
           spacingM,
           grade,
           material: g.material ?? file.laterals.material ?? material,
-          side: g.side,
+          ...(g.side && { side: g.side }),
           areaEachM2: g.length * spacingM,
         };
       });
       const localAreaM2 =
         laterals.reduce((s, g) => s + g.count * g.areaEachM2, 0) + (r.area ?? 0) * 10000;
+      const fixedGrade = r.grade ?? m.grade;
       const reach: Reach = {
         id,
         main: m.name,
@@ -131,7 +132,7 @@ export function buildSystemTree(file: SystemFile): SystemTree {
         fromStationM: station,
         toStationM: station + r.length,
         lengthM: r.length,
-        fixedGrade: r.grade ?? m.grade,
+        ...(fixedGrade !== undefined && { fixedGrade }),
         material,
         laterals,
         localAreaM2,
@@ -145,7 +146,7 @@ export function buildSystemTree(file: SystemFile): SystemTree {
     return {
       name: m.name,
       key,
-      joins: m.joins ? { main: m.joins.main, stationM: m.joins.station } : undefined,
+      ...(m.joins && { joins: { main: m.joins.main, stationM: m.joins.station } }),
       reaches,
       lengthM: station,
     };

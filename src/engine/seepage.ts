@@ -33,10 +33,14 @@ export interface SeepageParams {
   edgeLevelDepthM: number;
 }
 
-/** A seepage setting in field-file terms (lateral conductivity: the soil's, unless given). */
+/**
+ * A seepage setting in field-file terms (lateral conductivity: the soil's, unless given). The
+ * field file's own terms pass through as the schema parsed them, where an absent key may read
+ * as undefined.
+ */
 export interface SeepageSetting {
-  vertical?: { to: number; conductance: number };
-  lateral?: { distance: number; level: number; conductivity?: number };
+  vertical?: { to: number; conductance: number } | undefined;
+  lateral?: { distance: number; level: number; conductivity?: number | undefined } | undefined;
 }
 
 /**

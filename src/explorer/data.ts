@@ -128,16 +128,15 @@ export function designsOf(
 
 /** The weather record as JSON columns. */
 export function weatherColumnsOf(w: WeatherSeries): WeatherColumns {
-  const col = (x: Float64Array | undefined) => (x ? Array.from(x) : undefined);
   return {
     dates: w.dates,
     precipMm: Array.from(w.precipMm),
     tmaxC: Array.from(w.tmaxC),
     tminC: Array.from(w.tminC),
-    refEtMm: col(w.refEtMm),
-    solarMJm2: col(w.solarMJm2),
-    rhMeanPct: col(w.rhMeanPct),
-    wind2mMs: col(w.wind2mMs),
+    ...(w.refEtMm && { refEtMm: Array.from(w.refEtMm) }),
+    ...(w.solarMJm2 && { solarMJm2: Array.from(w.solarMJm2) }),
+    ...(w.rhMeanPct && { rhMeanPct: Array.from(w.rhMeanPct) }),
+    ...(w.wind2mMs && { wind2mMs: Array.from(w.wind2mMs) }),
   };
 }
 

@@ -188,7 +188,7 @@ export function readManifest(path: string): Manifest {
         weather: cell('weather'),
         fieldPath: resolve(dir, cell('field')),
         weatherPath: resolve(dir, cell('weather')),
-        scenarios,
+        ...(scenarios && { scenarios }),
         overrides,
         sha256: createHash('sha256').update(definition).digest('hex'),
       });

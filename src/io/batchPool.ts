@@ -33,21 +33,20 @@ export function defaultWorkers(): number {
 
 /** A copy of a weather record whose columns lie in shared memory (cloned to workers for free). */
 export function sharedWeather(w: WeatherSeries): WeatherSeries {
-  const share = (a: Float64Array | undefined) => {
-    if (a === undefined) return undefined;
+  const share = (a: Float64Array) => {
     const b = new Float64Array(new SharedArrayBuffer(a.byteLength));
     b.set(a);
     return b;
   };
   return {
     ...w,
-    precipMm: share(w.precipMm)!,
-    tmaxC: share(w.tmaxC)!,
-    tminC: share(w.tminC)!,
-    refEtMm: share(w.refEtMm),
-    solarMJm2: share(w.solarMJm2),
-    rhMeanPct: share(w.rhMeanPct),
-    wind2mMs: share(w.wind2mMs),
+    precipMm: share(w.precipMm),
+    tmaxC: share(w.tmaxC),
+    tminC: share(w.tminC),
+    ...(w.refEtMm && { refEtMm: share(w.refEtMm) }),
+    ...(w.solarMJm2 && { solarMJm2: share(w.solarMJm2) }),
+    ...(w.rhMeanPct && { rhMeanPct: share(w.rhMeanPct) }),
+    ...(w.wind2mMs && { wind2mMs: share(w.wind2mMs) }),
   };
 }
 

@@ -198,7 +198,7 @@ export function parseField(
     }
     scenarios.push({
       name,
-      description: sc.description as string | undefined,
+      ...(sc.description !== undefined && { description: sc.description as string }),
       field: r.data as Field,
     });
   });

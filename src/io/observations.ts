@@ -67,7 +67,7 @@ export interface ObservationReadOptions {
   /** Name used in messages. */
   file?: string;
   /** Drained area served by the monitored outlet, ha (needed for flow-rate columns). */
-  areaHa?: number;
+  areaHa?: number | undefined;
 }
 
 type Variable = 'drainflow' | 'waterTable' | 'no3';
@@ -149,7 +149,7 @@ export function parseObservationsCsv(
   const file = o.file ?? 'observation file';
   const problems: LocatedProblem[] = [];
   const fail = (line: number, column: string | undefined, message: ProblemMessage): never => {
-    problems.push({ line, column, message });
+    problems.push({ line, ...(column !== undefined && { column }), message });
     throw new ObservationInputError(file, problems);
   };
   let rows: Array<{ record: string[]; info: { lines: number } }>;
@@ -231,7 +231,8 @@ export function parseObservationsCsv(
   const days = new Float64Array(n);
   const lines = new Int32Array(n);
   const add = (line: number, column: string | undefined, message: ProblemMessage) => {
-    if (problems.length < 100) problems.push({ line, column, message });
+    if (problems.length < 100)
+      problems.push({ line, ...(column !== undefined && { column }), message });
   };
   for (let r = 0; r < n; r++) {
     const { record, info } = rows[r + 1];
@@ -333,7 +334,7 @@ export function parseObservationsCsv(
     no3: 'no3MgL',
   };
   for (const [v, { index }] of used) {
-    out[keys[v]] = columns.get(v);
+    out[keys[v]] = columns.get(v)!; // every used variable has its column
     out.columnsUsed[v] = header[index];
   }
   return out;

@@ -37,7 +37,7 @@ export interface SweepWorkerData {
 
 export interface ParallelOptions extends SweepOptions {
   /** Worker threads (default: the cores available, at most 8). */
-  workers?: number;
+  workers?: number | undefined;
   /** Called after each range of jobs with the jobs done so far. */
   onProgress?: (done: number, total: number) => void;
   /** Stops the sweep: running and queued ranges are abandoned and the promise rejects. */

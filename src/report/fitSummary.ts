@@ -140,9 +140,9 @@ export function fitSeriesOf(
     fieldName,
     dates: r.bestRun.dates.slice(a),
     period: periodLabels(r, masks.calibration, masks.validation, a),
-    observedFlowMm: observed.drainflowMm?.slice(a),
+    ...(observed.drainflowMm && { observedFlowMm: observed.drainflowMm.slice(a) }),
     simulatedFlowMm: r.bestRun.drainflowMm.slice(a),
-    observedWaterTableM: observed.waterTableDepthM?.slice(a),
+    ...(observed.waterTableDepthM && { observedWaterTableM: observed.waterTableDepthM.slice(a) }),
     simulatedWaterTableM: r.bestRun.waterTableDepthM.slice(a),
   };
 }

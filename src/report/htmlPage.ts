@@ -189,7 +189,7 @@ export interface HtmlPage {
   sections: Array<[id: string, heading: string, body: string]>;
   /** Chart specs drawn into the `.chart[data-chart]` containers by name. */
   specs: Record<string, object>;
-  bundles?: VegaBundles;
+  bundles?: VegaBundles | undefined;
 }
 /**
  * The self-contained page around report sections: Content-Security-Policy, style, contents,

@@ -142,9 +142,9 @@ export function reportDataOf(
     fieldName: string;
     weatherFile: string;
     /** How the weather file was read, in words (format, station, fills), for the report. */
-    weatherSource?: string;
+    weatherSource?: string | undefined;
     units: 'si' | 'us';
-    chartYear?: number;
+    chartYear?: number | undefined;
     comparison?: ComparisonRow[];
   },
 ): ReportData {
@@ -154,7 +154,10 @@ export function reportDataOf(
     generatedBy: `tileflux ${VERSION}`,
     fieldName: o.fieldName,
     weatherFile: o.weatherFile,
-    climate: { ...climateOf(run.forcing), source: o.weatherSource },
+    climate: {
+      ...climateOf(run.forcing),
+      ...(o.weatherSource !== undefined && { source: o.weatherSource }),
+    },
     period: { from: run.from, to: run.to, years: run.scenarios[0]?.annual.length ?? 0 },
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => ({

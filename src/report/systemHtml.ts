@@ -22,7 +22,7 @@ import type { VegaBundles } from './vegaBundles.js';
 export interface SystemReportInput {
   planName: string;
   systemFile: string;
-  profileFile?: string;
+  profileFile?: string | undefined;
   /** How the drainage coefficient was chosen. */
   coefficientText: string;
   generatedBy: string;

@@ -18,15 +18,15 @@ import { reportDataOf } from './reportData.js';
 /** What `writeRunFolder` writes besides the tables. */
 export interface RunFolderOptions {
   /** Replace an existing tileflux output folder. */
-  force?: boolean;
-  charts?: boolean;
-  report?: boolean;
+  force?: boolean | undefined;
+  charts?: boolean | undefined;
+  report?: boolean | undefined;
   /** Year of the water-table and hydrograph charts (default the wettest year). */
-  chartYear?: number;
+  chartYear?: number | undefined;
   /** Write daily.csv (default true; false for large studies). */
   daily?: boolean;
   /** The explorer page to write beside the report (explorer.html); none when absent. */
-  explorerHtml?: () => string;
+  explorerHtml?: (() => string) | undefined;
 }
 
 /**
@@ -94,7 +94,7 @@ export async function writeRunFolder(
         written.push('report.html');
       }
     },
-    { inputs: meta.inputPaths },
+    meta.inputPaths ? { inputs: meta.inputPaths } : {},
   );
   return { summary, written, comparison };
 }

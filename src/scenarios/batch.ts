@@ -6,7 +6,7 @@
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { BAND_COLUMNS, COMPARISON_COLUMNS } from './compare.js';
 import { comparisonOf } from './runComparison.js';
-import { runField, type FieldWithScenarios, type PeriodOptions } from './run.js';
+import { runField, type FieldWithScenarios, type PeriodOptions, type RunOptions } from './run.js';
 import { ANNUAL_COLUMNS } from './types.js';
 import { withPartialYear } from './annual.js';
 
@@ -85,7 +85,7 @@ export function runJob(
   id: string,
   field: FieldWithScenarios,
   weather: WeatherSeries,
-  o: PeriodOptions & { only?: string[] } = {},
+  o: PeriodOptions & Pick<RunOptions, 'only'> = {},
 ): JobRows {
   const run = runField(field, weather, { ...o, seepageBand: true });
   const pick = (r: object, columns: readonly BatchColumn[]): BatchRow => {

@@ -7,7 +7,7 @@
 import { dayNumber, dayNumberOf, isoDate } from '../climate/calendar.js';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { SettingError, TilefluxError } from '../errors.js';
-import type { FitObjective, FitProblem } from './fit.js';
+import type { AlignedObservations, FitObjective, FitProblem } from './fit.js';
 import type { Field } from './fieldSchema.js';
 import { DEFAULT_FIT_PATHS, FIT_PARAMETERS, fieldValue, fitParameter } from './fitParams.js';
 import { preparePeriod } from './run.js';
@@ -26,11 +26,11 @@ export interface FitSetup {
   };
   objective: FitObjective;
   /** Parameters to fit (default: the field's fit.params, else DEFAULT_FIT_PATHS). */
-  paths?: string[];
-  calibrate?: [string, string];
-  validate?: [string, string];
+  paths?: string[] | undefined;
+  calibrate?: [string, string] | undefined;
+  validate?: [string, string] | undefined;
   /** Years of weather simulated before the first compared day (default 1). */
-  warmupYears?: number;
+  warmupYears?: number | undefined;
 }
 
 /** Parse "FROM..TO" (ISO dates) for the setting `calibrate` or `validate`. */
@@ -161,11 +161,11 @@ export function buildFitProblem(s: FitSetup): FitProblem {
     }
     return out;
   };
-  const observed = {
-    drainflowMm: align(obs.drainflowMm),
-    waterTableDepthM: align(obs.waterTableDepthM),
-    no3MgL: align(obs.no3MgL),
-  };
+  const observed: AlignedObservations = {};
+  for (const key of ['drainflowMm', 'waterTableDepthM', 'no3MgL'] as const) {
+    const a = align(obs[key]);
+    if (a) observed[key] = a;
+  }
   const inside = (d: string, p: [string, string] | undefined) =>
     p !== undefined && d >= p[0] && d <= p[1];
   const calibration = new Uint8Array(n);

@@ -42,7 +42,7 @@ export interface NelderMeadOptions {
   /** Edge of the starting simplex in unit-cube coordinates. */
   step?: number;
   /** Largest number of loss evaluations. */
-  maxEvaluations?: number;
+  maxEvaluations?: number | undefined;
   /** Stop when the losses of the simplex differ by less than this ... */
   lossTolerance?: number;
   /** ... and its vertices lie within this of the best (unit-cube coordinates). */
@@ -124,9 +124,9 @@ export interface MultiStartOptions extends NelderMeadOptions {
   dimensions: number;
   seed: number;
   /** Latin hypercube sample size (default 10 per dimension, at least 20). */
-  samples?: number;
+  samples?: number | undefined;
   /** Local searches: from `start` and from the best distinct sample points (default 3). */
-  starts?: number;
+  starts?: number | undefined;
   /** Where the first local search begins (e.g. the field's own values). */
   start?: Point;
 }

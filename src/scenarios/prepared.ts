@@ -37,10 +37,10 @@ import type { AnnualRow } from './types.js';
 /** Which part of a weather record is reported, and how much is simulated before it. */
 export interface PeriodOptions {
   /** First and last reported day (ISO); default: the first and last complete years after warm-up. */
-  from?: string;
-  to?: string;
+  from?: string | undefined;
+  to?: string | undefined;
   /** Years simulated before `from` and not reported, so the start state does not matter. */
-  warmupYears?: number;
+  warmupYears?: number | undefined;
 }
 
 /** Daily forcing for a weather record: snow, reference ET and mean temperature. */
@@ -161,10 +161,10 @@ export function prepareField(
     precipMm: weather.precipMm.slice(a0, b0),
     tmaxC: weather.tmaxC.slice(a0, b0),
     tminC: weather.tminC.slice(a0, b0),
-    refEtMm: weather.refEtMm?.slice(a0, b0),
-    solarMJm2: weather.solarMJm2?.slice(a0, b0),
-    rhMeanPct: weather.rhMeanPct?.slice(a0, b0),
-    wind2mMs: weather.wind2mMs?.slice(a0, b0),
+    ...(weather.refEtMm && { refEtMm: weather.refEtMm.slice(a0, b0) }),
+    ...(weather.solarMJm2 && { solarMJm2: weather.solarMJm2.slice(a0, b0) }),
+    ...(weather.rhMeanPct && { rhMeanPct: weather.rhMeanPct.slice(a0, b0) }),
+    ...(weather.wind2mMs && { wind2mMs: weather.wind2mMs.slice(a0, b0) }),
   };
   const { forcing: f, method } = forcingOf(sim, field.site.latitude, field.site.elevation);
   // weather.etFactor: a calibration factor on reference ET (README, Assumptions and defaults).

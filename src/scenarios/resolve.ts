@@ -187,7 +187,10 @@ export function scenarioOf(
     params: engineParamsOf(f),
     rotation: [...f.crops.rotation],
     rotationFirstYear: f.crops.firstYear,
-    roots: { fixedM: f.soil.rootZoneDepth, capM: f.soil.restrictiveLayerDepth },
+    roots: {
+      ...(f.soil.rootZoneDepth !== undefined && { fixedM: f.soil.rootZoneDepth }),
+      capM: f.soil.restrictiveLayerDepth,
+    },
     seepage: seepageOf(f),
     capacitySource: capacityWithSource(f).source,
     crops: cropsOf(f),

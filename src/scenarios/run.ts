@@ -18,7 +18,7 @@ import type { AnnualRow } from './types.js';
 
 export interface RunOptions extends PeriodOptions {
   /** Run only these scenarios (by name). */
-  only?: string[];
+  only?: string[] | undefined;
   /** Called before each scenario starts. */
   onScenario?: (index: number, count: number, name: string) => void;
   /**
@@ -235,6 +235,6 @@ export function runField(
     baseline: specs[0]?.name ?? '',
     scenarios,
     etFactor: field.base.weather.etFactor,
-    seepageBand,
+    ...(seepageBand && { seepageBand }),
   };
 }

@@ -109,9 +109,9 @@ export interface SweepPlan {
 
 export interface SweepOptions extends PeriodOptions {
   /** Soil samples per design (default: the sweep section's `samples`). */
-  samples?: number;
+  samples?: number | undefined;
   /** Seed of the Latin hypercube (default 1). */
-  seed?: number;
+  seed?: number | undefined;
 }
 
 function lengthText(x: number): string {

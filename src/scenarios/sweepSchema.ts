@@ -96,7 +96,7 @@ export function checkSweep(
   f: {
     soil: { restrictiveLayerDepth: number };
     drains: { radius: number };
-    sweep?: SweepSection;
+    sweep?: SweepSection | undefined;
   },
   soilShape: Record<string, z.ZodType>,
   addIssue: (path: Array<string | number>, message: string) => void,

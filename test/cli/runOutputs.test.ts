@@ -18,7 +18,7 @@ import { ensureBuilt, FIELD, tileflux, WEATHER } from './cli.js';
 
 let dir: string;
 
-const run = (args: string[], cwd?: string) => tileflux(args, { cwd });
+const run = (args: string[], cwd?: string) => tileflux(args, cwd === undefined ? {} : { cwd });
 const year2001 = [
   '--from',
   '2001-01-01',

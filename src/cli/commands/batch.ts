@@ -272,7 +272,7 @@ async function batch(manifestPath: string, o: BatchCommandOptions): Promise<void
               id: job.id,
               field: { base: field.base, scenarios: field.scenarios },
               weather: weatherOf(job),
-              only: job.scenarios,
+              ...(job.scenarios && { only: job.scenarios }),
             });
             await store.add(job.index, rows);
             done('ok');

@@ -206,16 +206,15 @@ export function designField(source: DesignSource, s: ExplorerSettings, d: Design
 
 /** A WeatherSeries from the JSON columns. */
 export function weatherOf(w: WeatherColumns): WeatherSeries {
-  const col = (x: number[] | undefined) => (x ? Float64Array.from(x) : undefined);
   return {
     dates: w.dates,
     precipMm: Float64Array.from(w.precipMm),
     tmaxC: Float64Array.from(w.tmaxC),
     tminC: Float64Array.from(w.tminC),
-    refEtMm: col(w.refEtMm),
-    solarMJm2: col(w.solarMJm2),
-    rhMeanPct: col(w.rhMeanPct),
-    wind2mMs: col(w.wind2mMs),
+    ...(w.refEtMm && { refEtMm: Float64Array.from(w.refEtMm) }),
+    ...(w.solarMJm2 && { solarMJm2: Float64Array.from(w.solarMJm2) }),
+    ...(w.rhMeanPct && { rhMeanPct: Float64Array.from(w.rhMeanPct) }),
+    ...(w.wind2mMs && { wind2mMs: Float64Array.from(w.wind2mMs) }),
   };
 }
 

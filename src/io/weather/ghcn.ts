@@ -134,13 +134,10 @@ export function parseGhcnWide(text: string, o: WeatherReadOptions): WeatherReadR
     headerLine,
     cols,
     {
-      fill: o.fill,
-      where:
-        station !== undefined && stationIndex >= 0
-          ? { column: header[stationIndex], value: station }
-          : o.station !== undefined
-            ? { column: 'STATION', value: o.station }
-            : undefined,
+      ...(o.fill !== undefined && { fill: o.fill }),
+      ...(station !== undefined && stationIndex >= 0
+        ? { where: { column: header[stationIndex], value: station } }
+        : o.station !== undefined && { where: { column: 'STATION', value: o.station } }),
     },
     problems,
     {

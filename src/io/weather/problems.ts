@@ -62,7 +62,8 @@ export class Problems {
   readonly list: LocatedProblem[] = [];
   constructor(readonly file: string) {}
   add(line: number, column: string | undefined, message: ProblemMessage): void {
-    if (this.list.length < 100) this.list.push({ line, column, message });
+    if (this.list.length < 100)
+      this.list.push({ line, ...(column !== undefined && { column }), message });
   }
   throwIfAny(): void {
     if (this.list.length > 0) throw new WeatherInputError(this.file, this.list);
