@@ -5,8 +5,13 @@
  * day is the latest one whose date has passed, wrapping from the previous year, so
  * [{ from: '10-25', depthM: 0.3 }, { from: '04-10', depthM: null }] holds the outlet at 0.3 m from
  * late October to early April and leaves it free over the season. Dated steps ("YYYY-MM-DD") are
- * a one-off list; before the first one the outlet is free. `null` depth means free (the outlet at
- * the drains).
+ * a one-off list; before the first one the outlet is free.
+ *
+ * A free outlet (the outlet at the drains) has one representation in the core: a step's depth of
+ * `null`, and a schedule without steps for a free outlet all the time. The daily series the
+ * engine reads holds NaN on those days, the null of a Float64Array. The field file's word "free"
+ * is converted to these where the field is resolved (`scenarios/resolve.ts`), and back to words
+ * where a schedule is shown.
  */
 
 import { dayIndexOf, monthDayKey, type DayIndex } from '../climate/calendar.js';
@@ -18,7 +23,10 @@ export interface OutletStep {
   depthM: number | null;
 }
 
-export type OutletSchedule = 'free' | { steps: OutletStep[] };
+/** The steps of a control structure; no steps: a free outlet all the time. */
+export interface OutletSchedule {
+  steps: OutletStep[];
+}
 
 /** A sortable integer key of a step date: MMDD for "MM-DD", YYYYMMDD for "YYYY-MM-DD". */
 export function stepKey(from: string): number {
@@ -38,7 +46,7 @@ export function outletSeries(
   days: DayIndex = dayIndexOf(dates),
 ): Float64Array {
   const out = new Float64Array(dates.length).fill(NaN);
-  if (schedule === 'free' || schedule.steps.length === 0) return out;
+  if (schedule.steps.length === 0) return out;
   const yearly = schedule.steps[0].from.length === 5;
   const steps = schedule.steps
     .map((s) => ({ key: stepKey(s.from), depth: s.depthM === null ? NaN : s.depthM }))

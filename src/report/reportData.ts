@@ -166,7 +166,7 @@ export function reportDataOf(
       drainDepthM: s.spec.params.drainDepthM,
       spacingM: s.spec.params.spacingM,
       outlet: s.spec.outletLabel,
-      ...(s.spec.outlet === 'free' ? {} : { outletSteps: s.spec.outlet.steps }),
+      ...(s.spec.outlet.steps.length > 0 && { outletSteps: s.spec.outlet.steps }),
       ...(typeof s.spec.field.outlet === 'object' && s.spec.field.outlet.boardHeight !== undefined
         ? { boardHeightM: s.spec.field.outlet.boardHeight }
         : {}),

@@ -66,7 +66,7 @@ export function drainageIntensityOf(f: Field): number {
 /** The outlet schedule of a field, in engine form, and its label in the given units. */
 function outletOf(f: Field, say: Prose): { outlet: OutletSchedule; label: string } {
   const o = f.outlet;
-  if (o === 'free') return { outlet: 'free', label: 'free outlet' };
+  if (o === 'free') return { outlet: { steps: [] }, label: 'free outlet' };
   const list = 'schedule' in o ? o.schedule : o.dates;
   const steps = list.map((s) => ({ from: s.from, depthM: s.depth === 'free' ? null : s.depth }));
   const label = steps

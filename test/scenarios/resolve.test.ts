@@ -52,6 +52,23 @@ describe('scenario resolution', () => {
       ],
     });
   });
+
+  it('the field file\'s "free" becomes a schedule without steps, a free step a null depth', () => {
+    const [conv, , controlled] = standardScenarios(parseField(BASE, 'f.yaml').base);
+    expect(conv.outlet).toEqual({ steps: [] });
+    expect(conv.outletLabel).toBe('free outlet');
+    expect(controlled.outlet.steps.map((s) => s.depthM)).toContain(null);
+    const held = parseField(
+      `${BASE}outlet: { schedule: [{ from: 10-15, depth: 0.4 m }, { from: 04-15, depth: free }] }\n`,
+      'f.yaml',
+    ).base;
+    expect(standardScenarios(held)[0].outlet).toEqual({
+      steps: [
+        { from: '10-15', depthM: 0.4 },
+        { from: '04-15', depthM: null },
+      ],
+    });
+  });
 });
 
 describe('pipe capacity from the drainage coefficient', () => {
