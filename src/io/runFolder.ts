@@ -209,7 +209,8 @@ export function buildSummary(
           substepsPerDayUsed: s.engine.substepsPerDay,
           rotation: s.spec.rotation,
           rotation_first_year: s.spec.rotationFirstYear,
-          outlet: s.spec.outlet,
+          // In the field file's word: a schedule without steps is "free".
+          outlet: s.spec.outlet.steps.length === 0 ? 'free' : s.spec.outlet,
           nitrate: s.spec.nitrate,
         },
         annual_mean: recordIn(mean, units),
