@@ -210,7 +210,7 @@ export function buildSummary(
           rotation: s.spec.rotation,
           rotation_first_year: s.spec.rotationFirstYear,
           // In the field file's word: a schedule without steps is "free".
-          outlet: s.spec.outlet.steps.length === 0 ? 'free' : s.spec.outlet,
+          outlet: s.spec.outlet.steps.length === 0 ? ('free' as const) : s.spec.outlet,
           nitrate: s.spec.nitrate,
         },
         annual_mean: recordIn(mean, units),
