@@ -170,6 +170,7 @@ export type {
   PorosityProfile,
   EngineParams,
   EngineResult,
+  EngineColumns,
 } from './engine/types.js';
 // Engine: the crop table and the daily crop calendar (Kc, roots)
 export {

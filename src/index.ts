@@ -151,6 +151,7 @@ export {
   type PorosityProfile,
   type EngineParams,
   type EngineResult,
+  type EngineColumns,
   type CropParams,
   CROPS,
   BARE_SOIL_KC,

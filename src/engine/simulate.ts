@@ -44,7 +44,13 @@ import {
   type PorosityTable,
 } from './porosityProfile.js';
 import { lateralSeepageMmPerDay, verticalSeepageMmPerDay } from './seepage.js';
-import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from './types.js';
+import type {
+  CropCalendar,
+  EngineColumns,
+  EngineForcing,
+  EngineParams,
+  EngineResult,
+} from './types.js';
 
 /** Largest change of the drain head, as a fraction of itself, allowed in one sub-step. */
 const MAX_RELATIVE_STEP = 0.5;
@@ -222,6 +228,9 @@ export function outletLevels(
  * @param calendar  daily Kc and depletion fraction for this scenario's rotation
  * @param outletDepthM  daily control-structure level, m below the surface; NaN = free outlet
  * @param p         field and layout parameters (SI)
+ * @param reuse     the columns of an earlier result over as many days, to be overwritten (every
+ *   column is written every day); the earlier result then shows this run. Without it the
+ *   columns are allocated.
  * @example
  * const r = simulate(forcing, calendar, new Float64Array(forcing.dates.length).fill(NaN), params);
  * r.drainflowMm; // daily drain outflow, mm
@@ -231,6 +240,7 @@ export function simulate(
   calendar: CropCalendar,
   outletDepthM: Float64Array,
   p: EngineParams,
+  reuse?: EngineColumns,
 ): EngineResult {
   const n = forcing.dates.length;
   const table = porosityTable(p.porosity, p.barrierDepthM);
@@ -267,24 +277,27 @@ export function simulate(
     p.seepageConductanceMmPerDayPerM > 0 ||
     (sp !== undefined && (sp.leakancePerDay > 0 || sp.lateralKMPerDay > 0));
 
-  const out = {
-    etMm: new Float64Array(n),
-    cropEtMm: new Float64Array(n),
-    runoffMm: new Float64Array(n),
-    infiltrationMm: new Float64Array(n),
-    drainflowMm: new Float64Array(n),
-    seepageMm: new Float64Array(n),
-    lateralSeepageMm: new Float64Array(n),
-    waterTableDepthM: new Float64Array(n),
-    outletDepthM: new Float64Array(n),
-    pondedMm: new Float64Array(n),
-    rootZoneDepletionMm: new Float64Array(n),
-    ks: new Float64Array(n),
-    soilStorageMm: new Float64Array(n),
-    saturatedFraction: new Float64Array(n),
-    balanceErrorMm: new Float64Array(n),
-    capacityLimited: new Uint8Array(n),
-  };
+  const out: EngineColumns =
+    reuse?.etMm.length === n
+      ? reuse
+      : {
+          etMm: new Float64Array(n),
+          cropEtMm: new Float64Array(n),
+          runoffMm: new Float64Array(n),
+          infiltrationMm: new Float64Array(n),
+          drainflowMm: new Float64Array(n),
+          seepageMm: new Float64Array(n),
+          lateralSeepageMm: new Float64Array(n),
+          waterTableDepthM: new Float64Array(n),
+          outletDepthM: new Float64Array(n),
+          pondedMm: new Float64Array(n),
+          rootZoneDepletionMm: new Float64Array(n),
+          ks: new Float64Array(n),
+          soilStorageMm: new Float64Array(n),
+          saturatedFraction: new Float64Array(n),
+          balanceErrorMm: new Float64Array(n),
+          capacityLimited: new Uint8Array(n),
+        };
 
   let air = airAbove(table, Math.min(Math.max(p.initialWaterTableDepthM, 0), p.barrierDepthM));
   let depletion = 0;

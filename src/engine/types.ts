@@ -88,6 +88,12 @@ export interface EngineParams {
 }
 
 /** Daily results of one engine run (end-of-day states, daily fluxes in mm). */
+/**
+ * The daily columns of an engine result: what a later run of the same length may write into
+ * (`simulate`'s `reuse`), so that a sweep allocates them once per worker instead of per design.
+ */
+export type EngineColumns = Omit<EngineResult, 'dates' | 'substepsPerDay' | 'equivalentDepthM'>;
+
 export interface EngineResult {
   dates: string[];
   etMm: Float64Array;

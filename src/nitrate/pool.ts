@@ -127,6 +127,9 @@ export function poolForcingOf(
  * Run the pool model over the daily series.
  *
  * @param forcing the weather- and calendar-only terms (`poolForcingOf`), when already computed
+ * @param reuse an earlier pool result over as many days whose columns are overwritten (every
+ *   column is written every day; the forcing columns are shared, not written), as a sweep does
+ *   design after design; without it the columns are allocated
  * @example
  * const r = simulatePool(input, DEFAULT_POOL_PARAMS);
  * r.pool.balanceErrorKgHa // ~1e-15 each day
@@ -135,6 +138,7 @@ export function simulatePool(
   input: NitrateInput,
   p: PoolParams,
   forcing: PoolForcing = poolForcingOf(input, p),
+  reuse?: NitrateResult,
 ): NitrateResult & { pool: NonNullable<NitrateResult['pool']> } {
   const n = input.dates.length;
   const { drainflowMm, runoffMm, seepageMm, saturatedFraction } = input;
@@ -144,15 +148,17 @@ export function simulatePool(
   const { fertilizerKgHa, mineralizationKgHa, uptakeDemandKgHa } = forcing;
   const tempFactor = forcing.denitrificationTemperatureFactor;
 
-  const concMgL = new Float64Array(n);
-  const loadKgHa = new Float64Array(n);
-  const runoffLoadKgHa = new Float64Array(n);
-  const seepageLoadKgHa = new Float64Array(n);
-  const poolKgHa = new Float64Array(n);
-  const profileConcMgL = new Float64Array(n);
-  const uptakeKgHa = new Float64Array(n);
-  const denitrificationKgHa = new Float64Array(n);
-  const balanceErrorKgHa = new Float64Array(n);
+  const old = reuse?.pool && reuse.concMgL.length === n ? reuse : undefined;
+  const column = (a: Float64Array | undefined) => a ?? new Float64Array(n);
+  const concMgL = column(old?.concMgL);
+  const loadKgHa = column(old?.loadKgHa);
+  const runoffLoadKgHa = column(old?.runoffLoadKgHa);
+  const seepageLoadKgHa = column(old?.seepageLoadKgHa);
+  const poolKgHa = column(old?.pool?.poolKgHa);
+  const profileConcMgL = column(old?.pool?.profileConcMgL);
+  const uptakeKgHa = column(old?.pool?.uptakeKgHa);
+  const denitrificationKgHa = column(old?.pool?.denitrificationKgHa);
+  const balanceErrorKgHa = column(old?.pool?.balanceErrorKgHa);
 
   let pool = p.initialPoolKgHa;
   for (let i = 0; i < n; i++) {

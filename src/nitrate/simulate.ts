@@ -45,7 +45,9 @@ function checkInput(input: NitrateInput): void {
 
 /**
  * Daily nitrate-N concentrations and loads of one run. `poolForcing` (pool model only) are the
- * weather- and calendar-only terms from `poolForcingOf`, when the caller keeps them across runs.
+ * weather- and calendar-only terms from `poolForcingOf`, when the caller keeps them across runs;
+ * `reuse` (pool model only) an earlier result over as many days whose columns this run
+ * overwrites.
  *
  * @example
  * const r = simulateNitrate(input, { model: 'fixed', concentrationMgL: 12 });
@@ -55,12 +57,13 @@ export function simulateNitrate(
   input: NitrateInput,
   config: NitrateConfig,
   poolForcing?: PoolForcing,
+  reuse?: NitrateResult,
 ): NitrateResult {
   checkInput(input);
   const n = input.dates.length;
   switch (config.model) {
     case 'pool':
-      return simulatePool(input, config, poolForcing);
+      return simulatePool(input, config, poolForcing, reuse);
     case 'fixed':
       return loadsFromConcentration(
         input,

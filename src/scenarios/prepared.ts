@@ -213,14 +213,16 @@ export function prepareField(
 
 /**
  * Run one design over a prepared field: the engine, the nitrate model and the annual table of
- * the reported period. Only the result columns are allocated.
+ * the reported period. Only the result columns are allocated, and not even those with `reuse`:
+ * the run of an earlier design over the same field, whose daily columns this run overwrites (a
+ * sweep keeps one per worker; the earlier run then shows this one).
  *
  * @example runDesign(prepareField(field.base, weather), scenarioOf('a', '', field.base)).annual
  */
-export function runDesign(p: PreparedField, spec: DesignSpec): DesignRun {
+export function runDesign(p: PreparedField, spec: DesignSpec, reuse?: DesignRun): DesignRun {
   const { forcing } = p;
   const calendar = p.calendarOf(spec.rotation, spec.crops, spec.rotationFirstYear, spec.roots);
-  const engine = simulate(forcing, calendar, p.outletOf(spec.outlet), spec.params);
+  const engine = simulate(forcing, calendar, p.outletOf(spec.outlet), spec.params, reuse?.engine);
   const nitrate = simulateNitrate(
     {
       dates: forcing.dates,
@@ -235,6 +237,7 @@ export function runDesign(p: PreparedField, spec: DesignSpec): DesignRun {
     },
     spec.nitrate,
     p.poolForcingOf(calendar, spec.nitrate),
+    reuse?.nitrate,
   );
   const annual = annualRows(
     spec.name,

@@ -249,6 +249,8 @@ export function runSweepJobs(
   let measures: string[] = [];
   let values = new Float64Array(0);
   const fields = new Map<number, Field>();
+  // Each design's daily columns are written over the previous design's: only its measures stay.
+  let last: ReturnType<typeof runDesign> | undefined;
   for (let j = start; j < end; j++) {
     const d = plan.designs[Math.floor(j / S)];
     const s = j % S;
@@ -259,7 +261,8 @@ export function runSweepJobs(
       drains: { ...sf.drains, depth: d.depthM, spacing: d.spacingM },
       outlet: d.outlet,
     };
-    const { annual } = runDesign(prepared, scenarioOf(d.name, '', f));
+    last = runDesign(prepared, scenarioOf(d.name, '', f), last);
+    const { annual } = last;
     const m = measuresOf(annual);
     if (j === start) {
       measures = m.names;
