@@ -29,7 +29,7 @@ export {
   nitrateSchema,
   DEFAULT_NITRATE,
   ratingFromObservations,
-  zKgHa,
   type NitrateSection,
   type RatingObservationsSection,
 } from './schema.js';
+export { zKgHa } from './schemaValues.js';

@@ -14,95 +14,13 @@
  * // { model: 'fixed', concentrationMgL: 12, runoffExtractionRatio: 0.1 }
  */
 import { z } from 'zod';
-import { dayNumber } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
-import { DECIMAL_NUMBER } from '../units/decimal.js';
-import { US } from '../units/quantity.js';
-import { zQuantity } from '../units/zodQuantity.js';
 import { fitRating } from './fitRating.js';
-import {
-  DEFAULT_POOL_PARAMS as D,
-  DEFAULT_RATING_RANGE_MM,
-  DEFAULT_RUNOFF_EXTRACTION_RATIO,
-} from './defaults.js';
+import { DEFAULT_POOL_PARAMS as D, DEFAULT_RATING_RANGE_MM } from './defaults.js';
+import { poolConfig, poolSchema } from './poolSchema.js';
 import { readRatingPairsCsv } from './ratingCsv.js';
+import { concentration, positiveRate, runoffExtractionRatio } from './schemaValues.js';
 import type { NitrateConfig, RatingFit } from './types.js';
-
-const KG_HA = new RegExp(
-  String.raw`^\s*(${DECIMAL_NUMBER})\s*kg\s*(?:N\s*)?/\s*(?:ha|hectare)\s*$`,
-  'i',
-);
-const LB_AC = new RegExp(
-  String.raw`^\s*(${DECIMAL_NUMBER})\s*lbs?\s*(?:N\s*)?/\s*(?:ac|acre)\s*$`,
-  'i',
-);
-const BARE = new RegExp(String.raw`^\s*(${DECIMAL_NUMBER})\s*$`);
-
-/**
- * A mass of N per area: a number in kg N/ha, or "150 kg/ha", "150 kg N/ha", "134 lb/ac".
- *
- * @example zKgHa('Fertilizer N').parse('100 lb/ac') // 112.085...
- */
-export function zKgHa(description: string, perYear = false) {
-  const unit = perYear ? 'kg N/ha per year' : 'kg N/ha';
-  return z
-    .union([z.number(), z.string()])
-    .transform((value, ctx) => {
-      let v: number;
-      let m: RegExpExecArray | null;
-      if (typeof value === 'number') v = value;
-      else if ((m = BARE.exec(value) ?? KG_HA.exec(value))) v = Number(m[1]);
-      else if ((m = LB_AC.exec(value))) v = Number(m[1]) / US.lbAcPerKgHa;
-      else v = NaN;
-      if (!Number.isFinite(v) || v < 0) {
-        ctx.addIssue({
-          code: 'custom',
-          message: `expects a mass of N per area of at least 0 such as 150, 150 kg/ha or 134 lb/ac; got ${value}`,
-        });
-        return z.NEVER;
-      }
-      return v;
-    })
-    .describe(`${description} [${unit}; e.g. 150, 150 kg/ha or 134 lb/ac]`);
-}
-
-const fraction = (description: string, max = 1) =>
-  zQuantity('fraction', description, { min: 0, max });
-
-const runoffExtractionRatio = fraction(
-  'Nitrate concentration of surface runoff relative to the drain (profile) water: runoff meets only a thin surface layer (assumption)',
-)
-  .default(DEFAULT_RUNOFF_EXTRACTION_RATIO)
-  .describe(
-    `Nitrate concentration of surface runoff relative to the drain (profile) water [fraction; default ${DEFAULT_RUNOFF_EXTRACTION_RATIO} (assumption)]`,
-  );
-
-const concentration = (description: string) =>
-  zQuantity('concentration', description, { min: 0, max: 1000 });
-
-const positiveRate = (description: string) =>
-  zQuantity('rate', description, { min: 0, exclusiveMin: true });
-
-/** "MM-DD" (every year) or "YYYY-MM-DD" (once), a real calendar day. */
-const eventDate = z
-  .string()
-  .refine(
-    (s) =>
-      (/^\d{2}-\d{2}$/.test(s) && dayNumber(`2000-${s}`) !== undefined) ||
-      (/^\d{4}-\d{2}-\d{2}$/.test(s) && dayNumber(s) !== undefined),
-    { message: 'expects a month-day such as "04-25" (every year) or a date such as "2024-04-25"' },
-  )
-  .describe('Application date: "MM-DD" every year, or "YYYY-MM-DD" once');
-
-const fertilizerEvent = z.strictObject({
-  date: eventDate,
-  amount: zKgHa('N applied (fertilizer or manure N that turns to nitrate)'),
-  crops: z
-    .array(z.string().min(1))
-    .min(1)
-    .optional()
-    .describe('Apply only in years in which one of these crops is grown, e.g. [corn]'),
-});
 
 const fixedSchema = z
   .strictObject({
@@ -180,113 +98,6 @@ const ratingSchema = z
   })
   .describe('rating: C = a Q^b, given or fitted to observations');
 
-const uptakeDefaults = D.uptakeKgHa;
-
-const poolSchema = z
-  .strictObject({
-    model: z.literal('pool').describe('Daily soil nitrate-N balance of the drained profile'),
-    initialPool: zKgHa('Nitrate-N in the drained profile on the first simulated day')
-      .default(D.initialPoolKgHa)
-      .describe(
-        `Nitrate-N in the drained profile on the first simulated day [kg N/ha, or e.g. 40 kg/ha, 36 lb/ac; default ${D.initialPoolKgHa} (assumption)]`,
-      ),
-    mobileWater: zQuantity(
-      'depthMm',
-      'Water in the drained profile that the nitrate pool mixes into',
-      { min: 1, max: 5000 },
-    )
-      .default(D.mobileWaterMm)
-      .describe(
-        `Water in the drained profile that the nitrate pool mixes into; its concentration is pool / water [mm, or e.g. 12 in; default ${D.mobileWaterMm} (assumption: 1.2 m x 0.25)]`,
-      ),
-    fertilizer: z
-      .array(fertilizerEvent)
-      .default(D.fertilizer.map((e) => ({ date: e.date, amount: e.amountKgHa, crops: e.crops })))
-      .describe(
-        'Fertilizer and manure N events [list of {date, amount (kg N/ha), crops}; default 150 kg N/ha on 04-25 in corn years (regional rate guidelines)]',
-      ),
-    mineralization: zKgHa('Net N mineralization a whole year at 20 degC would give', true)
-      .default(D.mineralizationKgHaPerYear)
-      .describe(
-        `Net N mineralization a whole year at 20 degC would give [kg N/ha per year; default ${D.mineralizationKgHaPerYear} (published figure; sources in src/nitrate/defaults.ts)]`,
-      ),
-    mineralizationQ10: z
-      .number()
-      .min(1)
-      .max(5)
-      .default(D.mineralizationQ10)
-      .describe(
-        `Q10 of mineralization (rate ratio per 10 degC) [-; default ${D.mineralizationQ10} (published figure; sources in src/nitrate/defaults.ts)]`,
-      ),
-    uptake: z
-      .record(z.string().min(1), zKgHa('Seasonal crop N uptake from the soil'))
-      .default({})
-      .describe(
-        `Crop N demand on the soil per season, by crop, met in full while nitrate is ample; crops not named keep their default [kg N/ha; defaults ${Object.entries(
-          uptakeDefaults,
-        )
-          .map(([k, v]) => `${k} ${v}`)
-          .join(', ')} (published figure; sources in src/nitrate/defaults.ts)]`,
-      ),
-    uptakeHalfSaturation: zKgHa('Pool at which crops take half their daily demand')
-      .default(D.uptakeHalfSaturationKgHa)
-      .describe(
-        `Nitrate-N pool at which crops take half their daily demand (uptake = demand x pool / (pool + this)); 0 takes the full demand while N lasts [kg N/ha; default ${D.uptakeHalfSaturationKgHa} (assumption)]`,
-      ),
-    uptakeMidpoint: zQuantity('fraction', 'Season fraction by which half the uptake is taken', {
-      min: 0.05,
-      max: 0.95,
-    })
-      .default(D.uptakeMidpoint)
-      .describe(
-        `Season fraction (0 planting, 1 harvest) by which half the uptake is taken [fraction; default ${D.uptakeMidpoint} (published figure; sources in src/nitrate/defaults.ts)]`,
-      ),
-    uptakeSteepness: z
-      .number()
-      .positive()
-      .max(100)
-      .default(D.uptakeSteepness)
-      .describe(
-        `Steepness of the logistic uptake curve [per unit season fraction; default ${D.uptakeSteepness} (assumption)]`,
-      ),
-    denitrificationRate: fraction('Fraction of the pool denitrified per day')
-      .default(D.denitrificationMaxPerDay)
-      .describe(
-        `Fraction of the pool denitrified per day with the drained profile saturated, at 20 degC [1/d; default ${D.denitrificationMaxPerDay} (assumption)]`,
-      ),
-    denitrificationQ10: z
-      .number()
-      .min(1)
-      .max(5)
-      .default(D.denitrificationQ10)
-      .describe(
-        `Q10 of denitrification at and above 11 degC [-; default ${D.denitrificationQ10} (NEMIS, from memory)]`,
-      ),
-    denitrificationColdQ10: z
-      .number()
-      .min(1)
-      .max(200)
-      .default(D.denitrificationColdQ10 ?? D.denitrificationQ10)
-      .describe(
-        `Q10 of denitrification below 11 degC [-; default ${D.denitrificationColdQ10} (NEMIS, from memory)]`,
-      ),
-    saturationThreshold: fraction('Saturated fraction below which no denitrification happens', 0.95)
-      .default(D.saturationThreshold)
-      .describe(
-        `Saturated fraction of the drained profile below which no denitrification happens [fraction; default ${D.saturationThreshold} (assumption)]`,
-      ),
-    saturationExponent: z
-      .number()
-      .positive()
-      .max(10)
-      .default(D.saturationExponent)
-      .describe(
-        `Exponent of the saturation response of denitrification [-; default ${D.saturationExponent} (assumption)]`,
-      ),
-    runoffExtractionRatio,
-  })
-  .describe('pool: daily nitrate-N balance');
-
 /** A rating still to be fitted to an observations file (resolved by `ratingFromObservations`). */
 export interface RatingObservationsSection {
   model: 'rating';
@@ -333,28 +144,7 @@ function toConfig(s: SectionIn): NitrateSection {
         runoffExtractionRatio: s.runoffExtractionRatio,
       };
     case 'pool':
-      return {
-        model: 'pool',
-        initialPoolKgHa: s.initialPool,
-        mobileWaterMm: s.mobileWater,
-        fertilizer: s.fertilizer.map((e) => ({
-          date: e.date,
-          amountKgHa: e.amount,
-          ...(e.crops ? { crops: [...e.crops] } : {}),
-        })),
-        mineralizationKgHaPerYear: s.mineralization,
-        mineralizationQ10: s.mineralizationQ10,
-        uptakeKgHa: { ...uptakeDefaults, ...s.uptake },
-        uptakeHalfSaturationKgHa: s.uptakeHalfSaturation,
-        uptakeMidpoint: s.uptakeMidpoint,
-        uptakeSteepness: s.uptakeSteepness,
-        denitrificationMaxPerDay: s.denitrificationRate,
-        denitrificationQ10: s.denitrificationQ10,
-        denitrificationColdQ10: s.denitrificationColdQ10,
-        saturationThreshold: s.saturationThreshold,
-        saturationExponent: s.saturationExponent,
-        runoffExtractionRatio: s.runoffExtractionRatio,
-      };
+      return poolConfig(s);
   }
 }
 

@@ -4,8 +4,8 @@ import {
   DEFAULT_NITRATE,
   nitrateSchema,
   ratingFromObservations,
-  zKgHa,
 } from '../../src/nitrate/schema.js';
+import { zKgHa } from '../../src/nitrate/schemaValues.js';
 
 const issues = (v: unknown) => {
   const r = nitrateSchema.safeParse(v);
