@@ -9,6 +9,7 @@ import type { WeatherSeries } from '../climate/weatherSeries.js';
 import type { FitProblem } from '../scenarios/fit.js';
 import type { nelderMead, SearchRunner } from '../scenarios/optimise.js';
 import type { FitTask } from './fitWorker.js';
+import { unguarded } from '../io/workerErrors.js';
 
 /** A search runner on `workers` threads, and the function that stops them. */
 export function poolRunner(
@@ -35,7 +36,7 @@ export function poolRunner(
     idleTimeout: 1000,
   });
   const run = async <T>(task: FitTask): Promise<T> => {
-    const out = (await pool.run(task)) as T;
+    const out = await unguarded<T>(pool.run(task));
     onProgress();
     return out;
   };

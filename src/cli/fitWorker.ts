@@ -7,6 +7,7 @@ import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { calibrationLoss, type FitProblem } from '../scenarios/fit.js';
 import { preparePeriod } from '../scenarios/run.js';
 import { nelderMead, type NelderMeadOptions, type Point } from '../scenarios/optimise.js';
+import { guarded } from '../io/workerErrors.js';
 
 export type FitTask =
   | { kind: 'evaluate'; points: Point[] }
@@ -23,7 +24,6 @@ const loss = calibrationLoss({
 });
 
 /** Run one task: losses of a batch, or one bounded Nelder-Mead search. */
-export default function run(task: FitTask) {
-  if (task.kind === 'evaluate') return task.points.map(loss);
-  return nelderMead(loss, task.start, task.options);
-}
+export default guarded((task: FitTask) =>
+  task.kind === 'evaluate' ? task.points.map(loss) : nelderMead(loss, task.start, task.options),
+);

@@ -19,6 +19,7 @@
  * soil's permeability), and the range is returned beside it.
  */
 import { TilefluxError } from '../errors.js';
+import { US } from '../units/quantity.js';
 
 export const COEFFICIENT_SOILS = ['mineral', 'organic'] as const;
 export const COEFFICIENT_CROPS = ['field', 'truck'] as const;
@@ -48,8 +49,6 @@ export interface DrainageCoefficient {
   /** Where the numbers come from. */
   source: string;
 }
-
-const MM_PER_IN = 25.4;
 
 /** The table of the module comment, in inches per 24 hours: [low, high]. */
 const TABLE_IN_PER_DAY: Record<
@@ -92,9 +91,9 @@ export function drainageCoefficient(preset: CoefficientPreset): DrainageCoeffici
   const mid = (lo + hi) / 2;
   return {
     preset: { ...preset },
-    mmPerDay: mid * MM_PER_IN,
-    lowMmPerDay: lo * MM_PER_IN,
-    highMmPerDay: hi * MM_PER_IN,
+    mmPerDay: mid * US.mmPerIn,
+    lowMmPerDay: lo * US.mmPerIn,
+    highMmPerDay: hi * US.mmPerIn,
     inPerDay: mid,
     lowInPerDay: lo,
     highInPerDay: hi,

@@ -9,6 +9,7 @@
  * drain-design form solved for the diameter is D = 16 (q n / S^0.5)^(3/8) with D in inches and
  * q in ft3/s (the 16 is 12 (4^(5/3) / (1.486 pi))^(3/8) = 16.01, rounded).
  */
+import { US } from '../units/quantity.js';
 import { requirePositive } from './checks.js';
 
 /**
@@ -16,7 +17,7 @@ import { requirePositive } from './checks.js';
  * US conservation practice standards for subsurface drains give where sediment can settle in the
  * line (from memory; 0.5 ft/s is quoted where it cannot). The default target of the minimum grade.
  */
-export const SEDIMENT_VELOCITY_MS = 1.4 * 0.3048;
+export const SEDIMENT_VELOCITY_MS = 1.4 * US.mPerFt;
 
 /** 4^(5/3) / pi: Q = D^(8/3) S^(1/2) / (n 4^(5/3) / pi). */
 const K_CIRCLE = Math.pow(4, 5 / 3) / Math.PI;

@@ -8,7 +8,7 @@
  */
 import { TilefluxError } from '../errors.js';
 import { isDecimalNumber } from '../units/decimal.js';
-import { tryParseQuantity } from '../units/quantity.js';
+import { tryParseQuantity, US } from '../units/quantity.js';
 
 /** A list of available pipe sizes, ascending, in one unit. */
 export interface PipeSizeList {
@@ -39,7 +39,7 @@ export const METRIC_SIZES: PipeSizeList = {
   source: 'corrugated and twin-wall drain pipe, European practice (common practice)',
 };
 
-const MM_PER_UNIT = { in: 25.4, mm: 1 } as const;
+const MM_PER_UNIT = { in: US.mmPerIn, mm: 1 } as const;
 
 /** Pipe materials with a default Manning n. */
 export type PipeMaterial = 'corrugated' | 'smooth';
@@ -94,7 +94,7 @@ export function selectPipeSize(
   const largest = sizes.nominal[sizes.nominal.length - 1];
   const mm = requiredDiameterM * 1000;
   throw new TilefluxError(
-    `the flow needs a pipe of at least ${mm.toFixed(0)} mm (${(mm / 25.4).toFixed(1)} in), ` +
+    `the flow needs a pipe of at least ${mm.toFixed(0)} mm (${(mm / US.mmPerIn).toFixed(1)} in), ` +
       `larger than the largest size in ${option} (${largest} ${sizes.unit}); give larger sizes, ` +
       `a steeper grade or a smaller drained area (split it between outlets)`,
   );

@@ -9,6 +9,7 @@ import { Piscina } from 'piscina';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import type { FieldWithScenarios } from '../scenarios/run.js';
 import { runJob, type JobRows } from '../scenarios/batch.js';
+import { unguarded } from './workerErrors.js';
 
 /** One job as a worker receives it. */
 export interface BatchTask {
@@ -74,7 +75,7 @@ export function batchRunner(workers: number): BatchRunner {
   });
   return {
     workers,
-    run: (t) => pool.run(t) as Promise<JobRows>,
+    run: (t) => unguarded<JobRows>(pool.run(t)),
     close: () => pool.destroy(),
   };
 }

@@ -3,7 +3,8 @@
  */
 import { runJob, type JobRows } from '../scenarios/batch.js';
 import type { BatchTask } from './batchPool.js';
+import { guarded } from './workerErrors.js';
 
-export default function run(t: BatchTask): JobRows {
-  return runJob(t.id, t.field, t.weather, { only: t.only });
-}
+export default guarded((t: BatchTask): JobRows =>
+  runJob(t.id, t.field, t.weather, { only: t.only }),
+);

@@ -22,6 +22,7 @@ import { dayNumber, isoDate } from '../climate/calendar.js';
 import { SettingError } from '../errors.js';
 import { problemsLine, type LocatedProblem, type ProblemMessage } from './weather/problems.js';
 import { isDecimalNumber } from '../units/decimal.js';
+import { US } from '../units/quantity.js';
 
 /** One located problem in an observation file. */
 export interface ObservationProblem {
@@ -84,7 +85,7 @@ interface ColumnSpec {
 
 const COLUMNS: readonly ColumnSpec[] = [
   { header: 'drainflow_mm', variable: 'drainflow', unit: 'mm/d', toCore: (x) => x },
-  { header: 'drainflow_in', variable: 'drainflow', unit: 'in/d', toCore: (x) => x * 25.4 },
+  { header: 'drainflow_in', variable: 'drainflow', unit: 'in/d', toCore: (x) => x * US.mmPerIn },
   { header: 'flow_l_s', variable: 'drainflow', unit: 'L/s', rate: true, toCore: (x) => x / 1000 },
   { header: 'flow_m3_s', variable: 'drainflow', unit: 'm3/s', rate: true, toCore: (x) => x },
   {
@@ -92,21 +93,21 @@ const COLUMNS: readonly ColumnSpec[] = [
     variable: 'drainflow',
     unit: 'US gal/min',
     rate: true,
-    toCore: (x) => (x * 3.785411784) / 1000 / 60,
+    toCore: (x) => (x * US.lPerGal) / 1000 / 60,
   },
   {
     header: 'flow_cfs',
     variable: 'drainflow',
     unit: 'ft3/s',
     rate: true,
-    toCore: (x) => x * 0.028316846592,
+    toCore: (x) => x / US.cfsPerM3s,
   },
   { header: 'water_table_depth_m', variable: 'waterTable', unit: 'm', toCore: (x) => x },
   {
     header: 'water_table_depth_ft',
     variable: 'waterTable',
     unit: 'ft',
-    toCore: (x) => x * 0.3048,
+    toCore: (x) => x * US.mPerFt,
   },
   { header: 'no3n_mg_l', variable: 'no3', unit: 'mg/L', toCore: (x) => x },
 ];

@@ -7,7 +7,6 @@
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
-import { TilefluxError } from '../errors.js';
 import type { Field } from '../scenarios/fieldSchema.js';
 import { reportPeriod } from '../scenarios/prepared.js';
 import {
@@ -27,6 +26,7 @@ import {
   type ClimateInput,
   type ClimateStudy,
 } from '../scenarios/sweepClimates.js';
+import { unguarded } from './workerErrors.js';
 
 /** What every worker receives once. */
 export interface SweepWorkerData {
@@ -85,7 +85,7 @@ export async function sweepParallel(
     if (o.signal?.aborted) throw new Error('stopped');
     const parts = await Promise.all(
       ranges.map((r) =>
-        (pool.run(r) as Promise<JobResults>).then((res) => {
+        unguarded<JobResults>(pool.run(r)).then((res) => {
           done += r.end - r.start;
           o.onProgress?.(done, total);
           return res;
@@ -100,10 +100,6 @@ export async function sweepParallel(
       { ...period, years: yearsOf(period.from, period.to) },
       { measures: parts[0].measures, values },
     );
-  } catch (err) {
-    // A user error raised in a worker arrives as a plain Error with the same name.
-    if (err instanceof Error && err.name === 'TilefluxError') throw new TilefluxError(err.message);
-    throw err;
   } finally {
     o.signal?.removeEventListener('abort', stop);
     await pool.destroy();

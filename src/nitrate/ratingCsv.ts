@@ -13,6 +13,7 @@ import { CsvError, parse } from 'csv-parse/browser/esm/sync';
 import { dayNumber } from '../climate/calendar.js';
 import { TilefluxError } from '../errors.js';
 import { isDecimalNumber } from '../units/decimal.js';
+import { US } from '../units/quantity.js';
 import type { RatingPairs } from './types.js';
 
 /**
@@ -65,7 +66,7 @@ export function readRatingPairsCsv(text: string, file = 'rating observations'): 
     );
   }
   const iFlow = iFlowMm >= 0 ? iFlowMm : iFlowIn;
-  const flowScale = iFlowMm >= 0 ? 1 : 25.4;
+  const flowScale = iFlowMm >= 0 ? 1 : US.mmPerIn;
   const flowName = header[iFlow];
 
   const out: RatingPairs = { dates: [], flowMm: [], concMgL: [], skippedRows: 0 };

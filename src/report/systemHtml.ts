@@ -7,7 +7,7 @@
 import type { SystemDesign, SystemSettings } from '../drainage/systemDesign.js';
 import { MATERIAL_ROUGHNESS, PIPE_MATERIALS } from '../drainage/pipeMaterials.js';
 import { columnIn } from '../io/tables.js';
-import type { UnitSystem } from '../units/quantity.js';
+import { US, type UnitSystem } from '../units/quantity.js';
 import {
   buildHtmlPage,
   cautionList,
@@ -114,11 +114,12 @@ export const SYSTEM_CAUTIONS = [
  */
 export function buildSystemReportHtml(p: SystemReportInput): string {
   const s = p.settings;
-  const len = (m: number) => (p.units === 'us' ? `${fixed(m / 0.3048, 2)} ft` : `${fixed(m, 2)} m`);
+  const len = (m: number) =>
+    p.units === 'us' ? `${fixed(m / US.mPerFt, 2)} ft` : `${fixed(m, 2)} m`;
   const rate = (mmD: number) =>
-    p.units === 'us' ? `${fixed(mmD / 25.4, 3)} in/d` : `${fixed(mmD, 2)} mm/d`;
+    p.units === 'us' ? `${fixed(mmD / US.mmPerIn, 3)} in/d` : `${fixed(mmD, 2)} mm/d`;
   const speed = (ms: number) =>
-    p.units === 'us' ? `${fixed(ms / 0.3048, 2)} ft/s` : `${fixed(ms, 3)} m/s`;
+    p.units === 'us' ? `${fixed(ms / US.mPerFt, 2)} ft/s` : `${fixed(ms, 3)} m/s`;
   const settingRows: Array<[string, string]> = [
     ['System file', p.systemFile],
     ['Profile', p.profileFile ?? 'none: fixed grades only, no depth of cut'],

@@ -14,6 +14,7 @@
  */
 import { z } from 'zod';
 import { DECIMAL_NUMBER } from '../units/decimal.js';
+import { US } from '../units/quantity.js';
 import { zQuantity } from '../units/zodQuantity.js';
 
 const PER_M = new RegExp(
@@ -21,7 +22,6 @@ const PER_M = new RegExp(
   'i',
 );
 const OF_LATERAL = new RegExp(String.raw`^\s*(${DECIMAL_NUMBER})\s*(%?)\s*of\s+lateral\s*$`, 'i');
-const M_PER_FT = 0.3048;
 
 /** A list of lengths, or an evenly spaced range { from, to, step } (both ends included). */
 function lengthValues(what: string, bounds: { min: number; max: number }) {
@@ -147,7 +147,7 @@ const perMetre = (description: string) =>
     .transform((v, ctx) => {
       if (typeof v === 'number') return v;
       const m = PER_M.exec(v);
-      const x = m ? Number(m[1]) / (/^f/i.test(m[2]) ? M_PER_FT : 1) : NaN;
+      const x = m ? Number(m[1]) / (/^f/i.test(m[2]) ? US.mPerFt : 1) : NaN;
       if (!(x >= 0)) {
         ctx.addIssue({
           code: 'custom',

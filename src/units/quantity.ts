@@ -159,4 +159,6 @@ export const US = {
   /** kg/ha -> lb/ac: 1 kg/ha = 0.892179 lb/ac (0.45359237 kg per lb, 0.40468564224 ha per ac). */
   lbAcPerKgHa: 0.40468564224 / 0.45359237,
   cfsPerM3s: 1 / 0.028316846592,
+  /** Litres in a US liquid gallon. */
+  lPerGal: 3.785411784,
 } as const;

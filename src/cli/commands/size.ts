@@ -58,7 +58,7 @@ const STEEP_GRADE = 0.05;
  * 5, silty clay loam 6, clay loam 7 ft/s; from memory). The limit is set by the soil around
  * the pipe, for corrugated and smooth pipe alike.
  */
-const SCOUR_VELOCITY_MS = 3.5 * 0.3048;
+const SCOUR_VELOCITY_MS = 3.5 * US.mPerFt;
 
 /**
  * --slope: a grade with its unit. A bare number is refused, since "0.2" is read as m/m by
