@@ -6,6 +6,9 @@
  *
  * Errors that tell the user to set `force` or choose another `out` are SettingErrors naming
  * those settings, which the CLI calls by its flags (--force, --out).
+ *
+ * Longer than most files: the signal clean-up, the lock and the replace rules all work on the
+ * one list of temporaries in flight, so they stay together.
  */
 import { randomBytes } from 'node:crypto';
 import {
