@@ -25,7 +25,7 @@ export const FIT_CAUTIONS = [
     'years; they are not measured soil properties and need not transfer to another field, other ' +
     'weather or other management.',
   'A fit is judged on its validation period, not its calibration period. Without a validation ' +
-    'period (--validate) the statistics show only how closely the model can be made to follow ' +
+    'period (tileflux fit --validate) the statistics show only how closely the model can be made to follow ' +
     'the calibration data.',
   'The behavioural range is the spread of the evaluated parameter sets within the stated ' +
     'tolerance of the best loss; it is not a confidence interval.',

@@ -62,9 +62,9 @@ export function alternativesText(data: ReportData): {
 /** Why the water-table chart shows the year it shows. */
 export function chartYearText(data: ReportData): string {
   return data.chartYearReason === 'given'
-    ? `The daily charts show ${data.chartYear}, the year asked for with --year.`
+    ? `The daily charts show ${data.chartYear}, the year asked for (tileflux run --year).`
     : `The daily charts show ${data.chartYear}, the wettest year of the record (the most ` +
-        `precipitation); choose another with --year.`;
+        `precipitation); choose another with tileflux run --year.`;
 }
 /** A step date in words: "25 Oct" for a yearly step, "25 Oct 2015" for a dated one. */
 export function stepDate(from: string): string {

@@ -269,7 +269,7 @@ export function buildSweepReportHtml(study: ClimateStudy, charts: StudyCharts): 
           (several
             ? '(crops, nitrate parameters) is held fixed, and the weather is one of the climates given.'
             : '(weather, crops, nitrate parameters) is held fixed.'),
-        'A generated or changed climate (weather make --like, --precip-change, --temp-change) is ' +
+        'A generated or changed climate (tileflux weather make --like, --precip-change or --temp-change) is ' +
           'a scenario chosen by the user with the statistics of a record, not a forecast or a ' +
           'projection for any place.',
       ]),

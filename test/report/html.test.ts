@@ -199,7 +199,7 @@ describe('report content', () => {
       `The daily charts show ${data.chartYear}, the wettest year of the record`,
     );
     const given = buildReportHtml({ ...data, chartYearReason: 'given' }, specs, stub);
-    expect(given).toContain(`show ${data.chartYear}, the year asked for with --year`);
+    expect(given).toContain(`show ${data.chartYear}, the year asked for (tileflux run --year)`);
     const question = /<section id="question">[\s\S]*?<\/section>/.exec(html)![0];
     expect(question).toMatch(/controlled: outlet [^<]* instead of /);
     expect(question).not.toMatch(/1 years|1 scenarios/);
