@@ -561,4 +561,36 @@ describe('edge cases the mutation run found unchecked', () => {
     expect(Array.from(r.lateralSeepageMm)).toEqual([0, 0, 0]);
     expect(Array.from(r.seepageMm)).toEqual([0, 0, 0]);
   });
+
+  it('drains faster than the soil admits: ponded infiltration stays at K, the head at Hooghoudt', () => {
+    // Close drains in a soil that conducts 2 m/d below the drains but only 0.05 m/d above them
+    // could carry some 500 mm/d at full head, ten times what the topsoil admits. Under a
+    // permanent pond the infiltration rate is the saturated conductivity, 50 mm/d (long-time
+    // limit of Green & Ampt 1911, unit gradient), so the table falls below the surface and
+    // settles where Hooghoudt's steady flux equals that recharge: R = 0.05 m/d in
+    // R = (8 K2 d h + 4 K1 h^2) / L^2 (Hooghoudt 1940), solved for h here.
+    const n = 30;
+    const K1 = 0.05;
+    const K2 = 2;
+    const L = 5;
+    const p = params({
+      kAboveMPerDay: K1,
+      kBelowMPerDay: K2,
+      spacingM: L,
+      initialWaterTableDepthM: 0,
+    });
+    const r = simulate(constantForcing(n, 200, 0), flatCalendar(n, 0), free(n), p);
+    const d = vdmwDepth(L, p.barrierDepthM - p.drainDepthM, p.drainRadiusM);
+    const a = (4 * K1) / (L * L);
+    const b = (8 * K2 * d) / (L * L);
+    const h = (-b + Math.sqrt(b * b + 4 * a * K1)) / (2 * a);
+    for (let i = 0; i < n; i++) {
+      // Every sub-step takes its full share K dt (sums of equal parts: ~1e-13 mm); 1e-9 allowed.
+      expect(Math.abs(r.infiltrationMm[i] - 50)).toBeLessThan(1e-9);
+      expect(r.pondedMm[i]).toBe(p.surfaceStorageMm);
+    }
+    // Settled within 30 days (time constant mu / (dq/dh) well under a day): achieved ~1e-13.
+    expect(Math.abs((p.drainDepthM - r.waterTableDepthM[n - 1]) / h - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(r.drainflowMm[n - 1] - 50)).toBeLessThan(1e-9);
+  });
 });
