@@ -99,7 +99,7 @@ export function groupedBars(
   names: string[],
   xField: string,
   xTitle: string,
-  xSort: Array<string | number>,
+  xSort: Array<string | number> | 'ascending',
   panels: Array<[field: string, title: string]>,
   labelAngle: number,
 ) {

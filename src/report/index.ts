@@ -48,20 +48,29 @@ export async function writeCharts(
   mkdirSync(out, { recursive: true });
   const written: string[] = [];
   const pngs: Array<Promise<void>> = [];
-  for (const [name, spec] of Object.entries(specs)) {
-    if (!SAFE_NAME.test(name)) throw new Error(`chart name "${name}" is not a safe file stem`);
-    const base = join(out, name);
-    writeFileSync(`${base}.vl.json`, JSON.stringify(spec, null, 2) + '\n');
-    const svg = await renderSvg(spec);
-    writeFileSync(`${base}.svg`, svg);
-    pngs.push(
-      svgToPngAsync(svg, opts.pngScale ?? PNG_SCALE).then((png) =>
-        writeFileSync(`${base}.png`, png),
-      ),
-    );
-    written.push(`${base}.vl.json`, `${base}.svg`, `${base}.png`);
+  // Every PNG has landed or failed before this returns or throws: none may still be on its way
+  // when the caller removes a half-written folder.
+  const settled = () => Promise.allSettled(pngs);
+  try {
+    for (const [name, spec] of Object.entries(specs)) {
+      if (!SAFE_NAME.test(name)) throw new Error(`chart name "${name}" is not a safe file stem`);
+      const base = join(out, name);
+      writeFileSync(`${base}.vl.json`, JSON.stringify(spec, null, 2) + '\n');
+      const svg = await renderSvg(spec);
+      writeFileSync(`${base}.svg`, svg);
+      pngs.push(
+        svgToPngAsync(svg, opts.pngScale ?? PNG_SCALE).then((png) =>
+          writeFileSync(`${base}.png`, png),
+        ),
+      );
+      written.push(`${base}.vl.json`, `${base}.svg`, `${base}.png`);
+    }
+  } catch (err) {
+    await settled();
+    throw err;
   }
-  await Promise.all(pngs);
+  const failed = (await settled()).find((r) => r.status === 'rejected');
+  if (failed) throw failed.reason;
   return written;
 }
 

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { compareScenarios } from '../../src/scenarios/compare.js';
-import { buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
+import { annualChart, buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
 import { writeCharts } from '../../src/report/index.js';
 import {
   DEJAVU_DIR,
@@ -125,6 +125,27 @@ describe('user strings in rendered charts', () => {
   });
 });
 
+describe('long records', () => {
+  it('the annual chart of a 1000-year record renders (no list of years for Vega to compile)', async () => {
+    // A generated climate of 1000 years is a real use (tileflux weather make --years 1000).
+    // Vega-Lite turns an explicit sort list into one nested condition per value, which overflows
+    // Vega's expression parser ("Maximum call stack size exceeded") at this length.
+    const names = data.scenarios.map((s) => s.name);
+    const annual = names.flatMap((scenario) =>
+      Array.from({ length: 1000 }, (_, k) => ({
+        ...data.annual[0]!,
+        scenario,
+        year: 2001 + k,
+        drainflow_mm: 200 + (k % 37),
+        no3n_load_kg_ha: 20 + (k % 11),
+      })),
+    );
+    const svg = await renderSvg(annualChart({ ...data, annual }));
+    expect(svg).toContain('Annual drain flow and nitrate-N load');
+    expect(svg).toContain('2001 to 3000');
+  });
+});
+
 describe('writeCharts', () => {
   const dir = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -137,6 +158,19 @@ describe('writeCharts', () => {
       expect(JSON.parse(readFileSync(`${base}.vl.json`, 'utf8'))).toEqual(specs[name]);
       expect(readFileSync(`${base}.svg`, 'utf8')).toBe(await svgOf(name));
       expect(statSync(`${base}.png`).size).toBeGreaterThan(5000);
+    }
+  });
+
+  it('a failing chart leaves no PNG on its way: the earlier ones have landed when it throws', async () => {
+    // The run removes its half-written folder as soon as writeCharts throws; a PNG still being
+    // rasterised would then write into a deleted folder (ENOENT thrown into the process).
+    const failing = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
+    try {
+      const broken = { ...specs.tradeoff, transform: [{ calculate: 'datum.x +', as: 'y' }] };
+      await expect(writeCharts(failing, { tradeoff: specs.tradeoff, broken })).rejects.toThrow();
+      expect(statSync(join(failing, 'charts', 'tradeoff.png')).size).toBeGreaterThan(5000);
+    } finally {
+      rmSync(failing, { recursive: true, force: true });
     }
   });
 

@@ -35,7 +35,9 @@ export function annualChart(data: ReportData): TopLevelSpec {
       names,
       'year',
       'Year',
-      years,
+      // Years are numbers: ascending order needs no list (Vega-Lite turns a list into one
+      // nested condition per value, which overflows the expression parser on long records).
+      'ascending',
       [
         ['flow', `Drain flow (${du.water.label}/yr)`],
         ['load', `Nitrate-N load (${du.load.label}/yr)`],
