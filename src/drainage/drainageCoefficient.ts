@@ -19,7 +19,7 @@
  * soil's permeability), and the range is returned beside it.
  */
 import { TilefluxError } from '../errors.js';
-import { US } from '../units/quantity.js';
+import { US } from '../units/usCustomary.js';
 
 export const COEFFICIENT_SOILS = ['mineral', 'organic'] as const;
 export const COEFFICIENT_CROPS = ['field', 'truck'] as const;

@@ -9,7 +9,7 @@
  * drain-design form solved for the diameter is D = 16 (q n / S^0.5)^(3/8) with D in inches and
  * q in ft3/s (the 16 is 12 (4^(5/3) / (1.486 pi))^(3/8) = 16.01, rounded).
  */
-import { US } from '../units/quantity.js';
+import { US } from '../units/usCustomary.js';
 import { requirePositive } from './checks.js';
 
 /**

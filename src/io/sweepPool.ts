@@ -1,14 +1,18 @@
 /**
- * A sweep spread over worker threads (piscina). The jobs (one per design and soil sample) are
- * cut into ranges and handed to the workers, each of which prepares the field once; the results
- * are put back in job order, so the outcome is the same, byte for byte, for any number of
- * workers and any split.
+ * A sweep spread over worker threads (piscina). The main thread plans the sweep, starts the
+ * workers (they load their modules meanwhile) and prepares the field once; plan and prepared
+ * field are serialized once into shared memory, which every task carries for free, and each
+ * worker reads them on its first task. The jobs (one per design and soil sample) are cut into
+ * ranges, largest first, and the results are put back in job order, so the outcome is the same,
+ * byte for byte, for any number of workers and any split. A study under several climates runs
+ * all its sweeps on one pool.
  */
 import { availableParallelism } from 'node:os';
+import { serialize } from 'node:v8';
 import { Piscina } from 'piscina';
 import type { WeatherSeries } from '../climate/weatherSeries.js';
 import type { Field } from '../scenarios/fieldSchema.js';
-import { reportPeriod } from '../scenarios/prepared.js';
+import { preparedDataOf, preparedFieldOf, type PreparedData } from '../scenarios/prepared.js';
 import {
   jobCount,
   planSweep,
@@ -16,11 +20,12 @@ import {
   yearsOf,
   type JobResults,
   type SweepOptions,
+  type SweepPlan,
   type SweepResult,
 } from '../scenarios/sweep.js';
 import {
   checkClimateNames,
-  climateFiguresOf,
+  climateFigures,
   climateSweepOf,
   studyOf,
   type ClimateInput,
@@ -28,11 +33,20 @@ import {
 } from '../scenarios/sweepClimates.js';
 import { unguarded } from './workerErrors.js';
 
-/** What every worker receives once. */
-export interface SweepWorkerData {
-  field: Field;
-  weather: WeatherSeries;
-  options: SweepOptions;
+/** What a worker needs to run any job of a sweep. */
+export interface SweepSetup {
+  plan: SweepPlan;
+  prepared: PreparedData;
+}
+
+/** One range of jobs as a worker receives it. */
+export interface SweepTask {
+  /** Names the sweep, so a worker reads each setup once. */
+  id: number;
+  /** The `SweepSetup`, serialized by `node:v8` into shared memory (cloned to workers for free). */
+  setup: Uint8Array;
+  start: number;
+  end: number;
 }
 
 export interface ParallelOptions extends SweepOptions {
@@ -42,6 +56,88 @@ export interface ParallelOptions extends SweepOptions {
   onProgress?: (done: number, total: number) => void;
   /** Stops the sweep: running and queued ranges are abandoned and the promise rejects. */
   signal?: AbortSignal;
+}
+
+/** Setups serialized by this thread so far (the id of the next one). */
+let setups = 0;
+
+/**
+ * Ranges [start, end) covering `total` jobs, largest first: each takes a share of what is left,
+ * so the workers start on long ranges (few messages) and finish on short ones together (little
+ * waiting at the end). At most 50 jobs a range, for a lively progress bar.
+ */
+export function jobRanges(total: number, workers: number): Array<{ start: number; end: number }> {
+  const ranges: Array<{ start: number; end: number }> = [];
+  const least = Math.max(1, Math.ceil(total / (workers * 100)));
+  for (let start = 0; start < total;) {
+    const size = Math.max(least, Math.min(50, Math.ceil((total - start) / (workers * 4))));
+    const end = Math.min(total, start + size);
+    ranges.push({ start, end });
+    start = end;
+  }
+  return ranges;
+}
+
+/** The sweep's options without the pool's own. */
+function sweepOptionsOf(o: SweepOptions): SweepOptions {
+  return { samples: o.samples, seed: o.seed, from: o.from, to: o.to, warmupYears: o.warmupYears };
+}
+
+/** A pool of `workers` sweep workers; they start loading their modules at once. */
+function sweepPool(workers: number): Piscina {
+  return new Piscina({
+    filename: new URL('./sweepWorker.js', import.meta.url).href,
+    minThreads: workers,
+    maxThreads: workers,
+    idleTimeout: 60_000,
+  });
+}
+
+function workerCount(o: ParallelOptions, total: number): number {
+  return Math.max(1, Math.min(o.workers ?? Math.min(availableParallelism(), 8), total));
+}
+
+/** Aborting `signal` destroys the pool; the returned function stops listening. */
+function stopOn(pool: Piscina, signal: AbortSignal | undefined): () => void {
+  const stop = () => void pool.destroy();
+  signal?.addEventListener('abort', stop);
+  return () => signal?.removeEventListener('abort', stop);
+}
+
+/** Run one sweep on a started pool; `onJobs` is told of each range done. */
+async function sweepOnPool(
+  pool: Piscina,
+  plan: SweepPlan,
+  prepared: PreparedData,
+  workers: number,
+  onJobs: (jobs: number) => void,
+  signal: AbortSignal | undefined,
+): Promise<JobResults> {
+  const bytes = serialize({ plan, prepared } satisfies SweepSetup);
+  const setup = new Uint8Array(new SharedArrayBuffer(bytes.length));
+  setup.set(bytes);
+  const id = ++setups;
+  const total = jobCount(plan);
+  const ranges = jobRanges(total, workers);
+  if (signal?.aborted) throw new Error('stopped');
+  const parts = await Promise.all(
+    ranges.map((r) =>
+      unguarded<JobResults>(pool.run({ id, setup, ...r } satisfies SweepTask)).then((res) => {
+        onJobs(r.end - r.start);
+        return res;
+      }),
+    ),
+  );
+  const M = parts[0].measures.length;
+  const values = new Float64Array(total * M);
+  parts.forEach((p, k) => values.set(p.values, ranges[k].start * M));
+  return { measures: parts[0].measures, values };
+}
+
+/** The summary of a sweep's job results over the prepared period. */
+function summaryOf(plan: SweepPlan, prepared: PreparedData, jobs: JobResults): SweepResult {
+  const { from, to } = prepared;
+  return summariseSweep(plan, { from, to, years: yearsOf(from, to) }, jobs);
 }
 
 /**
@@ -54,61 +150,36 @@ export async function sweepParallel(
   weather: WeatherSeries,
   o: ParallelOptions = {},
 ): Promise<SweepResult> {
-  const options: SweepOptions = {
-    samples: o.samples,
-    seed: o.seed,
-    from: o.from,
-    to: o.to,
-    warmupYears: o.warmupYears,
-  };
+  const options = sweepOptionsOf(o);
   const plan = planSweep(field, options);
-  const period = reportPeriod(weather.dates, options);
   const total = jobCount(plan);
-  const workers = Math.max(1, Math.min(o.workers ?? Math.min(availableParallelism(), 8), total));
-  // Ranges small enough for an even spread and a lively progress bar, large enough that the
-  // messages cost nothing beside the runs.
-  const size = Math.max(1, Math.min(50, Math.ceil(total / (workers * 12))));
-  const ranges: Array<{ start: number; end: number }> = [];
-  for (let start = 0; start < total; start += size)
-    ranges.push({ start, end: Math.min(total, start + size) });
-  const pool = new Piscina({
-    filename: new URL('./sweepWorker.js', import.meta.url).href,
-    minThreads: workers,
-    maxThreads: workers,
-    idleTimeout: 60_000,
-    workerData: { field, weather, options } satisfies SweepWorkerData,
-  });
-  let done = 0;
-  const stop = () => void pool.destroy();
-  o.signal?.addEventListener('abort', stop);
+  const workers = workerCount(o, total);
+  const pool = sweepPool(workers);
+  const unlisten = stopOn(pool, o.signal);
+  let closed: Promise<void> | undefined;
   try {
-    if (o.signal?.aborted) throw new Error('stopped');
-    const parts = await Promise.all(
-      ranges.map((r) =>
-        unguarded<JobResults>(pool.run(r)).then((res) => {
-          done += r.end - r.start;
-          o.onProgress?.(done, total);
-          return res;
-        }),
-      ),
-    );
-    const M = parts[0].measures.length;
-    const values = new Float64Array(total * M);
-    parts.forEach((p, k) => values.set(p.values, ranges[k].start * M));
-    return summariseSweep(
+    const prepared = preparedDataOf(field, weather, options);
+    let done = 0;
+    const jobs = await sweepOnPool(
+      pool,
       plan,
-      { ...period, years: yearsOf(period.from, period.to) },
-      { measures: parts[0].measures, values },
+      prepared,
+      workers,
+      (n) => o.onProgress?.((done += n), total),
+      o.signal,
     );
+    // The threads end while this one summarises.
+    closed = pool.destroy();
+    return summaryOf(plan, prepared, jobs);
   } finally {
-    o.signal?.removeEventListener('abort', stop);
-    await pool.destroy();
+    unlisten();
+    await (closed ?? pool.destroy());
   }
 }
 
 /**
- * Run a field's sweep under each climate on worker threads, one climate after the other (each
- * on its own pool of `o.workers`); `onProgress` counts the jobs of every climate together.
+ * Run a field's sweep under each climate on worker threads, one climate after the other on one
+ * pool of `o.workers`; `onProgress` counts the jobs of every climate together.
  *
  * @example await sweepClimatesParallel(field.base, [{ name: 'today', weather }], { workers: 2 })
  */
@@ -118,13 +189,31 @@ export async function sweepClimatesParallel(
   o: ParallelOptions = {},
 ): Promise<ClimateStudy> {
   checkClimateNames(climates.map((c) => c.name));
-  const sweeps = [];
-  for (const [k, c] of climates.entries()) {
-    const result = await sweepParallel(field, c.weather, {
-      ...o,
-      onProgress: (done, total) => o.onProgress?.(k * total + done, total * climates.length),
-    });
-    sweeps.push(climateSweepOf(c, result, climateFiguresOf(field, c.weather, o)));
+  const options = sweepOptionsOf(o);
+  const plan = planSweep(field, options);
+  const total = jobCount(plan) * climates.length;
+  const workers = workerCount(o, jobCount(plan));
+  const pool = sweepPool(workers);
+  const unlisten = stopOn(pool, o.signal);
+  try {
+    let done = 0;
+    const sweeps = [];
+    for (const c of climates) {
+      const prepared = preparedDataOf(field, c.weather, options);
+      const jobs = await sweepOnPool(
+        pool,
+        plan,
+        prepared,
+        workers,
+        (n) => o.onProgress?.((done += n), total),
+        o.signal,
+      );
+      const figures = climateFigures(preparedFieldOf(prepared));
+      sweeps.push(climateSweepOf(c, summaryOf(plan, prepared, jobs), figures));
+    }
+    return studyOf(sweeps);
+  } finally {
+    unlisten();
+    await pool.destroy();
   }
-  return studyOf(sweeps);
 }

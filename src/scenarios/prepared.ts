@@ -142,6 +142,13 @@ export interface DesignRun {
 }
 
 /**
+ * The data of a prepared field, without its caches: plain values and typed arrays, so it can be
+ * copied to a worker thread (structured clone) and made a prepared field there again with
+ * `preparedFieldOf`.
+ */
+export type PreparedData = Omit<PreparedField, 'calendarOf' | 'outletOf' | 'poolForcingOf'>;
+
+/**
  * Prepare a field and a weather record for design runs: cut the record to the simulated period
  * (the reported period of `o` plus the warm-up years before it) and compute its forcing once.
  * Site values (latitude, elevation) come from `field`.
@@ -151,6 +158,15 @@ export function prepareField(
   weather: WeatherSeries,
   o: PeriodOptions = {},
 ): PreparedField {
+  return preparedFieldOf(preparedDataOf(field, weather, o));
+}
+
+/** The data of `prepareField(field, weather, o)`, without the caches. */
+export function preparedDataOf(
+  field: Pick<Field, 'site'> & { weather?: { etFactor: number } },
+  weather: WeatherSeries,
+  o: PeriodOptions = {},
+): PreparedData {
   const { from, to, warmupYears } = reportPeriod(weather.dates, o);
   const simFrom = `${Number(from.slice(0, 4)) - warmupYears}${from.slice(4)}`;
   const a0 = indexOf(weather.dates, simFrom);
@@ -170,30 +186,37 @@ export function prepareField(
   // weather.etFactor: a calibration factor on reference ET (README, Assumptions and defaults).
   const etFactor = field.weather?.etFactor ?? 1;
   if (etFactor !== 1) for (let i = 0; i < f.refEtMm.length; i++) f.refEtMm[i] *= etFactor;
-  const days = dayIndexOf(f.dates);
-  const forcing = { ...f, days };
-  const calendars = new Map<string, CropCalendar>();
-  const outlets = new Map<string, Float64Array>();
-  const pools = new Map<CropCalendar, Map<string, PoolForcing>>();
   return {
-    forcing,
+    forcing: { ...f, days: dayIndexOf(f.dates) },
     refEtMethod: method,
     from,
     to,
     warmupYears,
     reportStart: indexOf(f.dates, from),
+  };
+}
+
+/** A prepared field from its data (`preparedDataOf`), with empty caches. */
+export function preparedFieldOf(data: PreparedData): PreparedField {
+  const { forcing } = data;
+  const { dates, days } = forcing;
+  const calendars = new Map<string, CropCalendar>();
+  const outlets = new Map<string, Float64Array>();
+  const pools = new Map<CropCalendar, Map<string, PoolForcing>>();
+  return {
+    ...data,
     calendarOf(rotation, crops, firstYear = DEFAULT_ROTATION_FIRST_YEAR, roots = {}) {
       const key = JSON.stringify([rotation, rotation.map((c) => crops[c]), firstYear, roots]);
       let c = calendars.get(key);
       if (!c) {
-        calendars.set(key, (c = cropCalendar(f.dates, rotation, crops, days, firstYear, roots)));
+        calendars.set(key, (c = cropCalendar(dates, rotation, crops, days, firstYear, roots)));
       }
       return c;
     },
     outletOf(schedule) {
       const key = JSON.stringify(schedule);
       let s = outlets.get(key);
-      if (!s) outlets.set(key, (s = outletSeries(f.dates, schedule, days)));
+      if (!s) outlets.set(key, (s = outletSeries(dates, schedule, days)));
       return s;
     },
     poolForcingOf(calendar, config) {
@@ -203,7 +226,7 @@ export function prepareField(
       const key = JSON.stringify(config);
       let pf = byConfig.get(key);
       if (!pf) {
-        pf = poolForcingOf({ dates: f.dates, tmeanC: f.tmeanC, calendar, days }, config);
+        pf = poolForcingOf({ dates, tmeanC: forcing.tmeanC, calendar, days }, config);
         byConfig.set(key, pf);
       }
       return pf;

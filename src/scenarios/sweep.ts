@@ -6,13 +6,14 @@
  * and ranked by the trade-off frontier of nitrate-N load, wetness and cost.
  *
  * The work is split into jobs, one per design and soil sample (job j = design floor(j / S),
- * sample j mod S); `runSweepJobs` runs any range of them on a prepared field, so worker threads
- * can share a sweep and the result does not depend on how it was split. Measures are taken
- * generically from the annual table (every numeric column but the bookkeeping ones).
+ * sample j mod S); `runSweepJobs` (in `sweepJobs.ts`, re-exported here) runs any range of them
+ * on a prepared field, so worker threads can share a sweep and the result does not depend on how
+ * it was split. Measures are taken generically from the annual table (every numeric column but
+ * the bookkeeping ones).
  *
- * Longer than most files: planning, running and summarising a sweep share the job order and the
- * measure names; the sampling, the frontier, the costs, the climates and the worker pool are in
- * their own modules.
+ * Longer than most files: planning and summarising a sweep share the job order and the measure
+ * names; running the jobs, the sampling, the frontier, the costs, the climates and the worker
+ * pool are in their own modules.
  *
  * @example
  * const result = sweepField(field.base, weather, { samples: 20, seed: 1 });
@@ -25,33 +26,19 @@ import type { WeatherSeries } from '../climate/weatherSeries.js';
 import { designCost, type DesignCost } from './economics.js';
 import { soilSchema, type Field } from './fieldSchema.js';
 import { nonDominated } from './frontier.js';
-import { prepareField, runDesign, type PeriodOptions, type PreparedField } from './prepared.js';
-import { scenarioOf } from './resolve.js';
+import { prepareField, type PeriodOptions } from './prepared.js';
 import { latinHypercube, scaledValue } from './sampling.js';
 import { costsSchema, type CostsSection } from './sweepSchema.js';
-import type { AnnualRow } from './types.js';
 import { roundTo } from '../units/decimal.js';
+import { LOAD_MEASURE, runSweepJobs, type JobResults } from './sweepJobs.js';
 
-/** Annual columns that are bookkeeping or weather, not results of a design. */
-const NOT_MEASURES = new Set([
-  'year',
-  'days',
-  'precip_mm',
-  'snowmelt_mm',
-  'ref_et_mm',
-  'storage_change_mm',
-  'balance_error_mm',
-  'n_balance_error_kg_ha',
-  'spring_window_days',
-  'fall_window_days',
-]);
+export { LOAD_MEASURE, runSweepJobs, sampledField, type JobResults } from './sweepJobs.js';
+
 /**
  * The annual measure the frontier takes as wetness: growing-season days with too little air in
  * the upper root zone (README "Measures").
  */
 export const WETNESS_MEASURE = 'aeration_stress_days';
-/** The nitrate-N load measure of the frontier. */
-export const LOAD_MEASURE = 'no3n_load_kg_ha';
 /** Unit suffixes of measure names, longest first. */
 const UNITS = ['cm_days', 'kg_ha', 'mg_l', 'days', 'mm', 'm'];
 
@@ -203,77 +190,6 @@ export function planSweep(field: Field, o: SweepOptions = {}): SweepPlan {
   return { field, designs, baselineIndex, params, samples, seed, costs, costsGiven };
 }
 
-/** The field with the soil values of sample `s`. */
-export function sampledField(plan: SweepPlan, s: number): Field {
-  if (plan.params.length === 0) return plan.field;
-  const soil: Record<string, unknown> = { ...plan.field.soil };
-  plan.params.forEach((p, d) => (soil[p.soilKey] = plan.samples[s][d]));
-  return { ...plan.field, soil: soil as Field['soil'] };
-}
-
-/** Mean annual value of every measure (flow-weighted concentration over the whole period). */
-function measuresOf(rows: AnnualRow[]): { names: string[]; values: number[] } {
-  const first = rows[0] as unknown as Record<string, unknown>;
-  const names = Object.keys(first).filter(
-    (k) => typeof first[k] === 'number' && !NOT_MEASURES.has(k),
-  );
-  const values = names.map((k) => {
-    let sum = 0;
-    for (const r of rows) sum += (r as unknown as Record<string, number>)[k];
-    return sum / rows.length;
-  });
-  const flow = values[names.indexOf('drainflow_mm')];
-  const fw = names.indexOf('fwmc_mg_l');
-  if (fw >= 0) values[fw] = flow > 0 ? (100 * values[names.indexOf(LOAD_MEASURE)]) / flow : NaN;
-  return { names, values };
-}
-
-/** Results of jobs [start, end): for each job, one value per measure, in `measures` order. */
-export interface JobResults {
-  measures: string[];
-  values: Float64Array;
-}
-
-/**
- * Run jobs [start, end) of a sweep on a prepared field (see the module comment for the job
- * order). Pure and deterministic: the same jobs give the same numbers in any thread.
- */
-export function runSweepJobs(
-  prepared: PreparedField,
-  plan: SweepPlan,
-  start: number,
-  end: number,
-  onJob?: () => void,
-): JobResults {
-  const S = plan.samples.length;
-  let measures: string[] = [];
-  let values = new Float64Array(0);
-  const fields = new Map<number, Field>();
-  // Each design's daily columns are written over the previous design's: only its measures stay.
-  let last: ReturnType<typeof runDesign> | undefined;
-  for (let j = start; j < end; j++) {
-    const d = plan.designs[Math.floor(j / S)];
-    const s = j % S;
-    let sf = fields.get(s);
-    if (!sf) fields.set(s, (sf = sampledField(plan, s)));
-    const f: Field = {
-      ...sf,
-      drains: { ...sf.drains, depth: d.depthM, spacing: d.spacingM },
-      outlet: d.outlet,
-    };
-    last = runDesign(prepared, scenarioOf(d.name, '', f), last);
-    const { annual } = last;
-    const m = measuresOf(annual);
-    if (j === start) {
-      measures = m.names;
-      values = new Float64Array((end - start) * measures.length);
-    }
-    values.set(m.values, (j - start) * measures.length);
-    onJob?.();
-  }
-  return { measures, values };
-}
-
 /** A row of designs.csv (column names end with their unit). */
 export type DesignRow = Record<string, string | number | boolean>;
 
@@ -346,6 +262,9 @@ export function summariseSweep(
     nd.forEach((v, d) => (share[d] += v ? 1 / S : 0));
   }
 
+  // Column names once per measure, not once per design.
+  const spreadColumns = measures.map((n) => [measureColumn(n, 'p10'), measureColumn(n, 'p90')]);
+  const changeColumns = measures.map((n) => measureColumn(n, 'change'));
   const designs: DesignRow[] = plan.designs.map((x, d) => {
     const row: DesignRow = {
       design: x.name,
@@ -360,12 +279,14 @@ export function summariseSweep(
     };
     measures.forEach((name, m) => {
       const own = Array.from({ length: S }, (_, s) => at(d, s, m)).sort((p, q) => p - q);
-      row[name] = percentile(own, 0.5);
-      row[measureColumn(name, 'p10')] = percentile(own, 0.1);
-      row[measureColumn(name, 'p90')] = percentile(own, 0.9);
+      const ok = own.filter((v) => !Number.isNaN(v));
+      const [p10, p90] = spreadColumns[m];
+      row[name] = ok.length ? quantileSorted(ok, 0.5) : NaN;
+      row[p10] = ok.length ? quantileSorted(ok, 0.1) : NaN;
+      row[p90] = ok.length ? quantileSorted(ok, 0.9) : NaN;
     });
-    measures.forEach((name, m) => {
-      row[measureColumn(name, 'change')] = median(
+    measures.forEach((_, m) => {
+      row[changeColumns[m]] = median(
         Array.from({ length: S }, (_, s) => at(d, s, m) - at(b, s, m)),
       );
     });

@@ -4,7 +4,7 @@
  * with the exact definitions of the foot (0.3048 m) and the inch (25.4 mm).
  */
 import { fixedText } from './decimal.js';
-import { US, type UnitSystem } from './quantity.js';
+import { US, type UnitSystem } from './usCustomary.js';
 
 /** How a unit system writes quantities in prose. */
 export interface Prose {

@@ -148,17 +148,4 @@ export function parseQuantity(value: string | number, kind: QuantityKind, name: 
   return r.value;
 }
 
-/** Unit systems for printed and written figures (`--units`). */
-export type UnitSystem = 'si' | 'us';
-
-/** Conversion factors from core units to US customary units (exact definitions). */
-export const US = {
-  mmPerIn: 25.4,
-  mPerFt: 0.3048,
-  haPerAc: 0.40468564224,
-  /** kg/ha -> lb/ac: 1 kg/ha = 0.892179 lb/ac (0.45359237 kg per lb, 0.40468564224 ha per ac). */
-  lbAcPerKgHa: 0.40468564224 / 0.45359237,
-  cfsPerM3s: 1 / 0.028316846592,
-  /** Litres in a US liquid gallon. */
-  lPerGal: 3.785411784,
-} as const;
+export { US, type UnitSystem } from './usCustomary.js';
