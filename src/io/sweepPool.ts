@@ -64,11 +64,11 @@ let setups = 0;
 /**
  * Ranges [start, end) covering `total` jobs, largest first: each takes a share of what is left,
  * so the workers start on long ranges (few messages) and finish on short ones together (little
- * waiting at the end). At most 50 jobs a range, for a lively progress bar.
+ * waiting at the end). From 50 jobs a range (for a lively progress bar) down to 5.
  */
 export function jobRanges(total: number, workers: number): Array<{ start: number; end: number }> {
   const ranges: Array<{ start: number; end: number }> = [];
-  const least = Math.max(1, Math.ceil(total / (workers * 100)));
+  const least = Math.min(5, Math.ceil(total / (workers * 100)));
   for (let start = 0; start < total;) {
     const size = Math.max(least, Math.min(50, Math.ceil((total - start) / (workers * 4))));
     const end = Math.min(total, start + size);
