@@ -141,6 +141,51 @@ function summaryOf(plan: SweepPlan, prepared: PreparedData, jobs: JobResults): S
 }
 
 /**
+ * Plan a field's sweep, start a pool and run the sweep over each weather record in turn, with
+ * `each` of each record's prepared data and job results (called for one record while the
+ * workers run the next). `onProgress` counts the jobs of every record together.
+ */
+async function sweepsOnPool<T>(
+  field: Field,
+  records: readonly WeatherSeries[],
+  o: ParallelOptions,
+  each: (plan: SweepPlan, prepared: PreparedData, jobs: JobResults) => T,
+): Promise<T[]> {
+  const options = sweepOptionsOf(o);
+  const plan = planSweep(field, options);
+  const total = jobCount(plan) * records.length;
+  const workers = workerCount(o, jobCount(plan));
+  const pool = sweepPool(workers);
+  const unlisten = stopOn(pool, o.signal);
+  let closed: Promise<void> | undefined;
+  try {
+    let done = 0;
+    const start = (weather: WeatherSeries) => {
+      const prepared = preparedDataOf(field, weather, options);
+      const onJobs = (n: number) => o.onProgress?.((done += n), total);
+      const jobs = sweepOnPool(pool, plan, prepared, workers, onJobs, o.signal);
+      // Awaited below; this only keeps a failure from being unhandled should `each` throw first.
+      jobs.catch(() => {});
+      return { prepared, jobs };
+    };
+    const out: T[] = [];
+    let next = start(records[0]);
+    for (let k = 0; k < records.length; k++) {
+      const { prepared, jobs } = next;
+      const results = await jobs;
+      if (k + 1 < records.length) next = start(records[k + 1]);
+      // After the last record the threads end while this one summarises.
+      else closed = pool.destroy();
+      out.push(each(plan, prepared, results));
+    }
+    return out;
+  } finally {
+    unlisten();
+    await (closed ?? pool.destroy());
+  }
+}
+
+/**
  * Run a field's sweep on worker threads.
  *
  * @example const result = await sweepParallel(field.base, weather, { samples: 40, workers: 2 });
@@ -150,31 +195,8 @@ export async function sweepParallel(
   weather: WeatherSeries,
   o: ParallelOptions = {},
 ): Promise<SweepResult> {
-  const options = sweepOptionsOf(o);
-  const plan = planSweep(field, options);
-  const total = jobCount(plan);
-  const workers = workerCount(o, total);
-  const pool = sweepPool(workers);
-  const unlisten = stopOn(pool, o.signal);
-  let closed: Promise<void> | undefined;
-  try {
-    const prepared = preparedDataOf(field, weather, options);
-    let done = 0;
-    const jobs = await sweepOnPool(
-      pool,
-      plan,
-      prepared,
-      workers,
-      (n) => o.onProgress?.((done += n), total),
-      o.signal,
-    );
-    // The threads end while this one summarises.
-    closed = pool.destroy();
-    return summaryOf(plan, prepared, jobs);
-  } finally {
-    unlisten();
-    await (closed ?? pool.destroy());
-  }
+  const [result] = await sweepsOnPool(field, [weather], o, summaryOf);
+  return result;
 }
 
 /**
@@ -189,31 +211,14 @@ export async function sweepClimatesParallel(
   o: ParallelOptions = {},
 ): Promise<ClimateStudy> {
   checkClimateNames(climates.map((c) => c.name));
-  const options = sweepOptionsOf(o);
-  const plan = planSweep(field, options);
-  const total = jobCount(plan) * climates.length;
-  const workers = workerCount(o, jobCount(plan));
-  const pool = sweepPool(workers);
-  const unlisten = stopOn(pool, o.signal);
-  try {
-    let done = 0;
-    const sweeps = [];
-    for (const c of climates) {
-      const prepared = preparedDataOf(field, c.weather, options);
-      const jobs = await sweepOnPool(
-        pool,
-        plan,
-        prepared,
-        workers,
-        (n) => o.onProgress?.((done += n), total),
-        o.signal,
-      );
-      const figures = climateFigures(preparedFieldOf(prepared));
-      sweeps.push(climateSweepOf(c, summaryOf(plan, prepared, jobs), figures));
-    }
-    return studyOf(sweeps);
-  } finally {
-    unlisten();
-    await pool.destroy();
-  }
+  const sweeps = await sweepsOnPool(
+    field,
+    climates.map((c) => c.weather),
+    o,
+    (plan, prepared, jobs) => ({
+      result: summaryOf(plan, prepared, jobs),
+      figures: climateFigures(preparedFieldOf(prepared)),
+    }),
+  );
+  return studyOf(climates.map((c, k) => climateSweepOf(c, sweeps[k].result, sweeps[k].figures)));
 }
