@@ -1,6 +1,6 @@
 // Sweeps on worker threads (tileflux sweep's engine room), 30 reported years each design:
 // 1,000 designs x 1 soil sample and 100 designs x 40 samples on 2 workers (wall time, including
-// worker start-up and the field prepared in each worker), the 100 x 40 study under two climates
+// worker start-up, the field's preparation and the summary), the 100 x 40 study under two climates
 // (today's record and a wetter, warmer one made from it with the generator's deltas), the
 // parallel efficiency of 2 workers against 1 on the same sweep, and the single-core rate in this
 // thread beside them. Each figure is given as min / median / max of three runs.
