@@ -248,6 +248,14 @@ export {
   runEngine,
   runPreparedScenario,
   runField,
+  planRun,
+  digestOf,
+  capacityLimitedDaysOf,
+  lateralSeepageMmOf,
+  type RunPlan,
+  type ScenarioDigest,
+  type ScenarioResult,
+  type RunResult,
   type RunOptions,
   type ScenarioOutput,
   type RunOutput,
@@ -416,10 +424,13 @@ export {
   annualMean,
   buildSummary,
   writeRunFiles,
+  writeAnnualAndSummary,
+  dailyPoolColumns,
+  scenarioDailyCsvChunks,
   type RunMeta,
 } from './io/runFolder.js';
 // Writing a whole run folder
-export { writeRunFolder } from './report/writeRun.js';
+export { writeRunFolder, runToFolder, type RunFolderResult } from './report/writeRun.js';
 // Sweeps on worker threads, their charts and report
 export { sweepClimatesParallel, sweepParallel, type ParallelOptions } from './io/sweepPool.js';
 export {

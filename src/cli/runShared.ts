@@ -17,14 +17,14 @@ import type { ComparisonRow } from '../scenarios/compare.js';
 import { capacityText, rootText, seepageText } from '../scenarios/assumptions.js';
 import { counted } from '../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../io/weather.js';
-import { runField, type RunOutput } from '../scenarios/run.js';
+import { capacityLimitedDaysOf, planRun, type RunPlan, type RunResult } from '../scenarios/run.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { warn, CAUTION, parseUnits } from './common.js';
 import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
-import { writeRunFolder, type RunFolderOptions } from '../report/writeRun.js';
+import { runToFolder, type RunFolderOptions } from '../report/writeRun.js';
 import { fixedText } from '../units/decimal.js';
 
 export interface RunCommandOptions extends WeatherReadFlags {
@@ -48,11 +48,19 @@ function sha256(path: string): string {
   return createHash('sha256').update(readFileSync(path)).digest('hex');
 }
 
-/** Validate the options shared by run and demo and run the field. */
+/**
+ * Validate the options shared by run and demo and plan the field's run (`writeRunFolderOf` runs
+ * it into the folder, scenario by scenario); `stop` ends the progress bar.
+ */
 export function runFromFiles(
   fieldPath: string,
   o: RunCommandOptions,
-): { run: RunOutput; meta: RunMeta; explorerHtml: (units: UnitSystem) => string } {
+): {
+  plan: RunPlan;
+  meta: RunMeta;
+  explorerHtml: (units: UnitSystem) => string;
+  stop: () => void;
+} {
   for (const [opt, v] of [
     ['--from', o.from],
     ['--to', o.to],
@@ -75,7 +83,7 @@ export function runFromFiles(
   for (const w of field.warnings) warn(w);
   const weather = readWeatherFile(o.weather, weatherReadOptions(o));
   const bar = progress(field.scenarios.length || 3, 'simulating');
-  const run = runField(field, weather.series, {
+  const plan = planRun(field, weather.series, {
     from: o.from,
     to: o.to,
     warmupYears,
@@ -83,7 +91,7 @@ export function runFromFiles(
     units: parseUnits(o.units),
     onScenario: (_k, _n, name) => bar.tick(name),
   });
-  bar.stop();
+  const { run } = plan;
   const recordDays = weather.series.dates.length;
   if (recordDays < 731) {
     warn(
@@ -99,7 +107,8 @@ export function runFromFiles(
     );
   }
   return {
-    run,
+    plan,
+    stop: () => bar.stop(),
     explorerHtml: (units) =>
       explorerHtmlOf(field, weather.series, o.weather, units, {
         from: o.from,
@@ -162,14 +171,8 @@ export function headline(comparison: readonly ComparisonRow[], units: UnitSystem
  * What the run assumed that decides its answer, always printed: seepage, roots, pipe capacity
  * (with the days it limited flow) and the reference-ET method with its known bias.
  */
-export function assumptionLines(run: RunOutput, units: UnitSystem = 'si'): string[] {
-  const limited = run.scenarios
-    .map((s) => {
-      let days = 0;
-      for (const x of s.engine.capacityLimited) days += x;
-      return `${s.spec.name} ${days}`;
-    })
-    .join(', ');
+export function assumptionLines(run: RunResult, units: UnitSystem = 'si'): string[] {
+  const limited = run.scenarios.map((s) => `${s.spec.name} ${capacityLimitedDaysOf(s)}`).join(', ');
   const et =
     `Reference ET: ${run.refEtMethod}` +
     (run.etFactor !== 1 ? ` x ${run.etFactor} (weather.etFactor)` : '') +
@@ -184,7 +187,7 @@ export function assumptionLines(run: RunOutput, units: UnitSystem = 'si'): strin
 
 /** The human summary printed after a run: the table, what changed, where the files are. */
 export function runReport(
-  run: RunOutput,
+  run: RunResult,
   meta: RunMeta,
   units: UnitSystem,
   out: string,
@@ -219,7 +222,10 @@ export function dailyOption(d: string | undefined): boolean {
 }
 
 /** Parse --year: a calendar year inside the reported period. */
-export function chartYearOf(run: RunOutput, year: string | undefined): number | undefined {
+export function chartYearOf(
+  run: Pick<RunResult, 'from' | 'to'>,
+  year: string | undefined,
+): number | undefined {
   if (year === undefined) return undefined;
   const y = Number(year);
   const first = Number(run.from.slice(0, 4));
@@ -231,22 +237,28 @@ export function chartYearOf(run: RunOutput, year: string | undefined): number | 
 }
 
 /**
- * Write a run's output folder as the command does: --daily and --year read here, the folder by
- * the library's `writeRunFolder`.
+ * Run a planned field into its output folder as the command does: --daily and --year read here,
+ * the scenarios run and written one at a time by the library's `runToFolder`.
  */
-export function writeRunFolderOf(
-  run: RunOutput,
+export async function writeRunFolderOf(
+  plan: RunPlan,
   meta: RunMeta,
   out: string,
   units: UnitSystem,
   o: Omit<RunFolderOptions, 'chartYear' | 'daily'> & { year?: string; daily?: string },
+  stop: () => void = () => {},
 ) {
-  return writeRunFolder(run, meta, out, units, {
+  const options = {
     force: o.force,
     charts: o.charts,
     report: o.report,
-    chartYear: chartYearOf(run, o.year),
+    chartYear: chartYearOf(plan.run, o.year),
     daily: dailyOption(o.daily),
     explorerHtml: o.explorerHtml,
-  });
+  };
+  try {
+    return await runToFolder(plan, meta, out, units, options);
+  } finally {
+    stop();
+  }
 }

@@ -9,7 +9,15 @@ import { flowWeightedMeanMgL } from '../nitrate/annual.js';
 import { isPartialYear, withPartialYear } from '../scenarios/annual.js';
 import type { RatingFit } from '../nitrate/types.js';
 import type { ComparisonRow } from '../scenarios/compare.js';
-import type { RunOutput, ScenarioOutput } from '../scenarios/run.js';
+import type { EngineForcing } from '../engine/types.js';
+import {
+  capacityLimitedDaysOf,
+  lateralSeepageMmOf,
+  type RunOutput,
+  type RunResult,
+  type ScenarioOutput,
+} from '../scenarios/run.js';
+import type { ScenarioSpec } from '../scenarios/resolve.js';
 import type { AnnualRow } from '../scenarios/types.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
@@ -34,11 +42,16 @@ export interface RunMeta {
 }
 
 /** Daily columns of one scenario, SI, in the column order of daily.csv. */
-export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
-  const f = run.forcing;
+export function dailyColumns(run: Pick<RunOutput, 'forcing'>, s: ScenarioOutput): Column[] {
+  const { base, pool } = scenarioColumns(run.forcing, s);
+  return [...base, ...pool];
+}
+
+/** A scenario's daily columns: those every scenario has, and the pool model's (or none). */
+function scenarioColumns(f: EngineForcing, s: ScenarioOutput): { base: Column[]; pool: Column[] } {
   const e = s.engine;
   const n = s.nitrate;
-  const cols: Column[] = [
+  const base: Column[] = [
     { name: 'scenario', values: new Array<string>(f.dates.length).fill(s.spec.name) },
     { name: 'date', values: f.dates },
     { name: 'precip_mm', values: f.precipMm },
@@ -64,16 +77,16 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
     { name: 'runoff_n_kg_ha', values: n.runoffLoadKgHa },
     { name: 'seepage_n_kg_ha', values: n.seepageLoadKgHa },
   ];
-  if (n.pool) {
-    cols.push(
-      { name: 'no3n_pool_kg_ha', values: n.pool.poolKgHa },
-      { name: 'fertilizer_n_kg_ha', values: n.pool.fertilizerKgHa },
-      { name: 'mineralization_n_kg_ha', values: n.pool.mineralizationKgHa },
-      { name: 'uptake_n_kg_ha', values: n.pool.uptakeKgHa },
-      { name: 'denitrification_n_kg_ha', values: n.pool.denitrificationKgHa },
-    );
-  }
-  return cols;
+  const pool: Column[] = n.pool
+    ? [
+        { name: 'no3n_pool_kg_ha', values: n.pool.poolKgHa },
+        { name: 'fertilizer_n_kg_ha', values: n.pool.fertilizerKgHa },
+        { name: 'mineralization_n_kg_ha', values: n.pool.mineralizationKgHa },
+        { name: 'uptake_n_kg_ha', values: n.pool.uptakeKgHa },
+        { name: 'denitrification_n_kg_ha', values: n.pool.denitrificationKgHa },
+      ]
+    : [];
+  return { base, pool };
 }
 
 /**
@@ -83,19 +96,32 @@ export function dailyColumns(run: RunOutput, s: ScenarioOutput): Column[] {
  * without ever being one string (memory does not grow with scenarios x days).
  */
 export function* dailyCsvChunks(run: RunOutput, units: UnitSystem): Generator<string> {
-  const per = run.scenarios.map((s) => dailyColumns(run, s));
-  if (per.length === 0) return;
-  const names = per[0]
-    .map((c) => c.name)
-    .filter((name) => per.every((cols) => cols.some((c) => c.name === name)));
-  for (let k = 0; k < per.length; k++) {
-    const cols = per[k];
-    yield* columnsToCsvChunks(
-      names.map((n) => cols.find((c) => c.name === n)!),
-      units,
-      k === 0,
-    );
+  const pool = dailyPoolColumns(run.scenarios.map((s) => s.spec));
+  for (let k = 0; k < run.scenarios.length; k++) {
+    yield* scenarioDailyCsvChunks(run.forcing, run.scenarios[k], units, { header: k === 0, pool });
   }
+}
+
+/** Whether daily.csv has the pool model's columns: only when every scenario runs that model. */
+export function dailyPoolColumns(specs: ReadonlyArray<Pick<ScenarioSpec, 'nitrate'>>): boolean {
+  return specs.length > 0 && specs.every((s) => s.nitrate.model === 'pool');
+}
+
+/**
+ * One scenario's rows of daily.csv (with the header line for the first scenario), in pieces;
+ * `pool` says whether the file has the pool model's columns (`dailyPoolColumns`).
+ */
+export function* scenarioDailyCsvChunks(
+  forcing: EngineForcing,
+  s: ScenarioOutput,
+  units: UnitSystem,
+  o: { header: boolean; pool: boolean },
+): Generator<string> {
+  const { base, pool } = scenarioColumns(forcing, s);
+  if (o.pool && pool.length === 0) {
+    throw new Error(`scenario "${s.spec.name}" runs the pool model without its pool columns`);
+  }
+  yield* columnsToCsvChunks(o.pool ? [...base, ...pool] : base, units, o.header);
 }
 
 /** daily.csv as one string (small runs and tests; files are written by `writeDailyCsv`). */
@@ -140,7 +166,7 @@ export function annualMean(rows: AnnualRow[]): Record<string, number> {
 
 /** The summary document: inputs, period, resolved parameters and annual means per scenario. */
 export function buildSummary(
-  run: RunOutput,
+  run: RunResult,
   meta: RunMeta,
   units: UnitSystem,
   comparison: readonly ComparisonRow[],
@@ -189,8 +215,7 @@ export function buildSummary(
     scenarios: run.scenarios.map((s) => {
       const mean = annualMean(s.annual);
       // The part of the seepage that left laterally to the field edge.
-      mean.lateral_seepage_mm =
-        s.engine.lateralSeepageMm.reduce((a, x) => a + x, 0) / Math.max(1, s.annual.length);
+      mean.lateral_seepage_mm = lateralSeepageMmOf(s) / Math.max(1, s.annual.length);
       // Percent changes against the baseline, as in comparison.csv.
       const row = comparison.find((r) => r.scenario === s.spec.name);
       const change = Object.fromEntries(
@@ -216,7 +241,7 @@ export function buildSummary(
         annual_mean: recordIn(mean, units),
         change_vs_baseline: change,
         no3n_rating_out_of_range_days: s.nitrate.outOfRangeDays,
-        capacity_limited_days: s.engine.capacityLimited.reduce((a, x) => a + x, 0),
+        capacity_limited_days: capacityLimitedDaysOf(s),
         max_annual_balance_error_mm: Math.max(
           0,
           ...s.annual.map((r) => Math.abs(r.balance_error_mm)),
@@ -243,6 +268,16 @@ export async function writeRunFiles(
   daily = true,
 ): Promise<void> {
   if (daily) await writeDailyCsv(join(dir, 'daily.csv'), run, units);
+  writeAnnualAndSummary(dir, run, summary, units);
+}
+
+/** Write annual.csv and summary.json into `dir` (daily.csv is written on its own). */
+export function writeAnnualAndSummary(
+  dir: string,
+  run: RunResult,
+  summary: unknown,
+  units: UnitSystem,
+): void {
   // A year the reported period covers only in part is marked, so its sums are not read as
   // annual rates.
   const annual = run.scenarios.flatMap((s) => s.annual.map(withPartialYear)) as unknown as Array<

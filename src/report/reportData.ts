@@ -7,7 +7,7 @@ import type { EngineForcing } from '../engine/types.js';
 import { capacityText, rootText, seepageText } from '../scenarios/assumptions.js';
 import { wetnessSchema } from '../scenarios/fieldSchema.js';
 import type { ComparisonRow } from '../scenarios/compare.js';
-import type { RunOutput } from '../scenarios/run.js';
+import type { RunResult } from '../scenarios/run.js';
 import { comparisonOf } from '../scenarios/runComparison.js';
 import { windowWaterTable } from '../scenarios/windows.js';
 import type { UnitSystem } from '../units/quantity.js';
@@ -15,7 +15,7 @@ import { VERSION } from '../version.js';
 import type { ReportData } from './types.js';
 
 /** The methods behind every number in a run, with their published sources. */
-export function methodsOf(run: RunOutput, units: UnitSystem = 'si'): ReportData['methods'] {
+export function methodsOf(run: RunResult, units: UnitSystem = 'si'): ReportData['methods'] {
   const models = [...new Set(run.scenarios.map((s) => s.spec.nitrate.model))];
   const ratings = run.scenarios.filter((s) => s.spec.nitrate.model === 'rating');
   const ratingNote = ratings.map((s) => {
@@ -95,7 +95,7 @@ export function methodsOf(run: RunOutput, units: UnitSystem = 'si'): ReportData[
 }
 
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */
-export function wettestYear(run: RunOutput): number {
+export function wettestYear(run: RunResult): number {
   const annual = run.scenarios[0]?.annual ?? [];
   let best = annual[0];
   for (const r of annual) if (r.precip_mm > best.precip_mm) best = r;
@@ -137,7 +137,7 @@ export function climateOf(f: EngineForcing): {
  * @example reportDataOf(run, { fieldName: 'North field', weatherFile: 'w.csv', units: 'si' })
  */
 export function reportDataOf(
-  run: RunOutput,
+  run: RunResult,
   o: {
     fieldName: string;
     weatherFile: string;

@@ -2,13 +2,26 @@
  * A whole run folder, for the CLI and library users alike: the tables and summary of
  * io/runFolder.ts, the comparison, the charts and the report.
  */
-import { writeFileSync } from 'node:fs';
+import { closeSync, openSync, writeFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
 import { writeDirAtomic } from '../io/atomicOutput.js';
-import { buildSummary, writeRunFiles, type RunMeta } from '../io/runFolder.js';
+import {
+  buildSummary,
+  dailyPoolColumns,
+  scenarioDailyCsvChunks,
+  writeAnnualAndSummary,
+  writeDailyCsv,
+  type RunMeta,
+} from '../io/runFolder.js';
 import { toCsv } from '../io/tables.js';
 import type { ComparisonRow } from '../scenarios/compare.js';
-import type { RunOutput } from '../scenarios/run.js';
+import {
+  digestOf,
+  type RunOutput,
+  type RunPlan,
+  type RunResult,
+  type ScenarioDigest,
+} from '../scenarios/run.js';
 import { comparisonColumnsOf, comparisonOf } from '../scenarios/runComparison.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { buildChartSpecs } from './charts.js';
@@ -29,6 +42,13 @@ export interface RunFolderOptions {
   explorerHtml?: (() => string) | undefined;
 }
 
+/** What writing a run folder returns: the summary, what was written, the comparison rows. */
+export interface RunFolderResult {
+  summary: ReturnType<typeof buildSummary>;
+  written: string[];
+  comparison: ComparisonRow[];
+}
+
 /**
  * Write a run's output folder atomically, as `tileflux run` does: daily.csv, annual.csv,
  * comparison.csv, summary.json, and unless switched off charts/ and report.html (and
@@ -42,59 +62,122 @@ export async function writeRunFolder(
   out: string,
   units: UnitSystem,
   o: RunFolderOptions,
-): Promise<{
-  summary: ReturnType<typeof buildSummary>;
-  written: string[];
-  comparison: ComparisonRow[];
-}> {
-  const comparison = comparisonOf(run);
-  const chartYear = o.chartYear;
-  const summary = buildSummary(run, meta, units, comparison);
-  const daily = o.daily !== false;
-  const written = [...(daily ? ['daily.csv'] : []), 'annual.csv', 'comparison.csv', 'summary.json'];
+): Promise<RunFolderResult> {
+  let result: RunFolderResult | undefined;
   await writeDirAtomic(
     out,
     Boolean(o.force),
     async (dir) => {
-      await writeRunFiles(dir, run, summary, units, daily);
-      writeFileSync(
-        join(dir, 'comparison.csv'),
-        toCsv(
-          comparison.map((r) =>
-            Object.fromEntries(
-              comparisonColumnsOf(run).map((k) => [
-                k,
-                (r as Record<string, unknown>)[k] as string | number,
-              ]),
-            ),
-          ),
-          units,
-        ),
-      );
-      if (o.explorerHtml) {
-        writeFileSync(join(dir, 'explorer.html'), o.explorerHtml());
-        written.push('explorer.html');
-      }
-      if (o.charts === false && o.report === false) return;
-      const data = reportDataOf(run, {
-        fieldName: meta.fieldName,
-        weatherFile: meta.weatherFile,
-        weatherSource: meta.weatherSource,
-        units,
-        chartYear,
-        comparison,
-      });
-      const specs = buildChartSpecs(data);
-      if (o.charts !== false) {
-        await writeCharts(dir, specs);
-        written.push('charts/');
-      }
-      if (o.report !== false) {
-        writeReport(dir, data, specs);
-        written.push('report.html');
-      }
+      if (o.daily !== false) await writeDailyCsv(join(dir, 'daily.csv'), run, units);
+      result = await writeRest(dir, run, meta, units, o);
     },
     meta.inputPaths ? { inputs: meta.inputPaths } : {},
   );
+  return result!;
+}
+
+/**
+ * Run a planned field into its output folder, one scenario at a time: each scenario's rows of
+ * daily.csv are written as soon as it is computed, and only its digest (annual rows, the daily
+ * series of the report, sums; `digestOf`) is kept, so a long record of many scenarios never
+ * holds every scenario's daily columns at once. The folder is the one `writeRunFolder` writes
+ * for `runField`'s output, byte for byte. Returns the run as the tables read it, too.
+ * @example await runToFolder(planRun(field, weather), meta, 'my-run', 'si', { charts: false })
+ */
+export async function runToFolder(
+  plan: RunPlan,
+  meta: RunMeta,
+  out: string,
+  units: UnitSystem,
+  o: RunFolderOptions,
+): Promise<RunFolderResult & { run: RunResult }> {
+  let result: (RunFolderResult & { run: RunResult }) | undefined;
+  await writeDirAtomic(
+    out,
+    Boolean(o.force),
+    async (dir) => {
+      const daily = o.daily === false ? undefined : openSync(join(dir, 'daily.csv'), 'w');
+      const pool = dailyPoolColumns(plan.specs);
+      const scenarios: ScenarioDigest[] = [];
+      try {
+        for (let k = 0; k < plan.specs.length; k++) {
+          const s = plan.scenario(k);
+          if (daily !== undefined) {
+            for (const chunk of scenarioDailyCsvChunks(plan.run.forcing, s, units, {
+              header: k === 0,
+              pool,
+            })) {
+              writeSync(daily, chunk);
+              // Let a SIGINT or SIGTERM be handled (and the temporary folder removed).
+              await new Promise((r) => setImmediate(r));
+            }
+          }
+          scenarios.push(digestOf(s));
+        }
+      } finally {
+        if (daily !== undefined) closeSync(daily);
+      }
+      const seepageBand = plan.seepageBand(scenarios.map((s) => s.annual));
+      const run: RunResult = { ...plan.run, scenarios, ...(seepageBand && { seepageBand }) };
+      result = { ...(await writeRest(dir, run, meta, units, o)), run };
+    },
+    meta.inputPaths ? { inputs: meta.inputPaths } : {},
+  );
+  return result!;
+}
+
+/** Everything of a run folder but daily.csv, into the temporary folder `dir`. */
+async function writeRest(
+  dir: string,
+  run: RunResult,
+  meta: RunMeta,
+  units: UnitSystem,
+  o: RunFolderOptions,
+): Promise<RunFolderResult> {
+  const comparison = comparisonOf(run);
+  const summary = buildSummary(run, meta, units, comparison);
+  const written = [
+    ...(o.daily !== false ? ['daily.csv'] : []),
+    'annual.csv',
+    'comparison.csv',
+    'summary.json',
+  ];
+  writeAnnualAndSummary(dir, run, summary, units);
+  writeFileSync(
+    join(dir, 'comparison.csv'),
+    toCsv(
+      comparison.map((r) =>
+        Object.fromEntries(
+          comparisonColumnsOf(run).map((k) => [
+            k,
+            (r as Record<string, unknown>)[k] as string | number,
+          ]),
+        ),
+      ),
+      units,
+    ),
+  );
+  if (o.explorerHtml) {
+    writeFileSync(join(dir, 'explorer.html'), o.explorerHtml());
+    written.push('explorer.html');
+  }
+  if (o.charts === false && o.report === false) return { summary, written, comparison };
+  const data = reportDataOf(run, {
+    fieldName: meta.fieldName,
+    weatherFile: meta.weatherFile,
+    weatherSource: meta.weatherSource,
+    units,
+    chartYear: o.chartYear,
+    comparison,
+  });
+  const specs = buildChartSpecs(data);
+  if (o.charts !== false) {
+    await writeCharts(dir, specs);
+    written.push('charts/');
+  }
+  if (o.report !== false) {
+    writeReport(dir, data, specs);
+    written.push('report.html');
+  }
   return { summary, written, comparison };
 }

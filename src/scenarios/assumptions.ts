@@ -5,10 +5,10 @@
 import { MIN_ROOT_DEPTH_M } from '../engine/crops.js';
 import { proseUnits } from '../units/prose.js';
 import { US, type UnitSystem } from '../units/quantity.js';
-import type { RunOutput } from './run.js';
+import type { RunResult } from './run.js';
 
 /** What a run assumed about seepage, in words (the first scenario's setting), in `units`. */
-export function seepageText(run: RunOutput, units: UnitSystem = 'si'): string {
+export function seepageText(run: RunResult, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
   const say = proseUnits(units);
@@ -35,7 +35,7 @@ export function seepageText(run: RunOutput, units: UnitSystem = 'si'): string {
 }
 
 /** The rooting depth a run assumed, in words, in `units`. */
-export function rootText(run: RunOutput, units: UnitSystem = 'si'): string {
+export function rootText(run: RunResult, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
   const say = proseUnits(units);
@@ -48,7 +48,7 @@ export function rootText(run: RunOutput, units: UnitSystem = 'si'): string {
 }
 
 /** The pipe capacity a run assumed, in words, in `units`. */
-export function capacityText(run: RunOutput, units: UnitSystem = 'si'): string {
+export function capacityText(run: RunResult, units: UnitSystem = 'si'): string {
   const s = run.scenarios[0]?.spec;
   if (!s) return '';
   const c = s.params.capacityMmPerDay;

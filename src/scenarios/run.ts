@@ -11,7 +11,13 @@ import { simulate } from '../engine/simulate.js';
 import type { CropCalendar, EngineForcing, EngineParams, EngineResult } from '../engine/types.js';
 import type { NitrateResult } from '../nitrate/types.js';
 import type { Field } from './fieldSchema.js';
-import { prepareField, runDesign, type PeriodOptions, type PreparedField } from './prepared.js';
+import {
+  prepareField,
+  runDesign,
+  type DesignRun,
+  type PeriodOptions,
+  type PreparedField,
+} from './prepared.js';
 import { scenarioOf, standardScenarios, withSeepage, type ScenarioSpec } from './resolve.js';
 import { SEEPAGE_BAND, type SeepageBand } from '../engine/seepage.js';
 import type { AnnualRow } from './types.js';
@@ -176,14 +182,34 @@ export function runPreparedScenario(
 }
 
 /**
- * Run every scenario of a field over a weather record.
- * @example const out = runField(readFieldFile('field.yaml'), readWeatherFile('w.csv').series, {});
+ * A run planned over its weather record: the scenarios resolved and the forcing computed, no
+ * scenario simulated yet. `runField` runs it whole; a writer that wants memory independent of
+ * days x scenarios runs one scenario at a time, writes its daily columns and keeps only its
+ * digest (`digestOf`), then asks for the seepage band from the annual rows.
  */
-export function runField(
+export interface RunPlan {
+  /** The scenarios in run order. */
+  specs: ScenarioSpec[];
+  /** The run's period and methods: everything of a RunOutput but its scenarios and band. */
+  run: Omit<RunOutput, 'scenarios' | 'seepageBand'>;
+  /** Simulate scenario `k` (calls `onScenario` first): its full output over the reported period. */
+  scenario(k: number): ScenarioOutput;
+  /**
+   * The seepage band from every scenario's annual rows (in `specs` order), or undefined when
+   * the run options switched it off.
+   */
+  seepageBand(annual: readonly AnnualRow[][]): Record<SeepageBand, AnnualRow[]> | undefined;
+}
+
+/**
+ * Plan a run of every scenario of a field over a weather record (see `RunPlan`).
+ * @example const plan = planRun(field, weather, {}); const first = plan.scenario(0);
+ */
+export function planRun(
   field: FieldWithScenarios,
   weather: WeatherSeries,
   o: RunOptions = {},
-): RunOutput {
+): RunPlan {
   let specs = scenariosOf(field, undefined, o.units);
   if (o.only && o.only.length) {
     for (const name of o.only) {
@@ -202,39 +228,133 @@ export function runField(
     o,
   );
   const { forcing, from, to, warmupYears } = period;
-  const reportedForcing = sliceForcing(forcing, period.reportStart, forcing.dates.length);
-  const scenarios: ScenarioOutput[] = specs.map((spec, k) => {
-    o.onScenario?.(k, specs.length, spec.name);
-    return runPreparedScenario(period, prepareScenario(period, spec));
-  });
+  // Each design writes its daily columns over the previous design's (its own output is cut to
+  // the reported period as copies), so a run allocates them once, not once per scenario.
+  let last: DesignRun | undefined;
+  const run = (spec: ScenarioSpec): DesignRun => (last = runDesign(period, spec, last));
   const names = new Set(specs.map((s) => s.name));
   // The band needs only annual rows: each band scenario runs on the same prepared field (forcing,
   // calendars and outlet series shared), without cutting daily columns to the reported period.
-  const bandOf = (band: SeepageBand): AnnualRow[] =>
+  const bandOf = (band: SeepageBand, annual: readonly AnnualRow[][]): AnnualRow[] =>
     band === field.base.seepage
-      ? scenarios.flatMap((s) => s.annual)
+      ? annual.flat()
       : scenariosOf(field, band, o.units)
           .filter((spec) => names.has(spec.name))
-          .flatMap((spec) => runDesign(period, spec).annual);
-  const seepageBand =
-    o.seepageBand === false
-      ? undefined
-      : (Object.fromEntries(SEEPAGE_BAND.map((b) => [b, bandOf(b)])) as Record<
-          SeepageBand,
-          AnnualRow[]
-        >);
-
+          .flatMap((spec) => run(spec).annual);
   return {
-    forcing: reportedForcing,
-    refEtMethod: period.refEtMethod,
-    from,
-    to,
-    warmupYears: Math.round((period.reportStart / 365.25) * 100) / 100,
-    warmupYearsRequested: warmupYears,
-    simulatedFrom: forcing.dates[0],
-    baseline: specs[0]?.name ?? '',
-    scenarios,
-    etFactor: field.base.weather.etFactor,
-    ...(seepageBand && { seepageBand }),
+    specs,
+    run: {
+      forcing: sliceForcing(forcing, period.reportStart, forcing.dates.length),
+      refEtMethod: period.refEtMethod,
+      from,
+      to,
+      warmupYears: Math.round((period.reportStart / 365.25) * 100) / 100,
+      warmupYearsRequested: warmupYears,
+      simulatedFrom: forcing.dates[0],
+      baseline: specs[0]?.name ?? '',
+      etFactor: field.base.weather.etFactor,
+    },
+    scenario(k) {
+      const spec = specs[k];
+      o.onScenario?.(k, specs.length, spec.name);
+      const a = period.reportStart;
+      const b = forcing.dates.length;
+      const { calendar, engine, nitrate, annual } = run(spec);
+      return {
+        spec,
+        calendar: sliceColumns(calendar, a, b),
+        engine: sliceColumns(engine, a, b),
+        nitrate: sliceColumns(nitrate, a, b),
+        annual,
+      };
+    },
+    seepageBand(annual) {
+      if (o.seepageBand === false) return undefined;
+      return Object.fromEntries(SEEPAGE_BAND.map((b) => [b, bandOf(b, annual)])) as Record<
+        SeepageBand,
+        AnnualRow[]
+      >;
+    },
+  };
+}
+
+/**
+ * Run every scenario of a field over a weather record.
+ * @example const out = runField(readFieldFile('field.yaml'), readWeatherFile('w.csv').series, {});
+ */
+export function runField(
+  field: FieldWithScenarios,
+  weather: WeatherSeries,
+  o: RunOptions = {},
+): RunOutput {
+  const plan = planRun(field, weather, o);
+  const scenarios = plan.specs.map((_, k) => plan.scenario(k));
+  const seepageBand = plan.seepageBand(scenarios.map((s) => s.annual));
+  return { ...plan.run, scenarios, ...(seepageBand && { seepageBand }) };
+}
+
+/**
+ * What the tables, summary and report of a run read from one scenario, without its daily
+ * columns: the annual rows, the daily series the report draws, and the sums of the rest. A
+ * run's writer keeps this of each scenario once its daily.csv rows are written.
+ */
+export interface ScenarioDigest {
+  spec: ScenarioSpec;
+  annual: AnnualRow[];
+  engine: Pick<
+    EngineResult,
+    'equivalentDepthM' | 'substepsPerDay' | 'waterTableDepthM' | 'outletDepthM' | 'drainflowMm'
+  >;
+  nitrate: Pick<NitrateResult, 'outOfRangeDays' | 'loadKgHa' | 'concMgL'>;
+  /** Days over the reported period on which the pipe capacity limited drain flow. */
+  capacityLimitedDays: number;
+  /** Seepage that left laterally to the field edge over the reported period, mm. */
+  lateralSeepageMm: number;
+}
+
+/** A scenario as the tables, summary and report read it: its full output or its digest. */
+export type ScenarioResult = ScenarioOutput | ScenarioDigest;
+
+/** A run as the tables, summary and report read it: each scenario full or digested. */
+export interface RunResult extends Omit<RunOutput, 'scenarios'> {
+  scenarios: ScenarioResult[];
+}
+
+function sum(x: ArrayLike<number>): number {
+  let total = 0;
+  for (let i = 0; i < x.length; i++) total += x[i];
+  return total;
+}
+
+/** Days over the reported period on which the pipe capacity limited drain flow. */
+export function capacityLimitedDaysOf(s: ScenarioResult): number {
+  return 'capacityLimitedDays' in s ? s.capacityLimitedDays : sum(s.engine.capacityLimited);
+}
+
+/** Lateral seepage over the reported period, mm. */
+export function lateralSeepageMmOf(s: ScenarioResult): number {
+  return 'lateralSeepageMm' in s ? s.lateralSeepageMm : sum(s.engine.lateralSeepageMm);
+}
+
+/**
+ * A scenario's digest: what the report and summary read, the other daily columns summed. The
+ * kept series are the output's own arrays (a scenario output owns its columns).
+ * @example digestOf(runField(field, weather).scenarios[0]).capacityLimitedDays // 0
+ */
+export function digestOf(s: ScenarioOutput): ScenarioDigest {
+  const { engine: e, nitrate: n } = s;
+  return {
+    spec: s.spec,
+    annual: s.annual,
+    engine: {
+      equivalentDepthM: e.equivalentDepthM,
+      substepsPerDay: e.substepsPerDay,
+      waterTableDepthM: e.waterTableDepthM,
+      outletDepthM: e.outletDepthM,
+      drainflowMm: e.drainflowMm,
+    },
+    nitrate: { outOfRangeDays: n.outOfRangeDays, loadKgHa: n.loadKgHa, concMgL: n.concMgL },
+    capacityLimitedDays: capacityLimitedDaysOf(s),
+    lateralSeepageMm: lateralSeepageMmOf(s),
   };
 }

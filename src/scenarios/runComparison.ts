@@ -10,7 +10,7 @@ import {
   withSeepageBand,
   type ComparisonRow,
 } from './compare.js';
-import type { RunOutput } from './run.js';
+import type { RunResult } from './run.js';
 import type { AnnualRow } from './types.js';
 
 /**
@@ -18,7 +18,7 @@ import type { AnnualRow } from './types.js';
  * changes under the low and high seepage settings beside each change column when the run
  * computed the seepage band.
  */
-export function comparisonOf(run: RunOutput): ComparisonRow[] {
+export function comparisonOf(run: RunResult): ComparisonRow[] {
   const rows = compareAnnual(
     run,
     run.scenarios.flatMap((s) => s.annual),
@@ -29,7 +29,7 @@ export function comparisonOf(run: RunOutput): ComparisonRow[] {
     : rows;
 }
 
-function compareAnnual(run: RunOutput, annual: AnnualRow[]): ComparisonRow[] {
+function compareAnnual(run: RunResult, annual: AnnualRow[]): ComparisonRow[] {
   return compareScenarios(annual, {
     baseline: run.baseline,
     scenarios: run.scenarios.map((s) => ({
@@ -43,7 +43,7 @@ function compareAnnual(run: RunOutput, annual: AnnualRow[]): ComparisonRow[] {
  * The seepage band for summary.json: the three documented settings and, per scenario, the
  * change in drain flow, load and concentration against the baseline under each.
  */
-export function seepageBandOf(run: RunOutput) {
+export function seepageBandOf(run: RunResult) {
   const band = run.seepageBand;
   if (!band) return null;
   const rows = Object.fromEntries(
@@ -75,6 +75,6 @@ export function seepageBandOf(run: RunOutput) {
 }
 
 /** comparison.csv's columns for a run: with the seepage band when the run computed it. */
-export function comparisonColumnsOf(run: RunOutput): readonly string[] {
+export function comparisonColumnsOf(run: RunResult): readonly string[] {
   return run.seepageBand ? [...COMPARISON_COLUMNS, ...BAND_COLUMNS] : COMPARISON_COLUMNS;
 }

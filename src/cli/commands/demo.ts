@@ -40,14 +40,21 @@ export function registerDemo(program: Command): void {
     .action(
       action(async (o: { out: string; units?: string; force?: boolean; json?: boolean }) => {
         const units = parseUnits(o.units);
-        const { run, meta, explorerHtml } = runFromFiles(DEMO_FIELD, {
+        const { plan, meta, explorerHtml, stop } = runFromFiles(DEMO_FIELD, {
           weather: DEMO_WEATHER,
           units: o.units,
         });
-        const { summary, written, comparison } = await writeRunFolderOf(run, meta, o.out, units, {
-          force: o.force,
-          explorerHtml: () => explorerHtml(units),
-        });
+        const { run, summary, written, comparison } = await writeRunFolderOf(
+          plan,
+          meta,
+          o.out,
+          units,
+          {
+            force: o.force,
+            explorerHtml: () => explorerHtml(units),
+          },
+          stop,
+        );
         emit(o.json, summary, () => runReport(run, meta, units, o.out, written, comparison));
       }),
     );

@@ -61,12 +61,19 @@ export function registerRun(program: Command): void {
     .action(
       action(async (fieldPath: string, o: RunCommandOptions) => {
         const units = parseUnits(o.units);
-        const { run, meta, explorerHtml } = runFromFiles(fieldPath, o);
+        const { plan, meta, explorerHtml, stop } = runFromFiles(fieldPath, o);
         const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-run`;
-        const { summary, written, comparison } = await writeRunFolderOf(run, meta, out, units, {
-          ...o,
-          explorerHtml: o.explorer === false ? undefined : () => explorerHtml(units),
-        });
+        const { run, summary, written, comparison } = await writeRunFolderOf(
+          plan,
+          meta,
+          out,
+          units,
+          {
+            ...o,
+            explorerHtml: o.explorer === false ? undefined : () => explorerHtml(units),
+          },
+          stop,
+        );
         emit(o.json, summary, () => runReport(run, meta, units, out, written, comparison));
       }),
     );
