@@ -101,7 +101,8 @@ export async function runToFolder(
       const scenarios: ScenarioDigest[] = [];
       try {
         for (let k = 0; k < plan.specs.length; k++) {
-          const s = plan.scenario(k);
+          // Views of the working columns: written and digested before the next scenario runs.
+          const s = plan.scenario(k, { views: true });
           if (daily !== undefined) {
             for (const chunk of scenarioDailyCsvChunks(plan.run.forcing, s, units, {
               header: k === 0,

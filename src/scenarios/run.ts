@@ -103,13 +103,16 @@ function sliceForcing(f: EngineForcing, a: number, b: number): EngineForcing {
   };
 }
 
-/** Slice every typed-array column of a result object to [a, b). */
-function sliceColumns<T extends object>(obj: T, a: number, b: number): T {
+/** Slice every typed-array column of a result object to [a, b): copies, or views with `views`. */
+function sliceColumns<T extends object>(obj: T, a: number, b: number, views = false): T {
   const out: Record<string, unknown> = {};
   for (const [k, v] of Object.entries(obj)) {
-    if (ArrayBuffer.isView(v)) out[k] = (v as Float64Array).slice(a, b);
-    else if (Array.isArray(v) && k === 'dates') out[k] = v.slice(a, b);
-    else if (v && typeof v === 'object' && !Array.isArray(v)) out[k] = sliceColumns(v, a, b);
+    if (ArrayBuffer.isView(v)) {
+      out[k] = views ? (v as Float64Array).subarray(a, b) : (v as Float64Array).slice(a, b);
+    } else if (Array.isArray(v) && k === 'dates') out[k] = v.slice(a, b);
+    else if (v && typeof v === 'object' && !Array.isArray(v)) {
+      out[k] = sliceColumns(v, a, b, views);
+    }
     else out[k] = v;
   }
   return out as T;
@@ -192,8 +195,12 @@ export interface RunPlan {
   specs: ScenarioSpec[];
   /** The run's period and methods: everything of a RunOutput but its scenarios and band. */
   run: Omit<RunOutput, 'scenarios' | 'seepageBand'>;
-  /** Simulate scenario `k` (calls `onScenario` first): its full output over the reported period. */
-  scenario(k: number): ScenarioOutput;
+  /**
+   * Simulate scenario `k` (calls `onScenario` first): its full output over the reported period,
+   * in columns of its own; with `views`, in views of the run's working columns instead, which
+   * the next scenario (or the band) overwrites: read them, or take their `digestOf`, before that.
+   */
+  scenario(k: number, o?: { views?: boolean }): ScenarioOutput;
   /**
    * The seepage band from every scenario's annual rows (in `specs` order), or undefined when
    * the run options switched it off.
@@ -228,8 +235,8 @@ export function planRun(
     o,
   );
   const { forcing, from, to, warmupYears } = period;
-  // Each design writes its daily columns over the previous design's (its own output is cut to
-  // the reported period as copies), so a run allocates them once, not once per scenario.
+  // Each design writes its daily columns over the previous design's (a scenario's output is cut
+  // to the reported period as copies, or views), so a run allocates them once, not per scenario.
   let last: DesignRun | undefined;
   const run = (spec: ScenarioSpec): DesignRun => (last = runDesign(period, spec, last));
   const names = new Set(specs.map((s) => s.name));
@@ -254,7 +261,7 @@ export function planRun(
       baseline: specs[0]?.name ?? '',
       etFactor: field.base.weather.etFactor,
     },
-    scenario(k) {
+    scenario(k, { views = false } = {}) {
       const spec = specs[k];
       o.onScenario?.(k, specs.length, spec.name);
       const a = period.reportStart;
@@ -262,9 +269,9 @@ export function planRun(
       const { calendar, engine, nitrate, annual } = run(spec);
       return {
         spec,
-        calendar: sliceColumns(calendar, a, b),
-        engine: sliceColumns(engine, a, b),
-        nitrate: sliceColumns(nitrate, a, b),
+        calendar: sliceColumns(calendar, a, b, views),
+        engine: sliceColumns(engine, a, b, views),
+        nitrate: sliceColumns(nitrate, a, b, views),
         annual,
       };
     },
@@ -338,7 +345,8 @@ export function lateralSeepageMmOf(s: ScenarioResult): number {
 
 /**
  * A scenario's digest: what the report and summary read, the other daily columns summed. The
- * kept series are the output's own arrays (a scenario output owns its columns).
+ * kept series are copies, so a digest outlives the columns it was taken from (see
+ * `RunPlan.scenario`'s views).
  * @example digestOf(runField(field, weather).scenarios[0]).capacityLimitedDays // 0
  */
 export function digestOf(s: ScenarioOutput): ScenarioDigest {
@@ -349,11 +357,15 @@ export function digestOf(s: ScenarioOutput): ScenarioDigest {
     engine: {
       equivalentDepthM: e.equivalentDepthM,
       substepsPerDay: e.substepsPerDay,
-      waterTableDepthM: e.waterTableDepthM,
-      outletDepthM: e.outletDepthM,
-      drainflowMm: e.drainflowMm,
+      waterTableDepthM: e.waterTableDepthM.slice(),
+      outletDepthM: e.outletDepthM.slice(),
+      drainflowMm: e.drainflowMm.slice(),
     },
-    nitrate: { outOfRangeDays: n.outOfRangeDays, loadKgHa: n.loadKgHa, concMgL: n.concMgL },
+    nitrate: {
+      outOfRangeDays: n.outOfRangeDays,
+      loadKgHa: n.loadKgHa.slice(),
+      concMgL: n.concMgL.slice(),
+    },
     capacityLimitedDays: capacityLimitedDaysOf(s),
     lateralSeepageMm: lateralSeepageMmOf(s),
   };
