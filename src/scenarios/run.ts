@@ -112,8 +112,7 @@ function sliceColumns<T extends object>(obj: T, a: number, b: number, views = fa
     } else if (Array.isArray(v) && k === 'dates') out[k] = v.slice(a, b);
     else if (v && typeof v === 'object' && !Array.isArray(v)) {
       out[k] = sliceColumns(v, a, b, views);
-    }
-    else out[k] = v;
+    } else out[k] = v;
   }
   return out as T;
 }
