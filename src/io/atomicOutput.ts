@@ -311,6 +311,9 @@ export async function writeDirAtomic(
     track(made);
     step('temp-created');
     await fill(tmp);
+    // A signal that came during the last synchronous stretch of `fill` is handled here (the
+    // temporary folder removed), not lost when the handlers go once the folder is in place.
+    await new Promise((r) => setImmediate(r));
     writeFileSync(join(tmp, RUN_MARKER), `tileflux ${VERSION} output folder\n`);
     step('temp-filled');
     held = lock(parent, name, path);

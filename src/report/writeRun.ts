@@ -99,8 +99,12 @@ export async function runToFolder(
       const daily = o.daily === false ? undefined : openSync(join(dir, 'daily.csv'), 'w');
       const pool = dailyPoolColumns(plan.specs);
       const scenarios: ScenarioDigest[] = [];
+      // Let a SIGINT or SIGTERM be handled (and the temporary folder removed) between scenarios
+      // and between pieces of daily.csv, not only once the whole run is done.
+      const yieldToSignals = () => new Promise((r) => setImmediate(r));
       try {
         for (let k = 0; k < plan.specs.length; k++) {
+          await yieldToSignals();
           // Views of the working columns: written and digested before the next scenario runs.
           const s = plan.scenario(k, { views: true });
           if (daily !== undefined) {
@@ -109,8 +113,7 @@ export async function runToFolder(
               pool,
             })) {
               writeSync(daily, chunk);
-              // Let a SIGINT or SIGTERM be handled (and the temporary folder removed).
-              await new Promise((r) => setImmediate(r));
+              await yieldToSignals();
             }
           }
           scenarios.push(digestOf(s));
@@ -118,7 +121,13 @@ export async function runToFolder(
       } finally {
         if (daily !== undefined) closeSync(daily);
       }
-      const seepageBand = plan.seepageBand(scenarios.map((s) => s.annual));
+      const band = plan.seepageBandSteps(scenarios.map((s) => s.annual));
+      let step = band.next();
+      while (!step.done) {
+        await yieldToSignals();
+        step = band.next();
+      }
+      const seepageBand = step.value;
       const run: RunResult = { ...plan.run, scenarios, ...(seepageBand && { seepageBand }) };
       result = { ...(await writeRest(dir, run, meta, units, o)), run };
     },

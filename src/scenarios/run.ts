@@ -205,6 +205,13 @@ export interface RunPlan {
    * the run options switched it off.
    */
   seepageBand(annual: readonly AnnualRow[][]): Record<SeepageBand, AnnualRow[]> | undefined;
+  /**
+   * The same band one design run at a time: each step runs one scenario under one setting, so
+   * a caller can let other work (a signal handler) in between; the generator returns the band.
+   */
+  seepageBandSteps(
+    annual: readonly AnnualRow[][],
+  ): Generator<void, Record<SeepageBand, AnnualRow[]> | undefined>;
 }
 
 /**
@@ -241,12 +248,23 @@ export function planRun(
   const names = new Set(specs.map((s) => s.name));
   // The band needs only annual rows: each band scenario runs on the same prepared field (forcing,
   // calendars and outlet series shared), without cutting daily columns to the reported period.
-  const bandOf = (band: SeepageBand, annual: readonly AnnualRow[][]): AnnualRow[] =>
-    band === field.base.seepage
-      ? annual.flat()
-      : scenariosOf(field, band, o.units)
-          .filter((spec) => names.has(spec.name))
-          .flatMap((spec) => run(spec).annual);
+  function* seepageBandSteps(annual: readonly AnnualRow[][]) {
+    if (o.seepageBand === false) return undefined;
+    const rows = {} as Record<SeepageBand, AnnualRow[]>;
+    for (const band of SEEPAGE_BAND) {
+      if (band === field.base.seepage) {
+        rows[band] = annual.flat();
+        continue;
+      }
+      rows[band] = [];
+      for (const spec of scenariosOf(field, band, o.units)) {
+        if (!names.has(spec.name)) continue;
+        for (const r of run(spec).annual) rows[band].push(r);
+        yield;
+      }
+    }
+    return rows;
+  }
   return {
     specs,
     run: {
@@ -275,12 +293,13 @@ export function planRun(
       };
     },
     seepageBand(annual) {
-      if (o.seepageBand === false) return undefined;
-      return Object.fromEntries(SEEPAGE_BAND.map((b) => [b, bandOf(b, annual)])) as Record<
-        SeepageBand,
-        AnnualRow[]
-      >;
+      const steps = seepageBandSteps(annual);
+      for (;;) {
+        const step = steps.next();
+        if (step.done) return step.value;
+      }
     },
+    seepageBandSteps,
   };
 }
 
