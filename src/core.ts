@@ -415,5 +415,5 @@ export {
 export { CHART_WIDTH, CONFIG, PALETTE, VEGA_LITE_SCHEMA, roundTo } from './report/chartTheme.js';
 export { temporalX } from './report/chartSeries.js';
 // Report: the report's data and number formatting
-export type { ScenarioDailySeries, ReportData } from './report/types.js';
+export type { ScenarioDailySeries, ScenarioPeriodSeries, ReportData } from './report/types.js';
 export { fixed, signed } from './report/format.js';

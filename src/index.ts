@@ -365,6 +365,7 @@ export {
   roundTo,
   temporalX,
   type ScenarioDailySeries,
+  type ScenarioPeriodSeries,
   type ReportData,
   fixed,
   signed,

@@ -5,7 +5,8 @@
  */
 import { SettingError } from '../errors.js';
 import { PALETTE, WIDTH } from './chartTheme.js';
-import type { ReportData } from './types.js';
+import { monthOf, periodSeriesOf, seasonDays } from './periodSeries.js';
+import type { ReportData, ScenarioPeriodSeries } from './types.js';
 
 export function scenarioNames(data: ReportData): string[] {
   return data.scenarios.map((s) => s.name);
@@ -46,10 +47,7 @@ export function yearRange(dates: readonly string[], year: number): [number, numb
   }
   return [i0, i1];
 }
-/** Month index 0-11 of an ISO date. */
-export function monthOf(iso: string): number {
-  return (iso.charCodeAt(5) - 48) * 10 + (iso.charCodeAt(6) - 48) - 1;
-}
+export { monthOf };
 /** The ISO date one day after `iso` (UTC). */
 export function nextDay(iso: string): string {
   const t = Date.parse(`${iso}T00:00:00Z`) + 86_400_000;
@@ -121,24 +119,31 @@ export function groupedBars(
     },
   }));
 }
+const periodCache = new WeakMap<ReportData, Map<string, ScenarioPeriodSeries>>();
+
+/**
+ * The whole-period series of a scenario: the report data's own (`periodSeries`, a long run's
+ * report) or computed once from its daily series over the whole period.
+ */
+export function periodSeries(data: ReportData, name: string): ScenarioPeriodSeries {
+  const given = data.periodSeries?.find((p) => p.scenario === name);
+  if (given) return given;
+  if (data.periodSeries) throw new Error(`report data has no period series for scenario "${name}"`);
+  let byName = periodCache.get(data);
+  if (!byName) periodCache.set(data, (byName = new Map()));
+  let p = byName.get(name);
+  if (!p) {
+    const dates = data.daily.dates;
+    const inSeason = seasonDays(dates, data.measures.growingSeason);
+    byName.set(name, (p = periodSeriesOf(name, dates, dailySeries(data, name), inSeason)));
+  }
+  return p;
+}
+
 /**
  * Sums of daily drain flow and load per calendar month for one scenario, and the number of
  * (year, month) pairs in the period for each month.
  */
 export function monthlySums(data: ReportData, name: string) {
-  const s = dailySeries(data, name);
-  const flow = new Float64Array(12);
-  const load = new Float64Array(12);
-  const count = new Array<number>(12).fill(0);
-  const dates = data.daily.dates;
-  let previous = -1;
-  for (let i = 0; i < dates.length; i++) {
-    const m = monthOf(dates[i]);
-    flow[m] += s.drainflowMm[i];
-    load[m] += s.no3LoadKgHa[i];
-    // Dates are consecutive: a new (year, month) pair starts whenever the month changes.
-    if (m !== previous) count[m]++;
-    previous = m;
-  }
-  return { flow, load, count };
+  return periodSeries(data, name).monthly;
 }

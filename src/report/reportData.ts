@@ -7,12 +7,18 @@ import type { EngineForcing } from '../engine/types.js';
 import { capacityText, rootText, seepageText } from '../scenarios/assumptions.js';
 import { wetnessSchema } from '../scenarios/fieldSchema.js';
 import type { ComparisonRow } from '../scenarios/compare.js';
-import type { RunResult } from '../scenarios/run.js';
+import type { EngineResult } from '../engine/types.js';
+import type { NitrateResult } from '../nitrate/types.js';
+import type { WetnessSettings } from '../scenarios/annual.js';
+import type { RunResult, ScenarioOutput, ScenarioResult } from '../scenarios/run.js';
+import type { AnnualRow } from '../scenarios/types.js';
+import { windowWaterTable, type WindowWaterTable } from '../scenarios/windows.js';
+import { yearRange } from './chartSeries.js';
+import { periodSeriesOf, seasonDays } from './periodSeries.js';
 import { comparisonOf } from '../scenarios/runComparison.js';
-import { windowWaterTable } from '../scenarios/windows.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { VERSION } from '../version.js';
-import type { ReportData } from './types.js';
+import type { ReportData, ScenarioDailySeries, ScenarioPeriodSeries } from './types.js';
 
 /** The methods behind every number in a run, with their published sources. */
 export function methodsOf(run: RunResult, units: UnitSystem = 'si'): ReportData['methods'] {
@@ -96,10 +102,94 @@ export function methodsOf(run: RunResult, units: UnitSystem = 'si'): ReportData[
 
 /** The wettest calendar year of the run (most precipitation), used by default for the water-table chart. */
 export function wettestYear(run: RunResult): number {
-  const annual = run.scenarios[0]?.annual ?? [];
+  return wettestYearOf(run.scenarios[0]?.annual ?? [], run.from);
+}
+
+/** The wettest year of these annual rows (the first of equals), or the year of `from` without rows. */
+function wettestYearOf(annual: readonly AnnualRow[], from: string): number {
   let best = annual[0];
   for (const r of annual) if (r.precip_mm > best.precip_mm) best = r;
-  return best ? best.year : Number(run.from.slice(0, 4));
+  return best ? best.year : Number(from.slice(0, 4));
+}
+
+/**
+ * What the report keeps of one scenario: the chart year's daily series, the whole-period series
+ * of the cumulative, monthly and duration charts, and the water table in the fieldwork windows.
+ */
+export interface ScenarioReportPart {
+  chartYear: number;
+  daily: ScenarioDailySeries;
+  period: ScenarioPeriodSeries;
+  windows: WindowWaterTable[];
+}
+
+/** How every scenario's report part is cut: the chart year, its days, the growing season's. */
+export interface ReportCut {
+  chartYear: number;
+  /** First and one-past-last index of the chart year in the run's dates. */
+  range: [number, number];
+  inSeason: number[];
+  measures: WetnessSettings;
+}
+
+/**
+ * The cut of a run's report parts: the chart year (`chartYear`, or the wettest year of the
+ * baseline's annual rows), its days (a year outside the period is a SettingError) and the
+ * growing-season days of the first scenario's crop measures.
+ */
+export function reportCutOf(
+  run: Pick<RunResult, 'forcing' | 'from'>,
+  first: Pick<ScenarioResult, 'annual' | 'spec'> | undefined,
+  chartYear?: number,
+): ReportCut {
+  const measures = first?.spec.field.wetness ?? wetnessSchema.parse(undefined);
+  const year = chartYear ?? wettestYearOf(first?.annual ?? [], run.from);
+  return {
+    chartYear: year,
+    range: yearRange(run.forcing.dates, year),
+    inSeason: seasonDays(run.forcing.dates, measures.growingSeason),
+    measures,
+  };
+}
+
+/** A scenario with the daily series the report reads, over the run's dates. */
+type DailyScenario = Pick<ScenarioOutput, 'spec' | 'annual'> & {
+  engine: Pick<EngineResult, 'waterTableDepthM' | 'outletDepthM' | 'drainflowMm'>;
+  nitrate: Pick<NitrateResult, 'loadKgHa' | 'concMgL'>;
+};
+
+/**
+ * One scenario's report part from its daily series over the run's `dates` (its own copies, so
+ * the part outlives the columns it was cut from).
+ * @example reportPartOf(run.forcing.dates, run.scenarios[0], reportCutOf(run, run.scenarios[0]))
+ */
+export function reportPartOf(
+  dates: readonly string[],
+  s: DailyScenario,
+  cut: ReportCut,
+): ScenarioReportPart {
+  const [a, b] = cut.range;
+  const e = s.engine;
+  const n = s.nitrate;
+  const name = s.spec.name;
+  return {
+    chartYear: cut.chartYear,
+    daily: {
+      scenario: name,
+      waterTableDepthM: e.waterTableDepthM.slice(a, b),
+      outletDepthM: e.outletDepthM.slice(a, b),
+      drainflowMm: e.drainflowMm.slice(a, b),
+      no3LoadKgHa: n.loadKgHa.slice(a, b),
+      no3ConcMgL: n.concMgL.slice(a, b),
+    },
+    period: periodSeriesOf(
+      name,
+      dates,
+      { drainflowMm: e.drainflowMm, no3LoadKgHa: n.loadKgHa, waterTableDepthM: e.waterTableDepthM },
+      cut.inSeason,
+    ),
+    windows: windowWaterTable(name, dates, e.waterTableDepthM, s.annual, cut.measures),
+  };
 }
 
 /** Days in a mean Gregorian year, for rates per year over records of any length. */
@@ -146,9 +236,27 @@ export function reportDataOf(
     units: 'si' | 'us';
     chartYear?: number | undefined;
     comparison?: ComparisonRow[];
+    /**
+     * Each scenario's report part (`reportPartOf`), for a run whose scenarios are digests; a run
+     * of full scenario outputs has them cut here.
+     */
+    parts?: ScenarioReportPart[];
   },
 ): ReportData {
   const measures = run.scenarios[0]?.spec.field.wetness ?? wetnessSchema.parse(undefined);
+  const cut = reportCutOf(run, run.scenarios[0], o.chartYear);
+  const parts =
+    o.parts ??
+    run.scenarios.map((s) => {
+      if (!('calendar' in s)) {
+        throw new Error(`report data of scenario "${s.spec.name}" needs its report part`);
+      }
+      return reportPartOf(run.forcing.dates, s, cut);
+    });
+  if (parts.length !== run.scenarios.length || parts.some((p) => p.chartYear !== cut.chartYear)) {
+    throw new Error(`report parts were cut for another chart year or other scenarios`);
+  }
+  const [a, b] = cut.range;
   return {
     title: `Drainage alternatives for ${o.fieldName}`,
     generatedBy: `tileflux ${VERSION}`,
@@ -174,30 +282,16 @@ export function reportDataOf(
     comparison: o.comparison ?? comparisonOf(run),
     annual: run.scenarios.flatMap((s) => s.annual),
     daily: {
-      dates: run.forcing.dates,
-      precipMm: run.forcing.precipMm,
-      series: run.scenarios.map((s) => ({
-        scenario: s.spec.name,
-        waterTableDepthM: s.engine.waterTableDepthM,
-        outletDepthM: s.engine.outletDepthM,
-        drainflowMm: s.engine.drainflowMm,
-        no3LoadKgHa: s.nitrate.loadKgHa,
-        no3ConcMgL: s.nitrate.concMgL,
-      })),
+      dates: run.forcing.dates.slice(a, b),
+      precipMm: run.forcing.precipMm.slice(a, b),
+      series: parts.map((p) => p.daily),
     },
+    periodSeries: parts.map((p) => p.period),
     wetThresholdM: measures.threshold,
     measures,
-    chartYear: o.chartYear ?? wettestYear(run),
+    chartYear: cut.chartYear,
     chartYearReason: o.chartYear === undefined ? 'wettest' : 'given',
-    windows: run.scenarios.flatMap((s) =>
-      windowWaterTable(
-        s.spec.name,
-        run.forcing.dates,
-        s.engine.waterTableDepthM,
-        s.annual,
-        measures,
-      ),
-    ),
+    windows: parts.flatMap((p) => p.windows),
     balances: run.scenarios.map((s) => ({
       scenario: s.spec.name,
       maxAnnualWaterErrorMm: Math.max(0, ...s.annual.map((r) => Math.abs(r.balance_error_mm))),

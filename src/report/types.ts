@@ -21,6 +21,25 @@ export interface ScenarioDailySeries {
   no3ConcMgL: Float64Array;
 }
 
+/**
+ * What the whole-period charts read from one scenario (`periodSeriesOf`): cumulative drain flow
+ * and load at thinned days, sums by calendar month, and the growing-season duration curve.
+ */
+export interface ScenarioPeriodSeries {
+  scenario: string;
+  /** Days of the period. */
+  days: number;
+  /** Drain flow (mm) and nitrate-N load (kg/ha) added up from the first day, at these dates. */
+  cumulative: { dates: string[]; flowMm: number[]; loadKgHa: number[] };
+  /** Drain flow (mm) and load (kg/ha) per calendar month, and the (year, month) pairs of each. */
+  monthly: { flow: Float64Array; load: Float64Array; count: number[] };
+  /**
+   * Duration-curve points: water-table depths (m) and the number of growing-season days with
+   * the water table at that depth or shallower, of `seasonDays`.
+   */
+  duration: { depthM: number[]; days: number[]; seasonDays: number };
+}
+
 export interface ReportData {
   title: string;
   /** Tool and version, e.g. "tileflux 0.1.0". */
@@ -50,8 +69,17 @@ export interface ReportData {
   }>;
   comparison: ComparisonRow[];
   annual: AnnualRow[];
-  /** Daily dates, precipitation (mm/d, rain and snowfall as water) and each scenario's series. */
+  /**
+   * Daily dates, precipitation (mm/d, rain and snowfall as water) and each scenario's series:
+   * over the whole period, or only the chart year's days when `periodSeries` is given.
+   */
   daily: { dates: string[]; precipMm: Float64Array; series: ScenarioDailySeries[] };
+  /**
+   * Each scenario's whole-period series, when `daily` holds only the chart year (`reportDataOf`
+   * gives them, so a long record's report does not hold every daily column); without them the
+   * charts compute them from `daily`.
+   */
+  periodSeries?: ScenarioPeriodSeries[];
   /** Water table shallower than this depth counts as wet, m. */
   wetThresholdM: number;
   /** Windows and thresholds of the crop measures (the field file's `wetness` section, SI). */

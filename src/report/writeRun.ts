@@ -26,7 +26,13 @@ import { comparisonColumnsOf, comparisonOf } from '../scenarios/runComparison.js
 import type { UnitSystem } from '../units/quantity.js';
 import { buildChartSpecs } from './charts.js';
 import { writeCharts, writeReport } from './index.js';
-import { reportDataOf } from './reportData.js';
+import {
+  reportCutOf,
+  reportDataOf,
+  reportPartOf,
+  type ReportCut,
+  type ScenarioReportPart,
+} from './reportData.js';
 
 /** What `writeRunFolder` writes besides the tables. */
 export interface RunFolderOptions {
@@ -99,6 +105,10 @@ export async function runToFolder(
       const daily = o.daily === false ? undefined : openSync(join(dir, 'daily.csv'), 'w');
       const pool = dailyPoolColumns(plan.specs);
       const scenarios: ScenarioDigest[] = [];
+      // The report's part of each scenario, cut while its daily columns are at hand.
+      const report = !(o.charts === false && o.report === false);
+      const parts: ScenarioReportPart[] = [];
+      let cut: ReportCut | undefined;
       // Let a SIGINT or SIGTERM be handled (and the temporary folder removed) between scenarios
       // and between pieces of daily.csv, not only once the whole run is done.
       const yieldToSignals = () => new Promise((r) => setImmediate(r));
@@ -116,6 +126,10 @@ export async function runToFolder(
               await yieldToSignals();
             }
           }
+          if (report) {
+            cut ??= reportCutOf(plan.run, s, o.chartYear);
+            parts.push(reportPartOf(plan.run.forcing.dates, s, cut));
+          }
           scenarios.push(digestOf(s));
         }
       } finally {
@@ -129,7 +143,7 @@ export async function runToFolder(
       }
       const seepageBand = step.value;
       const run: RunResult = { ...plan.run, scenarios, ...(seepageBand && { seepageBand }) };
-      result = { ...(await writeRest(dir, run, meta, units, o)), run };
+      result = { ...(await writeRest(dir, run, meta, units, o, parts)), run };
     },
     meta.inputPaths ? { inputs: meta.inputPaths } : {},
   );
@@ -143,6 +157,7 @@ async function writeRest(
   meta: RunMeta,
   units: UnitSystem,
   o: RunFolderOptions,
+  parts?: ScenarioReportPart[],
 ): Promise<RunFolderResult> {
   const comparison = comparisonOf(run);
   const summary = buildSummary(run, meta, units, comparison);
@@ -179,6 +194,7 @@ async function writeRest(
     units,
     chartYear: o.chartYear,
     comparison,
+    ...(parts && { parts }),
   });
   const specs = buildChartSpecs(data);
   if (o.charts !== false) {

@@ -197,7 +197,7 @@ export interface RunPlan {
   /**
    * Simulate scenario `k` (calls `onScenario` first): its full output over the reported period,
    * in columns of its own; with `views`, in views of the run's working columns instead, which
-   * the next scenario (or the band) overwrites: read them, or take their `digestOf`, before that.
+   * the next scenario (or the band) overwrites: read them (write them, digest them) before that.
    */
   scenario(k: number, o?: { views?: boolean }): ScenarioOutput;
   /**
@@ -319,18 +319,15 @@ export function runField(
 }
 
 /**
- * What the tables, summary and report of a run read from one scenario, without its daily
- * columns: the annual rows, the daily series the report draws, and the sums of the rest. A
- * run's writer keeps this of each scenario once its daily.csv rows are written.
+ * What the tables and summary of a run read from one scenario, without its daily columns: the
+ * annual rows, the engine's settings and the sums of the daily columns they need. A run's writer
+ * keeps this of each scenario (and the report's part of it) once its daily.csv rows are written.
  */
 export interface ScenarioDigest {
   spec: ScenarioSpec;
   annual: AnnualRow[];
-  engine: Pick<
-    EngineResult,
-    'equivalentDepthM' | 'substepsPerDay' | 'waterTableDepthM' | 'outletDepthM' | 'drainflowMm'
-  >;
-  nitrate: Pick<NitrateResult, 'outOfRangeDays' | 'loadKgHa' | 'concMgL'>;
+  engine: Pick<EngineResult, 'equivalentDepthM' | 'substepsPerDay'>;
+  nitrate: Pick<NitrateResult, 'outOfRangeDays'>;
   /** Days over the reported period on which the pipe capacity limited drain flow. */
   capacityLimitedDays: number;
   /** Seepage that left laterally to the field edge over the reported period, mm. */
@@ -340,7 +337,10 @@ export interface ScenarioDigest {
 /** A scenario as the tables, summary and report read it: its full output or its digest. */
 export type ScenarioResult = ScenarioOutput | ScenarioDigest;
 
-/** A run as the tables, summary and report read it: each scenario full or digested. */
+/**
+ * A run as the tables, summary and report read it: each scenario full or digested (the report
+ * then takes each scenario's part, cut while its daily columns were at hand).
+ */
 export interface RunResult extends Omit<RunOutput, 'scenarios'> {
   scenarios: ScenarioResult[];
 }
@@ -362,28 +362,18 @@ export function lateralSeepageMmOf(s: ScenarioResult): number {
 }
 
 /**
- * A scenario's digest: what the report and summary read, the other daily columns summed. The
- * kept series are copies, so a digest outlives the columns it was taken from (see
- * `RunPlan.scenario`'s views).
+ * A scenario's digest: what the tables and summary read, the daily columns they need summed.
  * @example digestOf(runField(field, weather).scenarios[0]).capacityLimitedDays // 0
  */
 export function digestOf(s: ScenarioOutput): ScenarioDigest {
-  const { engine: e, nitrate: n } = s;
   return {
     spec: s.spec,
     annual: s.annual,
     engine: {
-      equivalentDepthM: e.equivalentDepthM,
-      substepsPerDay: e.substepsPerDay,
-      waterTableDepthM: e.waterTableDepthM.slice(),
-      outletDepthM: e.outletDepthM.slice(),
-      drainflowMm: e.drainflowMm.slice(),
+      equivalentDepthM: s.engine.equivalentDepthM,
+      substepsPerDay: s.engine.substepsPerDay,
     },
-    nitrate: {
-      outOfRangeDays: n.outOfRangeDays,
-      loadKgHa: n.loadKgHa.slice(),
-      concMgL: n.concMgL.slice(),
-    },
+    nitrate: { outOfRangeDays: s.nitrate.outOfRangeDays },
     capacityLimitedDays: capacityLimitedDaysOf(s),
     lateralSeepageMm: lateralSeepageMmOf(s),
   };

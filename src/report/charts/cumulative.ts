@@ -3,7 +3,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { ReportData } from '../types.js';
 import { displayUnits } from '../units.js';
 import { VEGA_LITE_SCHEMA, WIDTH, CONFIG, roundTo } from '../chartTheme.js';
-import { scenarioNames, scenarioColour, dailySeries, temporalX } from '../chartSeries.js';
+import { scenarioNames, scenarioColour, periodSeries, temporalX } from '../chartSeries.js';
 
 /**
  * Cumulative drain flow and cumulative nitrate-N load over the whole period, one line per
@@ -15,25 +15,18 @@ import { scenarioNames, scenarioColour, dailySeries, temporalX } from '../chartS
 export function cumulativeChart(data: ReportData): TopLevelSpec {
   const du = displayUnits(data.units);
   const names = scenarioNames(data);
-  const dates = data.daily.dates;
-  const n = dates.length;
-  const step = Math.max(7, Math.ceil(n / 520));
   const values: Array<Record<string, string | number>> = [];
+  // Days of the period: of the period series when `daily` holds only the chart year.
+  const n = data.periodSeries?.[0]?.days ?? data.daily.dates.length;
   for (const name of names) {
-    const s = dailySeries(data, name);
-    let flow = 0;
-    let load = 0;
-    for (let i = 0; i < n; i++) {
-      flow += s.drainflowMm[i];
-      load += s.no3LoadKgHa[i];
-      if (i % step === 0 || i === n - 1) {
-        values.push({
-          date: dates[i],
-          scenario: name,
-          flow: roundTo(flow * du.water.factor, 2),
-          load: roundTo(load * du.load.factor, 3),
-        });
-      }
+    const c = periodSeries(data, name).cumulative;
+    for (let j = 0; j < c.dates.length; j++) {
+      values.push({
+        date: c.dates[j],
+        scenario: name,
+        flow: roundTo(c.flowMm[j] * du.water.factor, 2),
+        load: roundTo(c.loadKgHa[j] * du.load.factor, 3),
+      });
     }
   }
   // Short periods get month ticks, long ones a tick every year or every few years.
