@@ -2,6 +2,11 @@
  * Run a field's scenarios over one weather record: climate forcing once, then for each scenario
  * the crop calendar, the outlet schedule, the daily water-balance engine, the nitrate model and
  * the annual table. Pure: the caller reads files and writes outputs.
+ *
+ * Longer than most files: the whole run (`runField`, every scenario's daily columns kept) and
+ * the planned run (`planRun`, one scenario at a time, each reduced to its digest, so a run folder
+ * of a long record needs little memory) share the period, the scenario preparation and the
+ * seepage band, and stay together so that both give the same numbers.
  */
 import type { UnitSystem } from '../units/quantity.js';
 import { SettingError } from '../errors.js';
