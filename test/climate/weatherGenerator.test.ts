@@ -6,6 +6,7 @@ import {
   stationaryWetProbability,
   type GeneratorParams,
 } from '../../src/climate/weatherGenerator.js';
+import type { WeatherSeries } from '../../src/climate/weatherSeries.js';
 
 // Expected values are derived from the parameters with the theory of the model (Richardson,
 // 1981): the long-run wet-day probability of a two-state Markov chain is p01 / (1 + p01 - p11)
@@ -16,11 +17,17 @@ import {
 // 10^5 per check) while a wrong mean of a few percent is caught.
 
 const YEARS = 200;
-const w = generateWeather({ years: YEARS, seed: 2718, startYear: 1801 });
 const p = DEFAULT_GENERATOR;
 
-/** For each month, one value per year. */
-function perYear(f: (i: number) => number, agg: 'sum' | 'mean'): number[][] {
+/**
+ * The 200 generated years, made afresh inside each test that needs them (about 0.1 s): a record
+ * built at module load, or memoised, would hide which tests reach the generator from mutation
+ * testing's per-test coverage.
+ */
+const generated = () => generateWeather({ years: YEARS, seed: 2718, startYear: 1801 });
+
+/** For each month of record w, one value per year. */
+function perYear(w: WeatherSeries, f: (i: number) => number, agg: 'sum' | 'mean'): number[][] {
   const out = Array.from({ length: 12 }, () => new Array<number>(YEARS).fill(0));
   const count = Array.from({ length: 12 }, () => new Array<number>(YEARS).fill(0));
   for (let i = 0; i < w.dates.length; i++) {
@@ -74,6 +81,7 @@ describe('Richardson weather generator', () => {
   });
 
   it('covers whole calendar years from the start year, day after day', () => {
+    const w = generated();
     expect(w.dates[0]).toBe('1801-01-01');
     expect(w.dates.at(-1)).toBe('2000-12-31');
     // 1801-2000: 50 years divisible by 4 (1804..2000), less 1900, gives 49 leap years.
@@ -87,7 +95,8 @@ describe('Richardson weather generator', () => {
   });
 
   it('matches the monthly wet-day frequency p01 / (1 + p01 - p11)', () => {
-    const wet = perYear((i) => (w.precipMm[i] > 0 ? 1 : 0), 'mean');
+    const w = generated();
+    const wet = perYear(w, (i) => (w.precipMm[i] > 0 ? 1 : 0), 'mean');
     for (let m = 0; m < 12; m++) {
       const expected = stationaryWetProbability(p.pWetGivenDry[m], p.pWetGivenWet[m]);
       const { mean, se } = meanAndSe(wet[m]);
@@ -96,7 +105,8 @@ describe('Richardson weather generator', () => {
   });
 
   it('matches monthly mean precipitation: days * wet probability * shape * scale', () => {
-    const totals = perYear((i) => w.precipMm[i], 'sum');
+    const w = generated();
+    const totals = perYear(w, (i) => w.precipMm[i], 'sum');
     let annual = 0;
     for (let m = 0; m < 12; m++) {
       const pi = p.pWetGivenDry[m] / (1 + p.pWetGivenDry[m] - p.pWetGivenWet[m]);
@@ -111,8 +121,9 @@ describe('Richardson weather generator', () => {
   });
 
   it('matches monthly mean Tmax and Tmin from the harmonics', () => {
-    const tmax = perYear((i) => w.tmaxC[i], 'mean');
-    const tmin = perYear((i) => w.tminC[i], 'mean');
+    const w = generated();
+    const tmax = perYear(w, (i) => w.tmaxC[i], 'mean');
+    const tmin = perYear(w, (i) => w.tminC[i], 'mean');
     for (let m = 0; m < 12; m++) {
       const c = meanCos(m + 1, p.warmestDayOfYear);
       const eMax = p.tmax.meanC + p.tmax.amplitudeC * c;
@@ -125,7 +136,8 @@ describe('Richardson weather generator', () => {
   });
 
   it('has cold winters and warm summers at the default site', () => {
-    const tmax = perYear((i) => w.tmaxC[i], 'mean').map((r) => meanAndSe(r).mean);
+    const w = generated();
+    const tmax = perYear(w, (i) => w.tmaxC[i], 'mean').map((r) => meanAndSe(r).mean);
     expect(tmax[0]).toBeLessThan(0);
     expect(tmax[6]).toBeGreaterThan(25);
   });

@@ -22,14 +22,19 @@ describe('summarizeWeather', () => {
   // 2021-07-01 .. 2024-03-31: complete years 2022 and 2023 only.
   // Every day 2 mm; on 1 January also 100 mm in 2022, 300 mm in 2023 (all as snow: cold day);
   // a warm day every day otherwise.
-  const w = record('2021-07-01', 1005, (d) => {
-    const jan1 = d.endsWith('-01-01');
-    const extra = d === '2022-01-01' ? 100 : d === '2023-01-01' ? 300 : 0;
-    return jan1 ? [2 + extra, -5, -10] : [2, 20, 10];
-  });
-  const s = summarizeWeather(w, 42);
+  // Summarised inside each test, so mutation testing sees which tests reach the summary.
+  const summary = () =>
+    summarizeWeather(
+      record('2021-07-01', 1005, (d) => {
+        const jan1 = d.endsWith('-01-01');
+        const extra = d === '2022-01-01' ? 100 : d === '2023-01-01' ? 300 : 0;
+        return jan1 ? [2 + extra, -5, -10] : [2, 20, 10];
+      }),
+      42,
+    );
 
   it('uses complete calendar years only for the annual figures', () => {
+    const s = summary();
     expect(s.firstDate).toBe('2021-07-01');
     expect(s.lastDate).toBe('2024-03-31');
     expect(s.days).toBe(1005);
@@ -49,6 +54,7 @@ describe('summarizeWeather', () => {
   it('gives the share of precipitation that fell as snow', () => {
     // Snow falls on the three 1 January days (mean -7.5 degC): 2022: 102, 2023: 302, 2024: 2 mm;
     // total precipitation 1005 * 2 + 400 = 2410 mm.
+    const s = summary();
     expect(s.snowSharePercent).toBeCloseTo((100 * (102 + 302 + 2)) / 2410, 9);
   });
 
