@@ -447,6 +447,8 @@ export { buildSweepReportHtml } from './report/sweepReport.js';
 // Chart files, the HTML report, SVG and PNG rendering
 export {
   writeCharts,
+  startChartThreads,
+  type ChartThreads,
   writeReport,
   buildReportHtml,
   renderSvg,

@@ -24,6 +24,7 @@ import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
+import { startChartThreads } from '../report/chartThreads.js';
 import { runToFolder, type RunFolderOptions } from '../report/writeRun.js';
 import { fixedText } from '../units/decimal.js';
 
@@ -248,17 +249,23 @@ export async function writeRunFolderOf(
   o: Omit<RunFolderOptions, 'chartYear' | 'daily'> & { year?: string; daily?: string },
   stop: () => void = () => {},
 ) {
+  const chartYear = chartYearOf(plan.run, o.year);
+  const daily = dailyOption(o.daily);
+  // Started before the scenarios run: vega loads and warms up on the threads meanwhile.
+  const charts = o.charts !== false ? startChartThreads() : undefined;
   const options = {
     force: o.force,
     charts: o.charts,
     report: o.report,
-    chartYear: chartYearOf(plan.run, o.year),
-    daily: dailyOption(o.daily),
+    chartYear,
+    daily,
     explorerHtml: o.explorerHtml,
+    drawCharts: charts?.draw,
   };
   try {
     return await runToFolder(plan, meta, out, units, options);
   } finally {
     stop();
+    await charts?.close();
   }
 }

@@ -25,6 +25,7 @@ import {
 import { comparisonColumnsOf, comparisonOf } from '../scenarios/runComparison.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { buildChartSpecs } from './charts.js';
+import type { ChartDrawer } from './chartFiles.js';
 import { writeCharts, writeReport } from './index.js';
 import {
   reportCutOf,
@@ -46,6 +47,11 @@ export interface RunFolderOptions {
   daily?: boolean;
   /** The explorer page to write beside the report (explorer.html); none when absent. */
   explorerHtml?: (() => string) | undefined;
+  /**
+   * Draws the charts (default: in this thread). The CLI passes its chart threads'
+   * (`startChartThreads`), started before the run, so vega loads while the scenarios run.
+   */
+  drawCharts?: ChartDrawer | undefined;
 }
 
 /** What writing a run folder returns: the summary, what was written, the comparison rows. */
@@ -197,13 +203,19 @@ async function writeRest(
     ...(parts && { parts }),
   });
   const specs = buildChartSpecs(data);
-  if (o.charts !== false) {
-    await writeCharts(dir, specs);
+  // The charts are drawn (on the chart worker, when there is one) while the report is written.
+  const charts = o.charts !== false ? writeCharts(dir, specs, { draw: o.drawCharts }) : undefined;
+  try {
+    if (o.report !== false) writeReport(dir, data, specs);
+  } catch (err) {
+    // Nothing may still be writing charts when the caller removes the half-written folder.
+    await charts?.catch(() => undefined);
+    throw err;
+  }
+  if (charts) {
+    await charts;
     written.push('charts/');
   }
-  if (o.report !== false) {
-    writeReport(dir, data, specs);
-    written.push('report.html');
-  }
+  if (o.report !== false) written.push('report.html');
   return { summary, written, comparison };
 }

@@ -1,6 +1,7 @@
-import { mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
 import { compareScenarios } from '../../src/scenarios/compare.js';
 import { annualChart, buildChartSpecs, CHART_NAMES } from '../../src/report/charts.js';
@@ -161,16 +162,45 @@ describe('writeCharts', () => {
     }
   });
 
-  it('a failing chart leaves no PNG on its way: the earlier ones have landed when it throws', async () => {
+  it('a failing chart writes nothing, and nothing is still on its way when it throws', async () => {
     // The run removes its half-written folder as soon as writeCharts throws; a PNG still being
-    // rasterised would then write into a deleted folder (ENOENT thrown into the process).
+    // rasterised would then write into a deleted folder (ENOENT thrown into the process). Every
+    // chart is drawn before any file is written, so a failure leaves no charts/ at all, then or
+    // a moment later.
     const failing = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
     try {
       const broken = { ...specs.tradeoff, transform: [{ calculate: 'datum.x +', as: 'y' }] };
       await expect(writeCharts(failing, { tradeoff: specs.tradeoff, broken })).rejects.toThrow();
-      expect(statSync(join(failing, 'charts', 'tradeoff.png')).size).toBeGreaterThan(5000);
+      await new Promise((r) => setTimeout(r, 300));
+      expect(existsSync(join(failing, 'charts'))).toBe(false);
     } finally {
       rmSync(failing, { recursive: true, force: true });
+    }
+  });
+
+  it('draws on chart threads (built modules in dist/) the same files, byte for byte', async () => {
+    const dist = (f: string) => pathToFileURL(join(process.cwd(), 'dist', f)).href;
+    const { startChartThreads } = (await import(
+      dist('report/chartThreads.js')
+    )) as typeof import('../../src/report/chartThreads.js');
+    const threads = startChartThreads(2);
+    const here = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
+    const there = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
+    try {
+      const a = await writeCharts(here, specs);
+      const b = await writeCharts(there, specs, { draw: threads.draw });
+      expect(b.map((p) => p.slice(there.length))).toEqual(a.map((p) => p.slice(here.length)));
+      for (const p of a) {
+        const q = there + p.slice(here.length);
+        expect(readFileSync(q).equals(readFileSync(p)), q).toBe(true);
+      }
+      // A chart that cannot be drawn rejects the drawing, on the threads as here.
+      const broken = { ...specs.tradeoff, transform: [{ calculate: 'datum.x +', as: 'y' }] };
+      await expect(threads.draw({ broken }, 1)).rejects.toThrow();
+    } finally {
+      await threads.close();
+      rmSync(here, { recursive: true, force: true });
+      rmSync(there, { recursive: true, force: true });
     }
   });
 
