@@ -71,57 +71,41 @@ function monthly(w: WeatherSeries) {
   });
 }
 
-/**
- * A record and 500 years generated from the generator fitted to it, as monthly statistics. Made
- * afresh inside each test (about 0.3 s): built at module load or memoised, it would hide which
- * tests reach the fit from mutation testing's per-test coverage.
- */
-function fitted(load: () => WeatherSeries) {
-  const record = load();
-  const generated = generateWeather({ years: 500, seed: 11, params: fitGenerator(record) });
-  return { rec: monthly(record), gen: monthly(generated) };
-}
-
 describe.each(records)('generator fitted to %s', (_name, load) => {
-  it('reproduces monthly mean precipitation within 3 standard errors of 500 years', () => {
-    const { rec, gen } = fitted(load);
+  // One test per record, so the 500 years are generated once inside it: built at module load
+  // or shared between tests, they would hide which tests reach the fit from mutation testing's
+  // per-test coverage.
+  it('reproduces monthly precipitation (3 standard errors of 500 years), wet days and Tmax/Tmin', () => {
+    const record = load();
+    const generated = generateWeather({ years: 500, seed: 11, params: fitGenerator(record) });
+    const rec = monthly(record);
+    const gen = monthly(generated);
     const z = rec.map((r, m) => Math.abs(gen[m].precipMean - r.precipMean) / gen[m].precipSe);
-    expect(Math.max(...z)).toBeLessThan(3);
-  });
-  it('reproduces wet-day frequency within 0.03', () => {
-    const { rec, gen } = fitted(load);
+    expect(Math.max(...z), 'monthly mean precipitation, z').toBeLessThan(3);
     const diff = rec.map((r, m) => Math.abs(gen[m].wetFraction - r.wetFraction));
-    expect(Math.max(...diff)).toBeLessThan(0.03);
-  });
-  it('reproduces monthly mean Tmax and Tmin within 0.5 degC', () => {
-    const { rec, gen } = fitted(load);
+    expect(Math.max(...diff), 'wet-day frequency').toBeLessThan(0.03);
     for (let m = 0; m < 12; m++) {
-      expect(Math.abs(gen[m].tmax - rec[m].tmax)).toBeLessThan(0.5);
-      expect(Math.abs(gen[m].tmin - rec[m].tmin)).toBeLessThan(0.5);
+      expect(Math.abs(gen[m].tmax - rec[m].tmax), `Tmax month ${m + 1}`).toBeLessThan(0.5);
+      expect(Math.abs(gen[m].tmin - rec[m].tmin), `Tmin month ${m + 1}`).toBeLessThan(0.5);
     }
   });
 });
 
-/** The demo record's fit, 300 years from it and 300 from it changed (same seed), monthly. */
-function changedClimate() {
-  const params = fitGenerator(records[2][1]());
-  const base = monthly(generateWeather({ years: 300, seed: 5, params }));
-  const changed = monthly(
-    generateWeather({
-      years: 300,
-      seed: 5,
-      params: changeClimate(params, {
-        precipChangePct: [20, 20, 0, 0, 0, 0, 0, 0, 0, 0, 0, 20],
-        tempChangeC: new Array(12).fill(2),
-      }),
-    }),
-  );
-  return { base, changed };
-}
-
 describe('climate deltas', () => {
-  it('precipitation as intensity: +20% in Dec-Feb scales amounts, wet-day frequency stays', () => {
-    const { base, changed } = changedClimate();
+  // One test, so the two 300-year records are generated inside it (see above).
+  it('+20 % in Dec-Feb scales amounts and keeps wet days; +2 degC moves every monthly mean by 2', () => {
+    const params = fitGenerator(records[2][1]());
+    const base = monthly(generateWeather({ years: 300, seed: 5, params }));
+    const changed = monthly(
+      generateWeather({
+        years: 300,
+        seed: 5,
+        params: changeClimate(params, {
+          precipChangePct: [20, 20, 0, 0, 0, 0, 0, 0, 0, 0, 0, 20],
+          tempChangeC: new Array(12).fill(2),
+        }),
+      }),
+    );
     // The same seed draws the same wet/dry sequence and the same gamma variates: every wet-day
     // amount is 1.2 times the base one, so monthly means are exactly 1.2 times (and 1 elsewhere).
     for (const m of [0, 1, 11]) {
@@ -131,9 +115,7 @@ describe('climate deltas', () => {
     for (let m = 0; m < 12; m++) {
       expect(Math.abs(changed[m].wetFraction - base[m].wetFraction)).toBeLessThan(0.002);
     }
-  });
-  it('temperature +2 degC moves every monthly mean by 2 degC', () => {
-    const { base, changed } = changedClimate();
+    // Temperatures: the same draws, shifted by exactly 2 degC.
     for (let m = 0; m < 12; m++) {
       expect(changed[m].tmax - base[m].tmax).toBeCloseTo(2, 9);
       expect(changed[m].tmin - base[m].tmin).toBeCloseTo(2, 9);
