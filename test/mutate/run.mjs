@@ -12,7 +12,15 @@ const cache = 'node_modules/.cache/tileflux';
 
 /** Mutated sources and the tests that must kill their mutants, per folder. */
 const TARGETS = {
-  drainage: { mutate: ['src/drainage/**/*.ts'], tests: ['test/drainage/**/*.test.ts'] },
+  // Since the drain-system layout joined the folder, 726 of its 1620 mutants are static (the zod
+  // schema of systemSchema.ts and the pipe and material tables at module level), each needing
+  // the whole folder's tests: about 75 min on this machine. They are skipped and counted, as
+  // for nitrate.
+  drainage: {
+    mutate: ['src/drainage/**/*.ts'],
+    tests: ['test/drainage/**/*.test.ts'],
+    ignoreStatic: true,
+  },
   climate: { mutate: ['src/climate/**/*.ts'], tests: ['test/climate/**/*.test.ts'] },
   engine: { mutate: ['src/engine/**/*.ts'], tests: ['test/engine/**/*.test.ts'] },
   // Half of nitrate's mutants are static (module-level: the zod schemas of schema.ts and the
