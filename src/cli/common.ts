@@ -1,11 +1,14 @@
 /**
- * Shared plumbing for the commands: error handling, `--json` output, unit and quantity options
- * (safe file writes are in io/atomicOutput.ts). Every command goes through `action()` so that a user's mistake prints one
- * clear line on stderr and exits non-zero, while a bug still shows its stack.
+ * Shared plumbing for the commands: error handling, `--json` output and the units option
+ * (quantity options are in cli/quantityOptions.ts, safe file writes in io/atomicOutput.ts).
+ * Every command goes through `action()` so that a user's mistake prints one clear line on
+ * stderr and exits non-zero, while a bug still shows its stack. The command modules register
+ * their options with this module, so it stays cheap to load: nothing here may import the unit
+ * parser, the engine or the schemas (a command's `--help` would pay for them).
  */
 import { SettingError, TilefluxError } from '../errors.js';
 import { fsErrorReason } from '../io/files.js';
-import { parseQuantity, type QuantityKind, type UnitSystem } from '../units/quantity.js';
+import type { UnitSystem } from '../units/usCustomary.js';
 
 /** Exit codes: 1 for bad input a user can fix, 2 for an internal error (a bug). */
 export const EXIT_USER = 1;
@@ -84,25 +87,6 @@ export function emit(json: boolean | undefined, data: unknown, human: () => stri
 /** Print a warning on stderr (stdout stays clean for `--json`). */
 export function warn(message: string): void {
   process.stderr.write(`tileflux: warning: ${message}\n`);
-}
-
-/** Parse a quantity option value; undefined stays undefined. */
-export function quantityOption(
-  value: string | undefined,
-  kind: QuantityKind,
-  option: string,
-): number | undefined {
-  return value === undefined ? undefined : parseQuantity(value, kind, option);
-}
-
-/** Parse a required quantity option, with a clear error when it is missing. */
-export function requiredQuantity(
-  value: string | undefined,
-  kind: QuantityKind,
-  option: string,
-): number {
-  if (value === undefined) throw new TilefluxError(`${option} is required`);
-  return parseQuantity(value, kind, option);
 }
 
 /** Parse --units: si (the default) or us. */

@@ -8,7 +8,8 @@ import { TilefluxError } from '../errors.js';
 import type { EquivalentDepthMethod } from '../drainage/index.js';
 import { DEFAULT_DRAIN_RADIUS_M } from '../drainage/defaults.js';
 import { echo } from './echo.js';
-import { quantityOption, requiredQuantity, warn } from './common.js';
+import { warn } from './common.js';
+import { quantityOption, requiredQuantity } from './quantityOptions.js';
 import { fixedText } from '../units/decimal.js';
 
 export interface SpacingFlags {

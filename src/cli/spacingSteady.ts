@@ -13,7 +13,8 @@ import {
 } from '../drainage/index.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { blocks, echo } from './echo.js';
-import { CAUTION, emit, quantityOption, requiredQuantity } from './common.js';
+import { CAUTION, emit } from './common.js';
+import { quantityOption, requiredQuantity } from './quantityOptions.js';
 import { layout, layoutRows, len, positive, rate, type SpacingFlags } from './spacingLayout.js';
 import { fixedText } from '../units/decimal.js';
 

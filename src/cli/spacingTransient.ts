@@ -7,7 +7,8 @@ import { TilefluxError } from '../errors.js';
 import { drainageIntensity, EQUIVALENT_DEPTH_METHODS, gloverSpacing } from '../drainage/index.js';
 import type { UnitSystem } from '../units/quantity.js';
 import { blocks, echo } from './echo.js';
-import { CAUTION, emit, requiredQuantity } from './common.js';
+import { CAUTION, emit } from './common.js';
+import { requiredQuantity } from './quantityOptions.js';
 import { layout, layoutRows, len, positive, rate, type SpacingFlags } from './spacingLayout.js';
 import { fixedText } from '../units/decimal.js';
 

@@ -7,9 +7,19 @@ import { expect } from 'vitest';
 const root = join(import.meta.dirname, '..', '..');
 const main = join(root, 'dist', 'cli', 'main.js');
 
-/** Run `tileflux ...args`; returns the exit status and both streams. */
-export function cli(args: string[]): { status: number; stdout: string; stderr: string } {
-  const r = spawnSync(process.execPath, [main, ...args], { cwd: root, encoding: 'utf8' });
+/**
+ * Run `tileflux ...args`; returns the exit status and both streams. `node` adds options for node
+ * itself (before the script) and variables to its environment.
+ */
+export function cli(
+  args: string[],
+  node: { options?: string[]; env?: Record<string, string> } = {},
+): { status: number; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, [...(node.options ?? []), main, ...args], {
+    cwd: root,
+    encoding: 'utf8',
+    env: { ...process.env, ...node.env },
+  });
   return { status: r.status ?? -1, stdout: r.stdout, stderr: r.stderr };
 }
 

@@ -7,7 +7,7 @@ import { readFieldFile } from '../../src/io/field.js';
 import { toCsv } from '../../src/io/tables.js';
 import { readWeatherFile } from '../../src/io/weather.js';
 import { sweepField } from '../../src/scenarios/sweep.js';
-import { sweepSummary } from '../../src/cli/commands/sweep.js';
+import { sweepSummary } from '../../src/cli/actions/sweep.js';
 import { cli, expectUserError } from './harness.js';
 
 // Real daily weather, 2012-2015 (vega-datasets weather.csv, New York rows), so the sweeps are small.

@@ -3,17 +3,10 @@
  * controlled drainage over the 30-year synthetic weather, writes the full output folder with the
  * report, and prints the headline table.
  */
-import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
-import { action, emit, CAUTION, parseUnits } from '../common.js';
-import { runFromFiles, runReport, writeRunFolderOf } from '../runShared.js';
+import { action, CAUTION } from '../common.js';
 import { summaryOf } from '../catalog.js';
-
-/** The bundled demo files, found relative to this module (works from a clone or an install). */
-export const DEMO_FIELD = fileURLToPath(new URL('../../../data-demo/field.yaml', import.meta.url));
-export const DEMO_WEATHER = fileURLToPath(
-  new URL('../../../data-demo/weather.csv', import.meta.url),
-);
+import type { DemoOptions } from '../actions/demo.js';
 
 export function registerDemo(program: Command): void {
   program
@@ -37,25 +30,5 @@ export function registerDemo(program: Command): void {
         '  tileflux demo --units us --out demo-us         # US units (in, ft, lb N/ac)\n' +
         `  tileflux demo --json > demo-summary.json       # the summary for scripts\n\n${CAUTION}`,
     )
-    .action(
-      action(async (o: { out: string; units?: string; force?: boolean; json?: boolean }) => {
-        const units = parseUnits(o.units);
-        const { plan, meta, explorerHtml, stop } = runFromFiles(DEMO_FIELD, {
-          weather: DEMO_WEATHER,
-          units: o.units,
-        });
-        const { run, summary, written, comparison } = await writeRunFolderOf(
-          plan,
-          meta,
-          o.out,
-          units,
-          {
-            force: o.force,
-            explorerHtml: () => explorerHtml(units),
-          },
-          stop,
-        );
-        emit(o.json, summary, () => runReport(run, meta, units, o.out, written, comparison));
-      }),
-    );
+    .action(action(async (o: DemoOptions) => (await import('../actions/demo.js')).demo(o)));
 }

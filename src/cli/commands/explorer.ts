@@ -5,25 +5,10 @@
  * with --force.
  */
 import type { Command } from 'commander';
-import { explorerHtmlOf } from '../../explorer/page.js';
-import { readFieldFile } from '../../io/field.js';
-import { readWeatherFile } from '../../io/weather.js';
-import { action, CAUTION, emit, parseUnits } from '../common.js';
-import { writeFileAtomic } from '../../io/atomicOutput.js';
-import {
-  addWeatherReadOptions,
-  weatherReadOptions,
-  type WeatherReadFlags,
-} from '../weatherOptions.js';
+import { action, CAUTION } from '../common.js';
+import { addWeatherReadOptions } from '../weatherFlags.js';
 import { summaryOf } from '../catalog.js';
-
-interface ExplorerOptions extends WeatherReadFlags {
-  weather: string;
-  out?: string;
-  units?: string;
-  force?: boolean;
-  json?: boolean;
-}
+import type { ExplorerOptions } from '../actions/explorer.js';
 
 export function registerExplorer(program: Command): void {
   const cmd = program
@@ -52,16 +37,8 @@ export function registerExplorer(program: Command): void {
         CAUTION,
     )
     .action(
-      action((fieldPath: string, o: ExplorerOptions) => {
-        const units = parseUnits(o.units);
-        const out = o.out ?? 'explorer.html';
-        const field = readFieldFile(fieldPath);
-        const weather = readWeatherFile(o.weather, weatherReadOptions(o));
-        const html = explorerHtmlOf(field, weather.series, o.weather, units);
-        writeFileAtomic(out, html, Boolean(o.force));
-        emit(o.json, { written: out, bytes: Buffer.byteLength(html) }, () =>
-          [`Wrote ${out}: open it in a browser (it needs no network).`, CAUTION].join('\n'),
-        );
-      }),
+      action(async (fieldPath: string, o: ExplorerOptions) =>
+        (await import('../actions/explorer.js')).explorer(fieldPath, o),
+      ),
     );
 }

@@ -1,10 +1,6 @@
 /** `tileflux init [FILE]`: write a fully commented starter field file. */
 import type { Command } from 'commander';
-import { z } from 'zod';
-import { fieldSchema } from '../../scenarios/fieldSchema.js';
-import { starterFieldFile } from '../../scenarios/starter.js';
 import { action } from '../common.js';
-import { writeFileAtomic } from '../../io/atomicOutput.js';
 import { summaryOf } from '../catalog.js';
 
 export function registerInit(program: Command): void {
@@ -30,21 +26,8 @@ export function registerInit(program: Command): void {
         '    tileflux init --json > field.schema.json',
     )
     .action(
-      action((file: string | undefined, o: { force?: boolean; json?: boolean }) => {
-        if (o.json) {
-          const schema = z.toJSONSchema(fieldSchema, { io: 'input', unrepresentable: 'any' });
-          process.stdout.write(JSON.stringify(schema, null, 2) + '\n');
-          return;
-        }
-        const text = starterFieldFile();
-        if (!file) {
-          process.stdout.write(text);
-          return;
-        }
-        writeFileAtomic(file, text, Boolean(o.force));
-        process.stderr.write(
-          `Wrote ${file}; edit it, then: tileflux run ${file} --weather WEATHER.csv\n`,
-        );
-      }),
+      action(async (file: string | undefined, o: { force?: boolean; json?: boolean }) =>
+        (await import('../actions/init.js')).init(file, o),
+      ),
     );
 }

@@ -3,11 +3,10 @@
  * and write daily.csv, annual.csv, summary.json (and the comparison, charts and report) into an
  * output folder, atomically.
  */
-import { basename } from 'node:path';
 import type { Command } from 'commander';
-import { action, emit, CAUTION, parseUnits } from '../common.js';
-import { addWeatherReadOptions } from '../weatherOptions.js';
-import { runFromFiles, runReport, writeRunFolderOf, type RunCommandOptions } from '../runShared.js';
+import { action, CAUTION } from '../common.js';
+import { addWeatherReadOptions } from '../weatherFlags.js';
+import type { RunCommandOptions } from '../runShared.js';
 import { summaryOf } from '../catalog.js';
 
 export function registerRun(program: Command): void {
@@ -59,22 +58,8 @@ export function registerRun(program: Command): void {
         CAUTION,
     )
     .action(
-      action(async (fieldPath: string, o: RunCommandOptions) => {
-        const units = parseUnits(o.units);
-        const { plan, meta, explorerHtml, stop } = runFromFiles(fieldPath, o);
-        const out = o.out ?? `${basename(fieldPath).replace(/\.[^.]*$/, '')}-run`;
-        const { run, summary, written, comparison } = await writeRunFolderOf(
-          plan,
-          meta,
-          out,
-          units,
-          {
-            ...o,
-            explorerHtml: o.explorer === false ? undefined : () => explorerHtml(units),
-          },
-          stop,
-        );
-        emit(o.json, summary, () => runReport(run, meta, units, out, written, comparison));
-      }),
+      action(async (fieldPath: string, o: RunCommandOptions) =>
+        (await import('../actions/run.js')).run(fieldPath, o),
+      ),
     );
 }

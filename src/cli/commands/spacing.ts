@@ -3,16 +3,13 @@
  * (Hooghoudt's steady-state equation, `cli/spacingSteady.ts`), or, with --transient, the spacing
  * that lowers the water table midway between the drains by a given amount in a given time
  * (Glover-Dumm, `cli/spacingTransient.ts`); the shared flags and layout checks are in
- * `cli/spacingLayout.ts`.
+ * `cli/spacingLayout.ts`; cli/actions/spacing.ts picks the mode when the command runs.
  */
 import { Option, type Command } from 'commander';
-import { TilefluxError } from '../../errors.js';
 import { DEFAULT_DRAIN_RADIUS_M } from '../../drainage/defaults.js';
-import { action, CAUTION, parseUnits } from '../common.js';
+import { action, CAUTION } from '../common.js';
 import { summaryOf } from '../catalog.js';
-import { renamedFlags, STEADY_ONLY, TRANSIENT_ONLY, type SpacingFlags } from '../spacingLayout.js';
-import { steadySpacing } from '../spacingSteady.js';
-import { transientSpacing } from '../spacingTransient.js';
+import type { SpacingFlags } from '../spacingLayout.js';
 
 const HELP = `
 Steady state (Hooghoudt): the spacing at which drains remove --coefficient with the water table
@@ -87,20 +84,5 @@ export function registerSpacing(program: Command): void {
     .addOption(new Option('--barrier-depth <length>').hideHelp())
     .addOption(new Option('--rate <rate>').hideHelp())
     .addHelpText('after', HELP)
-    .action(
-      action((o: SpacingFlags) => {
-        renamedFlags(o);
-        const units = parseUnits(o.units);
-        const [wrong, mode] = o.transient ? [STEADY_ONLY, 'without'] : [TRANSIENT_ONLY, 'with'];
-        for (const [key, flag] of wrong) {
-          if (o[key] !== undefined) {
-            throw new TilefluxError(
-              `${flag} applies only ${mode} --transient; leave it out or change mode`,
-            );
-          }
-        }
-        if (o.transient) transientSpacing(o, units);
-        else steadySpacing(o, units);
-      }),
-    );
+    .action(action(async (o: SpacingFlags) => (await import('../actions/spacing.js')).spacing(o)));
 }

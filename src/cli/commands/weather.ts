@@ -2,97 +2,23 @@
  * `tileflux weather check` and `tileflux weather make`: check a daily weather CSV and summarise
  * it, or write a synthetic record from the Richardson (1981) weather generator. What both print
  * is built in cli/weatherDisplay.ts. (The file is longer than most: two subcommands, each with its
- * options, its teaching help text and its action.)
+ * options and its teaching help text.)
  *
- * The reading options live in cli/weatherOptions.ts so
- * that every command reading weather offers the same ones.
+ * The reading options live in cli/weatherFlags.ts so that every command reading weather offers
+ * the same ones. The actions are in cli/actions/weather.ts, loaded when a subcommand runs.
  */
-import { basename } from 'node:path';
 import type { Command } from 'commander';
-import { TilefluxError } from '../../errors.js';
-import {
-  changeClimate,
-  fitGenerator,
-  recordStatistics,
-  DEFAULT_GENERATOR,
-  WET_DAY_MM,
-  forHemisphere,
-  generateWeather,
-  summarizeWeather,
-  type WeatherSeries,
-} from '../../climate/index.js';
-import {
-  formatWeatherCsv,
-  MAX_FILL_DAYS,
-  parseWeatherCsv,
-  readWeatherFile,
-  WEATHER_BOUNDS,
-  WEATHER_FORMAT_HELP,
-  type WeatherReadResult,
-} from '../../io/weather.js';
-import {
-  addWeatherReadOptions,
-  weatherReadNote,
-  weatherReadOptions,
-  type WeatherReadFlags,
-} from '../weatherOptions.js';
-import { describeChange, monthlyChange } from '../climateOptions.js';
-import { action, emit, quantityOption, parseUnits } from '../common.js';
-import { writeFileAtomic } from '../../io/atomicOutput.js';
+import { DEFAULT_GENERATOR } from '../../climate/weatherGenerator.js';
+import { WET_DAY_MM } from '../../climate/generatorFit.js';
+import { WEATHER_FORMAT_HELP } from '../../io/weather/formats.js';
+import { MAX_FILL_DAYS, WEATHER_BOUNDS } from '../../io/weather/units.js';
+import { addWeatherReadOptions } from '../weatherFlags.js';
+import { action } from '../common.js';
 import { summaryOf } from '../catalog.js';
-import { compareJson, compareLines, summaryJson, summaryLines } from '../weatherDisplay.js';
+import type { CheckFlags, MakeFlags } from '../actions/weather.js';
 
 /** Latitude used for reference ET when --latitude is not given, degrees north. */
 export const DEFAULT_LATITUDE_DEG = 42;
-
-/** --latitude in degrees (default DEFAULT_LATITUDE_DEG), checked to lie in -90..90. */
-function latitudeOption(value: string | undefined): { latitudeDeg: number; assumed: boolean } {
-  const lat = quantityOption(value, 'latitude', '--latitude');
-  if (lat === undefined) return { latitudeDeg: DEFAULT_LATITUDE_DEG, assumed: true };
-  if (!(lat >= -90 && lat <= 90)) {
-    throw new TilefluxError(
-      `--latitude expects degrees from -90 (south) to 90 (north); got ${value}`,
-    );
-  }
-  return { latitudeDeg: lat, assumed: false };
-}
-
-/** A whole-number option within a range. */
-function integerOption(
-  value: string | undefined,
-  option: string,
-  lo: number,
-  hi: number,
-): number | undefined {
-  if (value === undefined) return undefined;
-  const x = Number(value);
-  if (!/^\s*\d+\s*$/.test(value) || !Number.isSafeInteger(x) || x < lo || x > hi) {
-    throw new TilefluxError(`${option} expects a whole number from ${lo} to ${hi}; got ${value}`);
-  }
-  return x;
-}
-
-interface CheckFlags extends WeatherReadFlags {
-  compare?: string[];
-  units?: string;
-  latitude?: string;
-  elevation?: string;
-  json?: boolean;
-}
-
-interface MakeFlags extends WeatherReadFlags {
-  like?: string;
-  units?: string;
-  precipChange?: string;
-  tempChange?: string;
-  years?: string;
-  seed?: string;
-  latitude?: string;
-  startYear?: string;
-  out?: string;
-  force?: boolean;
-  json?: boolean;
-}
 
 const bounds = Object.entries(WEATHER_BOUNDS)
   .map(([v, [lo, hi, unit]]) => `    ${v.padEnd(7)}${lo} to ${hi} ${unit}`)
@@ -225,61 +151,9 @@ export function registerWeather(program: Command): void {
     .option('--json', 'print the summary as JSON')
     .addHelpText('after', CHECK_HELP)
     .action(
-      action((file: string | undefined, f: CheckFlags) => {
-        const o = weatherReadOptions(f);
-        if (f.compare !== undefined) {
-          if (f.compare.length !== 2 || file !== undefined) {
-            throw new TilefluxError(
-              '--compare expects exactly two weather files: weather check --compare A.csv B.csv',
-            );
-          }
-          const [a, b] = f.compare.map((path) => readWeatherFile(path, o));
-          const sa = recordStatistics(a.series);
-          const sb = recordStatistics(b.series);
-          emit(f.json, compareJson(f.compare, sa, sb), () =>
-            compareLines(f.compare!, sa, sb, parseUnits(f.units)).join('\n'),
-          );
-          return;
-        }
-        if (file === undefined) {
-          throw new TilefluxError('give a weather file, or --compare A.csv B.csv');
-        }
-        const { latitudeDeg, assumed } = latitudeOption(f.latitude);
-        const elevationM = quantityOption(f.elevation, 'length', '--elevation') ?? 0;
-        if (!(elevationM >= -500 && elevationM <= 9000)) {
-          throw new TilefluxError(`--elevation expects -500 to 9000 m; got ${f.elevation}`);
-        }
-        const r = readWeatherFile(file, o);
-        const s = summarizeWeather(r.series, latitudeDeg, elevationM);
-        const json = {
-          file: basename(file),
-          where: o.where ? `${o.where.column}=${o.where.value}` : null,
-          columns: r.columnsUsed,
-          units: r.unitsUsed,
-          format: r.format,
-          notes: r.notes,
-          filled_days: r.filledDays,
-          ...summaryJson(s, latitudeDeg, assumed, elevationM),
-        };
-        emit(f.json, json, () => {
-          const cols = Object.entries(r.columnsUsed)
-            .map(([v, h]) => (v === 'date' ? `${v}=${h}` : `${v}=${h} (${r.unitsUsed[v]})`))
-            .join(', ');
-          const filled = r.filledDays === 0 ? 'none filled' : `${r.filledDays} filled (--fill)`;
-          return [
-            `${file}${o.where ? `, rows where ${o.where.column} = ${o.where.value}` : ''}: ` +
-              `${s.firstDate} to ${s.lastDate}, ${s.days} days, ${filled}`,
-            `  columns        ${cols}`,
-            `  read as        ${weatherReadNote(r)}`,
-            ...summaryLines(
-              s,
-              latitudeDeg,
-              assumed ? ', assumed: give --latitude for your site' : '',
-              parseUnits(f.units),
-            ),
-          ].join('\n');
-        });
-      }),
+      action(async (file: string | undefined, f: CheckFlags) =>
+        (await import('../actions/weather.js')).weatherCheck(file, f),
+      ),
     );
 
   const make = weather
@@ -319,69 +193,5 @@ export function registerWeather(program: Command): void {
     );
   addWeatherReadOptions(make)
     .addHelpText('after', MAKE_HELP)
-    .action(
-      action((f: MakeFlags) => {
-        if (f.years === undefined) throw new TilefluxError('--years is required, e.g. --years 30');
-        if (f.seed === undefined) throw new TilefluxError('--seed is required, e.g. --seed 7');
-        const years = integerOption(f.years, '--years', 1, 2000)!;
-        const seed = integerOption(f.seed, '--seed', 0, Number.MAX_SAFE_INTEGER)!;
-        const startYear = integerOption(f.startYear, '--start-year', 1, 9999 - years + 1) ?? 1991;
-        const { latitudeDeg, assumed } = latitudeOption(f.latitude);
-        if (f.json && f.out === undefined) {
-          throw new TilefluxError(
-            '--json prints a summary of the written file; give --out FILE too',
-          );
-        }
-        let like: WeatherReadResult | undefined;
-        let params = forHemisphere(DEFAULT_GENERATOR, latitudeDeg);
-        if (f.like !== undefined) {
-          like = readWeatherFile(f.like, weatherReadOptions(f));
-          params = fitGenerator(like.series);
-        }
-        const precipChange = monthlyChange(f.precipChange, '--precip-change', 'precip');
-        const tempChange = monthlyChange(f.tempChange, '--temp-change', 'temp');
-        const changed = [...precipChange, ...tempChange].some((x) => x !== 0);
-        if (changed) {
-          params = changeClimate(params, {
-            precipChangePct: precipChange,
-            tempChangeC: tempChange,
-          });
-        }
-        const climate =
-          (like
-            ? `fitted to ${basename(f.like!)} (${like.series.dates[0]} to ${like.series.dates.at(-1)})`
-            : 'the invented humid-continental site') +
-          (changed
-            ? `; precipitation intensity ${describeChange(precipChange, '%')}, ` +
-              `temperature ${describeChange(tempChange, ' degC')} (delta change)`
-            : '');
-        const csv = formatWeatherCsv(generateWeather({ years, seed, startYear, params }));
-        if (f.out === undefined) {
-          process.stdout.write(csv);
-          return;
-        }
-        writeFileAtomic(f.out, csv, Boolean(f.force));
-        // Summarise what was written (rounded values), so it matches `weather check` on the file.
-        const written: WeatherSeries = parseWeatherCsv(csv, { file: f.out }).series;
-        const s = summarizeWeather(written, latitudeDeg);
-        const json = {
-          file: f.out,
-          years,
-          seed,
-          start_year: startYear,
-          climate,
-          precip_change_percent: precipChange,
-          temp_change_c: tempChange,
-          ...summaryJson(s, latitudeDeg, assumed, 0),
-        };
-        emit(f.json, json, () =>
-          [
-            `Wrote ${f.out}: synthetic weather${like ? '' : ' of an invented site'}, ${s.firstDate} to ${s.lastDate} ` +
-              `(${years} years, seed ${seed}, ${s.days} days)`,
-            `  climate        ${climate}`,
-            ...summaryLines(s, latitudeDeg, assumed ? ' (the default)' : '', parseUnits(f.units)),
-          ].join('\n'),
-        );
-      }),
-    );
+    .action(action(async (f: MakeFlags) => (await import('../actions/weather.js')).weatherMake(f)));
 }

@@ -2,7 +2,7 @@
  * Weather variables, the units a column may be in, and the physical bounds of each variable:
  * the vocabulary every weather reader and message shares.
  */
-import { US } from '../../units/quantity.js';
+import { US } from '../../units/usCustomary.js';
 import { roundTo } from '../../units/decimal.js';
 
 /** The variables a weather file can hold, by their short names (used by `columns`). */
