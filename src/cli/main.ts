@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 /**
- * The `tileflux` command line. Each command lives in `commands/`; `catalog.ts` lists them so that
- * only the command asked for is loaded (the top-level help loads none).
+ * The `tileflux` command line. Each command registers its options in `commands/` and does its
+ * work in `actions/`; `catalog.ts` lists them so that only the command asked for is loaded (the
+ * top-level help loads none), and its work only when its action runs (not for its `--help`).
  */
 import { requestedCommand } from './catalog.js';
 import { addCatalogEntries, baseProgram } from './program.js';
