@@ -1,6 +1,6 @@
 /**
  * Facts of the library that the commands' `--help` names, held here so that a command's help
- * loads neither the scenarios (and with them zod) nor the batch reader. Each is a copy:
+ * loads neither the scenarios (and with them zod) nor the batch and weather readers. Each is a copy:
  * test/cli/helpFacts.test.ts checks it against the module it comes from, so a change there fails
  * the test instead of leaving the help out of date.
  */
@@ -31,3 +31,6 @@ export const FIT_OBJECTIVES: readonly string[] = ['kge', 'nse', 'lognse', 'rmse'
 
 /** The separator of scenario names in a manifest's scenarios column (io/batchManifest.ts). */
 export const SCENARIO_SEPARATOR = ';';
+
+/** The weather formats --format accepts (io/weather/formats.ts, which also loads the readers). */
+export const WEATHER_FORMATS: readonly string[] = ['auto', 'tileflux', 'ghcn', 'daymet'];

@@ -4,11 +4,11 @@
  * --export-units, --fill. `addWeatherReadOptions` adds them with the same names and help
  * everywhere; cli/weatherOptions.ts turns the flags into library options and reads a file with
  * them. This module is loaded with the command's options, for its `--help` too, so it imports
- * only the lists the help names (not the readers' unit parser).
+ * only the lists the help names (not the readers).
  */
 import type { Command } from 'commander';
-import { WEATHER_FORMATS } from '../io/weather/formats.js';
 import { MAX_FILL_DAYS, WEATHER_VARIABLES } from '../io/weather/units.js';
+import { WEATHER_FORMATS } from './helpFacts.js';
 
 /** Raw values of the weather reading options, as commander hands them over. */
 export interface WeatherReadFlags {

@@ -6,8 +6,10 @@ import {
   FIT_OBJECTIVES,
   FIT_PARAMETER_BOUNDS,
   SCENARIO_SEPARATOR,
+  WEATHER_FORMATS,
 } from '../../src/cli/helpFacts.js';
 import * as manifest from '../../src/io/batchManifest.js';
+import * as weather from '../../src/io/weather.js';
 import * as fit from '../../src/scenarios/fit.js';
 import * as fitParams from '../../src/scenarios/fitParams.js';
 
@@ -22,5 +24,9 @@ describe('facts of the help texts', () => {
   it('name the objectives of fit and the scenario separator of a batch manifest', () => {
     expect(FIT_OBJECTIVES).toEqual([...fit.FIT_OBJECTIVES]);
     expect(SCENARIO_SEPARATOR).toBe(manifest.SCENARIO_SEPARATOR);
+  });
+
+  it('name the weather formats the readers take', () => {
+    expect(WEATHER_FORMATS).toEqual([...weather.WEATHER_FORMATS]);
   });
 });
