@@ -162,18 +162,22 @@ describe('annual crop-condition counts with the water table held at known depths
       if (key === '10-10') d.inf = 30;
     }
   });
-  const [row] = annualRows('held', forcing, r, no3, w, soil, 0, 365);
+  // The table is made inside each test (see below) so mutation testing sees which tests use it.
+  const heldRow = () => annualRows('held', forcing, r, no3, w, soil, 0, 365)[0];
 
   it('counts aeration-stress days and the aeration deficit', () => {
+    const row = heldRow();
     expect(row.aeration_stress_days).toBe(20); // 1-20 May
     expect(row.aeration_deficit_days).toBeCloseTo(10 * (1 - 8 / 30) + 10 * 0.3, 10); // 10.333
   });
 
   it('counts wet days by the water-table depth alone', () => {
+    const row = heldRow();
     expect(row.wet_days).toBe(10); // 1-10 May
   });
 
   it('counts fieldwork days against the window lengths', () => {
+    const row = heldRow();
     // Spring: 47 days, less 1-20 May (20), 16 Apr (snow) and 20 Apr (standing water): 25.
     expect(row.spring_window_days).toBe(47);
     expect(row.spring_fieldwork_days).toBe(25);
@@ -254,18 +258,13 @@ describe('annual sums, storage change and water table by calendar year', () => {
   for (let d = 1; d <= 10; d++) r.ks[at(`2001-06-${String(d).padStart(2, '0')}`)] = 0.5;
   r.ks[at('2001-07-01')] = 1 - 1e-10; // rounding short of 1 is no stress
   const pool = { balanceErrorKgHa: new Float64Array(ds.length).fill(1e-10) };
-  const rows = annualRows(
-    's',
-    forcing,
-    r,
-    { ...no3, pool } as NitrateResult,
-    w,
-    soil,
-    0,
-    ds.length,
-  );
+  // Tabulated inside each test: a table made in the describe body runs before any test, and
+  // mutation testing could then tell no test from another.
+  const tabulated = () =>
+    annualRows('s', forcing, r, { ...no3, pool } as NitrateResult, w, soil, 0, ds.length);
 
   it('sums each flux over the days of its calendar year', () => {
+    const rows = tabulated();
     expect(rows.map((x) => [x.year, x.days])).toEqual([
       [2000, 366],
       [2001, 365],
@@ -295,6 +294,7 @@ describe('annual sums, storage change and water table by calendar year', () => {
   });
 
   it('mean and shallowest water table of each year; stress days only in the season', () => {
+    const rows = tabulated();
     expect(rows[0].wt_mean_depth_m).toBeCloseTo(1, 12);
     expect(rows[0].wt_shallowest_depth_m).toBe(1);
     expect(rows[1].wt_mean_depth_m).toBeCloseTo((364 + 0.2) / 365, 12);
@@ -322,6 +322,7 @@ describe('annual sums, storage change and water table by calendar year', () => {
   });
 
   it('window test and part years (Gregorian leap years)', () => {
+    const rows = tabulated();
     const summer = { from: '05-01', to: '09-30' };
     const winter = { from: '11-01', to: '02-28' };
     expect(['04-30', '05-01', '09-30', '10-01'].map((k) => inWindow(k, summer))).toEqual([

@@ -162,9 +162,12 @@ const opts = {
 };
 
 describe('compareScenarios', () => {
-  const [conv, ctrl] = compareScenarios(annual, opts);
+  // Compared inside each test: a comparison made in the describe body would run before any test,
+  // and mutation testing could then tell no test from another.
+  const compared = () => compareScenarios(annual, opts);
 
   it('keeps the order of the scenarios and marks the baseline', () => {
+    const [conv, ctrl] = compared();
     expect(conv.scenario).toBe('conventional');
     expect(conv.is_baseline).toBe(true);
     expect(ctrl.scenario).toBe('controlled');
@@ -174,6 +177,7 @@ describe('compareScenarios', () => {
 
   // Expected values are the arithmetic means of the table above, worked by hand.
   it('averages every measure over the years', () => {
+    const [conv, ctrl] = compared();
     const tol = 9; // decimal places
     expect(conv.precip_mm).toBeCloseTo(850, tol); // (900+800+850)/3
     expect(conv.drainflow_mm).toBeCloseTo(250, tol); // (300+200+250)/3
@@ -208,11 +212,13 @@ describe('compareScenarios', () => {
   // Flow-weighted mean concentration over the period: C = 100 * sum(load) / sum(flow), from
   // load (kg/ha) = flow (mm) x C (mg/L) / 100 (1 mm over 1 ha = 10 m3; 10 m3 x 1 g/m3 = 0.01 kg).
   it('weights the concentration by flow over the whole period', () => {
+    const [conv, ctrl] = compared();
     expect(conv.fwmc_mg_l).toBeCloseTo((100 * 22) / 750, 9); // 2.9333
     expect(ctrl.fwmc_mg_l).toBeCloseTo((100 * 15) / 525, 9); // 2.8571
   });
 
   it('gives lateral pipe length per hectare from the spacing', () => {
+    const [conv, ctrl] = compared();
     // 1 ha = 10 000 m2 drained by strips 20 m wide: 500 m of lateral (plain geometry).
     expect(conv.pipe_length_m_ha).toBeCloseTo(500, 9);
     expect(ctrl.pipe_length_m_ha).toBeCloseTo(800, 9);
@@ -222,6 +228,7 @@ describe('compareScenarios', () => {
   });
 
   it('gives the change against the baseline, absolute and percent', () => {
+    const [conv, ctrl] = compared();
     expect(ctrl.drainflow_change_mm).toBeCloseTo(-75, 9);
     expect(ctrl.drainflow_change_percent).toBeCloseTo(-30, 9);
     expect(ctrl.no3n_load_change_kg_ha).toBeCloseTo(5 - 22 / 3, 9);
@@ -240,6 +247,7 @@ describe('compareScenarios', () => {
   });
 
   it('gives the spread of annual flow and load across years', () => {
+    const [conv, ctrl] = compared();
     expect(ctrl.drainflow_min_mm).toBe(150);
     expect(ctrl.drainflow_median_mm).toBe(165);
     expect(ctrl.drainflow_max_mm).toBe(210);
@@ -250,6 +258,7 @@ describe('compareScenarios', () => {
   });
 
   it('splits the load change into flow and concentration parts that add up to it', () => {
+    const [conv, ctrl] = compared();
     // L = Q C / 100; symmetric split: flow part dQ (C0 + C1) / 200, concentration part
     // dC (Q0 + Q1) / 200 (a standard identity for the change of a product).
     const dQ = ctrl.drainflow_mm - conv.drainflow_mm;
@@ -267,6 +276,7 @@ describe('compareScenarios', () => {
   });
 
   it('puts the low and high seepage changes beside every change column', () => {
+    const [conv, ctrl] = compared();
     const lower = annual.map((r) =>
       r.scenario === 'controlled' ? { ...r, drainflow_mm: r.drainflow_mm * 0.9 } : r,
     );
@@ -280,6 +290,7 @@ describe('compareScenarios', () => {
   });
 
   it('has exactly the documented columns, in order, and is deterministic', () => {
+    const [conv, ctrl] = compared();
     expect(Object.keys(conv)).toEqual(COMPARISON_COLUMNS);
     expect(new Set(COMPARISON_COLUMNS).size).toBe(COMPARISON_COLUMNS.length);
     for (const c of COMPARISON_COLUMNS) {
@@ -395,6 +406,7 @@ describe('compareScenarios', () => {
   });
 
   it('a scenario missing from a seepage run gets null band values', () => {
+    const [conv, ctrl] = compared();
     const band = withSeepageBand([conv, ctrl], [conv], []);
     expect(band[0].drainflow_change_percent_low).toBe(0);
     expect(band[1].drainflow_change_percent_low).toBeNull();
