@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { gloverHeadRatio, gloverSpacing } from '../../src/drainage/glover.js';
+import { gloverHeadRatio, gloverSpacing, gloverTimeOfRatio } from '../../src/drainage/glover.js';
 import { equivalentDepth } from '../../src/drainage/equivalentDepth.js';
 import { gloverSeriesRatio as seriesRatio, vdmwDepth as vdmwD } from './reference.js';
 
@@ -145,6 +145,39 @@ describe('gloverSpacing', () => {
     );
     expect(() => gloverSpacing({ ...base, layerBelowDrainsM: -1 })).toThrowError(
       /restrictive layer/,
+    );
+  });
+});
+
+describe('gloverTimeOfRatio (the dimensionless time of a midpoint ratio)', () => {
+  it('for small ratios is the one-term time y = ln(4 / (pi ratio)) (Dumm 1954)', () => {
+    // Once the first term dominates, ratio = (4/pi) e^(-y); the next, e^(-9y) / 3, is below
+    // 1e-27 of it here.
+    for (const ratio of [1e-3, 1e-6, 1e-9]) {
+      const y = Math.log(4 / (Math.PI * ratio));
+      expect(Math.abs(gloverTimeOfRatio(ratio) / y - 1), `ratio ${ratio}`).toBeLessThan(1e-12);
+    }
+  });
+
+  it('returns the time at which the series summed term by term reaches the ratio', () => {
+    // Down to ratio 0.9999999 (y about 0.043, where the module switches to the erfc form).
+    for (const ratio of [0.05, 0.2, 0.5, 0.8, 0.95, 0.999, 0.9999999]) {
+      const y = gloverTimeOfRatio(ratio);
+      // The ratio is solved to 1e-15 of itself; 1e-13 allowed.
+      expect(Math.abs(seriesRatio(y) - ratio), `ratio ${ratio}`).toBeLessThan(1e-13);
+    }
+  });
+
+  it('names a bad input of gloverHeadRatio with its unit', () => {
+    const p = {
+      kMPerDay: 0,
+      equivalentDepthM: 1,
+      drainablePorosity: 0.05,
+      spacingM: 20,
+      initialHeadM: 0.5,
+    };
+    expect(() => gloverHeadRatio(1, p)).toThrow(
+      'kMPerDay must be a number greater than 0 m/d; got 0',
     );
   });
 });
