@@ -16,6 +16,7 @@ import {
   pipeSizeList,
   selectPipeSize,
 } from '../../src/drainage/pipeSizes.js';
+import { roughnessFor, type PipeMaterialName } from '../../src/drainage/pipeMaterials.js';
 import { TilefluxError } from '../../src/errors.js';
 import { moodyDepthRaw, vdmwDepth, vdmwDepthRaw } from './reference.js';
 
@@ -306,6 +307,9 @@ describe('pipe size lists', () => {
     });
     expect(pipeSizeList('4,6, 8 in').nominal).toEqual([4, 6, 8]);
     expect(pipeSizeList('4,6,8in').unit).toBe('in');
+    // A trailing unit after a number of several digits, or after a tab.
+    expect(pipeSizeList('4,6,10 in')).toMatchObject({ unit: 'in', nominal: [4, 6, 10] });
+    expect(pipeSizeList('4,6,8\tin')).toMatchObject({ unit: 'in', nominal: [4, 6, 8] });
     expect(pipeSizeList('.5,1e1,+1.5e2').nominal).toEqual([0.5, 10, 150]);
     expect(pipeSizeList('2.5, 1e+1, 1.2E2 mm').nominal).toEqual([2.5, 10, 120]);
     // Mixed: a unit on an entry other than the last converts that entry (0.1 m = 100 mm).
@@ -330,6 +334,15 @@ describe('pipe size lists', () => {
       'the flow needs a pipe of at least 700 mm (27.6 in), larger than the largest size in ' +
         'the size list (24 in); give larger sizes, a steeper grade or a smaller drained area ' +
         '(split it between outlets)',
+    );
+  });
+});
+
+describe('pipe materials', () => {
+  it('refuses an unknown material, naming the ones it knows', () => {
+    refuses(
+      () => roughnessFor('steel' as PipeMaterialName, 0.1),
+      'pipe material must be one of corrugated, smooth-wall, clay, concrete; got steel',
     );
   });
 });

@@ -300,6 +300,25 @@ describe('designSystem rounding down, with its notes', () => {
     expect(() => designSystem(tree, settings())).toThrow(
       'the sizes of reach a-1 (mains[0].reaches[0])',
     );
+    // A lateral group too large for the list: 2 laterals 5000 m long, 500 m apart, at 0.01 %
+    // (250 ha each, 0.37 m3/s: about 1 m at 0.01 %); its reach at 50 % grade needs about 0.3 m.
+    expect(byHand(2.5e6, 0, 0.0001).need).toBeGreaterThan(24 * 0.0254);
+    expect(byHand(5e6, 0, 0.5).need).toBeLessThan(24 * 0.0254);
+    const wide = clayTree([
+      {
+        name: 'a',
+        reaches: [
+          {
+            length: '100 m',
+            grade: '50 %',
+            laterals: [{ count: 2, length: '5000 m', spacing: '500 m', grade: '0.01 %' }],
+          },
+        ],
+      },
+    ]);
+    expect(() => designSystem(wide, settings())).toThrow(
+      'the sizes of lateral group a-1/L1 (mains[0].reaches[0].laterals[0])',
+    );
   });
 });
 
