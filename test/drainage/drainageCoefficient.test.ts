@@ -122,5 +122,22 @@ describe('parseCoefficientPreset', () => {
       'unknown drainage-coefficient preset {"soil":"peat","crop":"field","inlets":"none"}; ' +
         'accepted: soil mineral|organic, crop field|truck, inlets none|blind|open',
     );
+    // A known soil with an unknown crop, or a known soil and crop with unknown inlets: the same
+    // message, not a failed lookup.
+    for (const preset of [
+      { soil: 'mineral', crop: 'rice', inlets: 'none' },
+      { soil: 'organic', crop: 'truck', inlets: 'tile' },
+    ]) {
+      expect(() => drainageCoefficient(preset as never)).toThrowError(
+        `unknown drainage-coefficient preset ${JSON.stringify(preset)}; accepted: soil mineral|organic`,
+      );
+    }
+  });
+
+  it('returns the preset it was given, as a copy', () => {
+    const preset = { soil: 'organic', crop: 'truck', inlets: 'open' } as const;
+    const c = drainageCoefficient(preset);
+    expect(c.preset).toEqual(preset);
+    expect(c.preset).not.toBe(preset);
   });
 });
