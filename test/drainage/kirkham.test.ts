@@ -37,6 +37,8 @@ describe('kirkhamGeometryFactor', () => {
       [1.0, 2.0, 0.1, 20],
       [1.2, 0.8, 0.05, 10],
       [0.8, 5.0, 0.1, 40],
+      // Close drains of a large radius over a thin layer: the series terms carry about 22 % of g.
+      [1.0, 0.5, 0.2, 2],
     ]) {
       const g = kirkhamGeometryFactor({
         drainDepthM: b,
