@@ -25,6 +25,7 @@ import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
 import { startChartThreads } from '../report/chartThreads.js';
+import { availableParallelism } from 'node:os';
 import { runToFolder, type RunFolderOptions } from '../report/writeRun.js';
 import { fixedText } from '../units/decimal.js';
 
@@ -237,6 +238,9 @@ export function chartYearOf(
   return y;
 }
 
+/** The fewest cores on which `tileflux run` and `demo` draw their charts on chart threads. */
+const CHART_THREAD_CORES = 4;
+
 /**
  * Run a planned field into its output folder as the command does: --daily and --year read here,
  * the scenarios run and written one at a time by the library's `runToFolder`.
@@ -251,8 +255,13 @@ export async function writeRunFolderOf(
 ) {
   const chartYear = chartYearOf(plan.run, o.year);
   const daily = dailyOption(o.daily);
-  // Started before the scenarios run: vega loads and warms up on the threads meanwhile.
-  const charts = o.charts !== false ? startChartThreads() : undefined;
+  // With cores to spare, chart threads start before the scenarios run, so vega loads and warms
+  // up meanwhile. On fewer than four cores they only compete with the run (two cores: no gain
+  // in wall time, about 1 s more CPU), so the charts are drawn in this thread there.
+  const charts =
+    o.charts !== false && availableParallelism() >= CHART_THREAD_CORES
+      ? startChartThreads()
+      : undefined;
   const options = {
     force: o.force,
     charts: o.charts,
