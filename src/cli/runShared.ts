@@ -4,6 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { basename, dirname, resolve } from 'node:path';
 import { clip, TilefluxError } from '../errors.js';
 import { dayNumber } from '../climate/calendar.js';
@@ -25,7 +26,6 @@ import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
 
 import { startChartThreads } from '../report/chartThreads.js';
-import { availableParallelism } from 'node:os';
 import { runToFolder, type RunFolderOptions } from '../report/writeRun.js';
 import { fixedText } from '../units/decimal.js';
 
