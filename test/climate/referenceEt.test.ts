@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { referenceEt } from '../../src/climate/referenceEt.js';
+import { ET_METHOD_SOURCE, HARGREAVES_BIAS, referenceEt } from '../../src/climate/referenceEt.js';
+import { weatherSchema } from '../../src/scenarios/fieldSchema.js';
 import { consecutiveDates, dayOfYear } from '../../src/climate/calendar.js';
 import { extraterrestrialRadiation } from '../../src/climate/extraterrestrialRadiation.js';
 import { hargreavesRefEt } from '../../src/climate/hargreaves.js';
@@ -57,5 +58,25 @@ describe('referenceEt: method choice', () => {
     expect(r.refEtMm[dates.indexOf('2024-01-15')]).toBeGreaterThan(
       2 * r.refEtMm[dates.indexOf('2024-07-15')],
     );
+  });
+});
+
+describe('referenceEt: what reports say about the method', () => {
+  it('names the FAO-56 equation of each method', () => {
+    // FAO-56 (Allen et al. 1998): Eq. 6 is the FAO Penman-Monteith equation for daily ET0 and
+    // Eq. 52 the Hargreaves equation (from memory).
+    expect(ET_METHOD_SOURCE).toEqual({
+      'ref_et column': 'given in the weather file',
+      'FAO Penman-Monteith': 'FAO-56 Eq. 6',
+      Hargreaves: 'FAO-56 Eq. 52',
+    });
+  });
+
+  it("warns that Hargreaves overestimates in humid climates and names the field file's factor", () => {
+    expect(HARGREAVES_BIAS).toMatch(/overestimate ET0 in humid climates/);
+    expect(HARGREAVES_BIAS).toMatch(/10-25 %/);
+    // The key the caution names is one a field file accepts.
+    expect(HARGREAVES_BIAS).toContain('weather.etFactor');
+    expect(Object.keys(weatherSchema.unwrap().shape)).toContain('etFactor');
   });
 });

@@ -66,4 +66,46 @@ describe('summarizeWeather', () => {
     expect(t.precipMeanMmYr).toBeCloseTo(3 * 365.25, 9);
     expect(t.precipMin).toBeUndefined();
   });
+
+  it('averages reference ET over complete years, from a ref_et column (hand sums)', () => {
+    // 2021-12-31 .. 2024-01-01: complete years 2022 and 2023. ref_et 3 mm/d in 2022,
+    // 4 mm/d in 2023, 9 mm/d on the two partial-year days: (3 * 365 + 4 * 365) / 2 = 1277.5.
+    const w = record('2021-12-31', 732, () => [1, 20, 10]);
+    w.refEtMm = Float64Array.from(w.dates, (d) =>
+      d.startsWith('2022') ? 3 : d.startsWith('2023') ? 4 : 9,
+    );
+    const s = summarizeWeather(w, 42);
+    expect(s.refEtMethod).toBe('ref_et column');
+    expect(s.completeYears).toEqual([2022, 2023]);
+    expect(s.refEtMeanMmYr).toBeCloseTo(1277.5, 9);
+  });
+
+  it('scales the daily mean reference ET when no complete year is present', () => {
+    // Ten days: ref_et 1, 2, ..., 10 mm/d, mean 5.5 mm/d, so 5.5 * 365.25 mm/yr.
+    const w = record('2024-03-01', 10, () => [3, 15, 5]);
+    w.refEtMm = Float64Array.from({ length: 10 }, (_, i) => i + 1);
+    expect(summarizeWeather(w, 42).refEtMeanMmYr).toBeCloseTo(5.5 * 365.25, 9);
+  });
+
+  it('names the driest and wettest complete year, the earliest of equal years', () => {
+    // 2 mm every day; 1 January adds 100 mm in 2021 and 2023: 830, 730, 830 mm.
+    const wetEnds = record('2021-01-01', 365 * 3, (d) =>
+      d === '2021-01-01' || d === '2023-01-01' ? [102, 20, 10] : [2, 20, 10],
+    );
+    const a = summarizeWeather(wetEnds, 42);
+    expect(a.precipMin).toEqual({ year: 2022, mm: 730 });
+    expect(a.precipMax).toEqual({ year: 2021, mm: 830 });
+    // 1 January 2022 adds 100 mm instead: 730, 830, 730 mm.
+    const wetMiddle = record('2021-01-01', 365 * 3, (d) =>
+      d === '2022-01-01' ? [102, 20, 10] : [2, 20, 10],
+    );
+    const b = summarizeWeather(wetMiddle, 42);
+    expect(b.precipMin).toEqual({ year: 2021, mm: 730 });
+    expect(b.precipMax).toEqual({ year: 2022, mm: 830 });
+  });
+
+  it('refuses a record without days', () => {
+    const empty = record('2024-01-01', 0, () => [0, 0, 0]);
+    expect(() => summarizeWeather(empty, 42)).toThrow('summarizeWeather: the record has no days');
+  });
 });
