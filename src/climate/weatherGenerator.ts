@@ -15,7 +15,7 @@
  * comes from Hargreaves (FAO-56 Eq. 52).
  */
 import { TilefluxError } from '../errors.js';
-import { consecutiveDates, dayOfYearSeries, isLeapYear } from './calendar.js';
+import { consecutiveDates, dayIndexOf, dayOfYearSeries, isLeapYear } from './calendar.js';
 import { gammaVariate, normalSampler, sfc32 } from './random.js';
 import type { WeatherSeries } from './weatherSeries.js';
 
@@ -152,6 +152,7 @@ export function generateWeather(o: GenerateOptions): WeatherSeries {
   const first = `${String(startYear).padStart(4, '0')}-01-01`;
   const dates = consecutiveDates(first, n);
   const doy = dayOfYearSeries(dates);
+  const month = dayIndexOf(dates).month;
   const u = sfc32(o.seed);
   const z = normalSampler(u);
   const precipMm = new Float64Array(n);
@@ -172,7 +173,7 @@ export function generateWeather(o: GenerateOptions): WeatherSeries {
   let a1 = z();
   let a2 = c * a1 + cOrth * z();
   for (let i = 0; i < n; i++) {
-    const m = Number(dates[i].slice(5, 7)) - 1;
+    const m = month[i] - 1;
     if (i > 0) wet = u() < (wet ? p.pWetGivenWet[m] : p.pWetGivenDry[m]);
     precipMm[i] = wet ? gammaVariate(u, z, p.gammaShape[m], p.gammaScaleMm[m]) : 0;
     if (i > 0) {

@@ -2,6 +2,7 @@
  * The figures a planner checks first in a weather record: its period, annual precipitation,
  * mean annual reference ET and how much of the precipitation falls as snow.
  */
+import { dayIndexOf } from './calendar.js';
 import { referenceEt, type EtMethod } from './referenceEt.js';
 import { DEFAULT_SNOW, snowModel, type SnowParams } from './snow.js';
 import type { WeatherSeries } from './weatherSeries.js';
@@ -63,14 +64,15 @@ export function summarizeWeather(
   let precipTotal = 0;
   let etTotal = 0;
   let snowTotal = 0;
+  const years = dayIndexOf(w.dates).year;
   let i = 0;
   while (i < n) {
-    const year = Number(w.dates[i].slice(0, 4));
+    const year = years[i];
     const startsJan1 = w.dates[i].endsWith('-01-01');
     let p = 0;
     let e = 0;
     let j = i;
-    for (; j < n && Number(w.dates[j].slice(0, 4)) === year; j++) {
+    for (; j < n && years[j] === year; j++) {
       p += w.precipMm[j];
       e += refEtMm[j];
       snowTotal += s.snowfallMm[j];

@@ -1,4 +1,5 @@
 import { describe, it, expect } from 'vitest';
+import fc from 'fast-check';
 import {
   consecutiveDates,
   dayNumber,
@@ -48,5 +49,45 @@ describe('calendar', () => {
     const fast = dayOfYearSeries(dates);
     dates.forEach((d, i) => expect(fast[i]).toBe(dayOfYear(d)));
     expect(dates[7]).toBe('2000-01-01');
+  });
+});
+
+describe('consecutiveDates against the platform calendar', () => {
+  // The reference is JavaScript's own proleptic Gregorian calendar (ECMA-262 Date, printed by
+  // toISOString), which shares no code with the stepping of year, month and day.
+  const MS_PER_DAY = 86_400_000;
+  const platformDate = (day: number) => new Date(day * MS_PER_DAY).toISOString().slice(0, 10);
+  const platformDayOfYear = (day: number) => {
+    const t = new Date(day * MS_PER_DAY);
+    return (day * MS_PER_DAY - Date.UTC(t.getUTCFullYear(), 0, 1)) / MS_PER_DAY + 1;
+  };
+
+  it('steps over month ends, leap days and century years (hand cases)', () => {
+    expect(consecutiveDates('1900-02-28', 2)).toEqual(['1900-02-28', '1900-03-01']);
+    expect(consecutiveDates('2000-02-28', 2)).toEqual(['2000-02-28', '2000-02-29']);
+    expect(consecutiveDates('0099-12-31', 2)).toEqual(['0099-12-31', '0100-01-01']);
+    expect(consecutiveDates('2024-04-30', 2)).toEqual(['2024-04-30', '2024-05-01']);
+    expect(consecutiveDates('2024-01-01', 0)).toEqual([]);
+  });
+
+  it('gives the same dates and days of year as Date for any start from year 100 to 9990 (property)', () => {
+    const first = dayNumber('0100-01-01') as number;
+    const last = dayNumber('9990-01-01') as number;
+    fc.assert(
+      fc.property(
+        fc.integer({ min: first, max: last }),
+        fc.integer({ min: 0, max: 1500 }),
+        (start, count) => {
+          const dates = consecutiveDates(platformDate(start), count);
+          expect(dates).toHaveLength(count);
+          const doy = dayOfYearSeries(dates);
+          for (let i = 0; i < count; i++) {
+            expect(dates[i]).toBe(platformDate(start + i));
+            expect(doy[i]).toBe(platformDayOfYear(start + i));
+          }
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });
