@@ -86,7 +86,11 @@ for (const name of names) {
     ignorePatterns: ['dist', 'notebooks', 'tileflux-demo', 'coverage', '*.md'],
     reporters: ['clear-text', 'progress-append-only'],
     clearTextReporter: { reportTests: false, reportMutants: true, reportScoreTable: true },
-    timeoutMS: 30_000,
+    // A mutant times out after 1.5 times the dry-run time of its tests plus this allowance. The
+    // timed-out mutants are mostly endless loops (a loop bound or step mutated); at 30 s the
+    // sixty or so of them cost half an hour of a full run. 10 s stays well above the run-to-run
+    // spread of these tests on a shared machine (at most a few seconds).
+    timeoutMS: 10_000,
     ignoreStatic: target.ignoreStatic ?? false,
     plugins: ['@stryker-mutator/vitest-runner'],
   });
