@@ -34,3 +34,12 @@ export const SCENARIO_SEPARATOR = ';';
 
 /** The weather formats --format accepts (io/weather/formats.ts, which also loads the readers). */
 export const WEATHER_FORMATS: readonly string[] = ['auto', 'tileflux', 'ghcn', 'daymet'];
+
+/** What each weather format is (io/weather/formats.ts), for `weather --help`. */
+export const WEATHER_FORMAT_HELP: Readonly<Record<string, string>> = {
+  tileflux:
+    "tileflux's own CSV (date, precip_mm, tmax_c, tmin_c, ...; other headers via --columns)",
+  ghcn: 'GHCN-Daily CSV export (STATION, DATE, PRCP, TMAX, TMIN with _ATTRIBUTES; or the by-station file in tenths)',
+  daymet:
+    'Daymet single-pixel CSV (header lines, then year, yday, prcp (mm/day), tmax (deg c), tmin (deg c), ...)',
+};

@@ -6,6 +6,7 @@ import {
   FIT_OBJECTIVES,
   FIT_PARAMETER_BOUNDS,
   SCENARIO_SEPARATOR,
+  WEATHER_FORMAT_HELP,
   WEATHER_FORMATS,
 } from '../../src/cli/helpFacts.js';
 import * as manifest from '../../src/io/batchManifest.js';
@@ -28,5 +29,6 @@ describe('facts of the help texts', () => {
 
   it('name the weather formats the readers take', () => {
     expect(WEATHER_FORMATS).toEqual([...weather.WEATHER_FORMATS]);
+    expect(WEATHER_FORMAT_HELP).toEqual(weather.WEATHER_FORMAT_HELP);
   });
 });

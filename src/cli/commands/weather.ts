@@ -10,9 +10,9 @@
 import type { Command } from 'commander';
 import { DEFAULT_GENERATOR } from '../../climate/weatherGenerator.js';
 import { WET_DAY_MM } from '../../climate/generatorFit.js';
-import { WEATHER_FORMAT_HELP } from '../../io/weather/formats.js';
 import { MAX_FILL_DAYS, WEATHER_BOUNDS } from '../../io/weather/units.js';
 import { addWeatherReadOptions } from '../weatherFlags.js';
+import { WEATHER_FORMAT_HELP } from '../helpFacts.js';
 import { action } from '../common.js';
 import { summaryOf } from '../catalog.js';
 import type { CheckFlags, MakeFlags } from '../actions/weather.js';
