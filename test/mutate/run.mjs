@@ -1,11 +1,16 @@
 // Mutation testing of the core with Stryker (`npm run mutate`, `npm run mutate -- drainage`):
 // each folder is mutated on its own with only its own tests, one after the other, and its score
 // printed. Not part of `npm test` (it takes minutes). Incremental: results of unchanged code and
-// tests are reused from node_modules/.cache/tileflux/. TILEFLUX_MUTATE_CONCURRENCY sets the
-// worker count (default 2, the machine's cores).
+// tests are reused from node_modules/.cache/tileflux/, which a fresh clone seeds from the
+// committed results of a whole run (test/mutate/baseline/<folder>.json.gz), so that only the
+// mutants of code and tests changed since then are run again.
+//   --full            start from nothing (no cache, no baseline): every mutant is run
+//   --save-baseline   after each folder, store its results as the committed baseline
+// TILEFLUX_MUTATE_CONCURRENCY sets the worker count (default 2, the machine's cores).
 import { Stryker } from '@stryker-mutator/core';
-import { mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { gunzipSync, gzipSync } from 'node:zlib';
 
 const root = join(import.meta.dirname, '..', '..');
 const cache = 'node_modules/.cache/tileflux';
@@ -43,8 +48,16 @@ const TARGETS = {
 };
 
 const concurrency = Number(process.env.TILEFLUX_MUTATE_CONCURRENCY ?? 2);
-const asked = process.argv.slice(2);
+const FLAGS = ['--full', '--save-baseline'];
+const args = process.argv.slice(2);
+const full = args.includes('--full');
+const saveBaseline = args.includes('--save-baseline');
+const asked = args.filter((a) => !FLAGS.includes(a));
 for (const name of asked) {
+  if (name.startsWith('-')) {
+    console.error(`unknown option "${name}"; accepted: ${FLAGS.join(', ')}`);
+    process.exit(1);
+  }
   if (!(name in TARGETS)) {
     console.error(`unknown folder "${name}"; accepted: ${Object.keys(TARGETS).join(', ')}`);
     process.exit(1);
@@ -70,8 +83,17 @@ for (const name of names) {
   // The tests of this folder only (read by test/mutate/vitest.config.ts in the workers).
   process.env.TILEFLUX_MUTATE_TESTS = target.tests.join(',');
   process.env.TILEFLUX_MUTATE_EXCLUDE = (target.exclude ?? []).join(',');
-  // TILEFLUX_MUTATE_FILES=src/nitrate/pool.ts,... mutates only those files of the folder.
+  // TILEFLUX_MUTATE_FILES=src/nitrate/pool.ts,... mutates only those files of the folder. Its
+  // results go to a file of their own: Stryker keeps only the mutated files' results, and the
+  // folder's file would lose the others.
   const only = process.env.TILEFLUX_MUTATE_FILES;
+  const results = join(root, cache, `stryker-${name}${only ? '-files' : ''}.json`);
+  const baseline = join(root, 'test', 'mutate', 'baseline', `${name}.json.gz`);
+  if (full) rmSync(results, { force: true });
+  else if (!only && !existsSync(results) && existsSync(baseline)) {
+    writeFileSync(results, gunzipSync(readFileSync(baseline)));
+    console.log(`${name}: starting from the committed results of a whole run (${baseline})`);
+  }
   const stryker = new Stryker({
     mutate: only ? only.split(',') : target.mutate,
     testRunner: 'vitest',
@@ -79,7 +101,7 @@ for (const name of names) {
     coverageAnalysis: 'perTest',
     concurrency,
     incremental: true,
-    incrementalFile: `${cache}/stryker-${name}.json`,
+    incrementalFile: results,
     tempDirName: `${cache}/stryker-tmp`,
     cleanTempDir: 'always',
     // data-demo stays: tests read its weather record.
@@ -94,8 +116,11 @@ for (const name of names) {
     ignoreStatic: target.ignoreStatic ?? false,
     plugins: ['@stryker-mutator/vitest-runner'],
   });
-  const results = await stryker.runMutationTest();
-  const s = score(results);
+  const s = score(await stryker.runMutationTest());
+  if (saveBaseline && !only) {
+    mkdirSync(join(root, 'test', 'mutate', 'baseline'), { recursive: true });
+    writeFileSync(baseline, gzipSync(readFileSync(results), { level: 9 }));
+  }
   const minutes = (Date.now() - t0) / 60_000;
   rows.push(
     `${name.padEnd(10)} ${s.percent.toFixed(1).padStart(5)} %  ${String(s.detected).padStart(4)} killed  ${String(s.undetected).padStart(4)} survived  ${String(s.ignored).padStart(4)} static (not run)  ${minutes.toFixed(1)} min`,
