@@ -108,4 +108,9 @@ describe('summarizeWeather', () => {
     const empty = record('2024-01-01', 0, () => [0, 0, 0]);
     expect(() => summarizeWeather(empty, 42)).toThrow('summarizeWeather: the record has no days');
   });
+
+  it('gives a snow share of 0, not a division by zero, for a record without precipitation', () => {
+    const dry = record('2024-01-01', 30, () => [0, -2, -12]);
+    expect(summarizeWeather(dry, 42).snowSharePercent).toBe(0);
+  });
 });
