@@ -3,7 +3,9 @@
 // supply limit without a half-saturation constant, flows below zero, the input checks of every
 // run, and the value schemas of the nitrate section. Everything is built inside each test.
 import { describe, expect, it } from 'vitest';
+import { annualNitrate } from '../../src/nitrate/annual.js';
 import { DEFAULT_POOL_PARAMS } from '../../src/nitrate/defaults.js';
+import { concentrationMgL } from '../../src/nitrate/load.js';
 import { poolForcingOf, simulatePool } from '../../src/nitrate/pool.js';
 import { eventDate, zKgHa } from '../../src/nitrate/schemaValues.js';
 import { simulateNitrate } from '../../src/nitrate/simulate.js';
@@ -196,5 +198,24 @@ describe('nitrate value schemas', () => {
     ]) {
       expect(eventDate.safeParse(bad).success, bad).toBe(false);
     }
+  });
+});
+
+describe('concentration and yearly sums', () => {
+  it('turns kg N/ha in mm of water into mg N/L', () => {
+    // 1 kg/ha in 1 mm is 1 kg in 10 m3, 100 g/m3 = 100 mg/L (unit definitions): 30 kg/ha in
+    // 300 mm is 10 mg/L, 5 kg/ha in 250 mm 2 mg/L.
+    expect(concentrationMgL(30, 300)).toBeCloseTo(10, 12);
+    expect(concentrationMgL(5, 250)).toBeCloseTo(2, 12);
+  });
+
+  it('sums by year from ISO dates and from integer years alike', () => {
+    const input = constantInput(400, { drain: 1 });
+    const r = simulatePool(input, { ...QUIET, initialPoolKgHa: 60 });
+    const byDate = annualNitrate(input.dates, input.drainflowMm, r);
+    const years = Int32Array.from(input.dates, (d) => Number(d.slice(0, 4)));
+    expect(annualNitrate(years, input.drainflowMm, r)).toEqual(byDate);
+    expect(byDate.map((y) => y.year)).toEqual([2001, 2002]);
+    expect(byDate[0].drainflow_mm).toBeCloseTo(365, 9);
   });
 });
