@@ -5,18 +5,8 @@ import { annualNitrate } from '../../src/nitrate/annual.js';
 import { DEFAULT_POOL_PARAMS } from '../../src/nitrate/defaults.js';
 import { simulatePool } from '../../src/nitrate/pool.js';
 import { simulateNitrate } from '../../src/nitrate/simulate.js';
-import type { NitrateInput, PoolParams } from '../../src/nitrate/types.js';
-import { constantInput, syntheticInput } from './synthetic.js';
-
-/** Pool parameters with every process switched off, to switch on one at a time. */
-const QUIET: PoolParams = {
-  ...DEFAULT_POOL_PARAMS,
-  initialPoolKgHa: 0,
-  fertilizer: [],
-  mineralizationKgHaPerYear: 0,
-  uptakeKgHa: { corn: 0, soybean: 0 },
-  denitrificationMaxPerDay: 0,
-};
+import type { NitrateInput } from '../../src/nitrate/types.js';
+import { constantInput, QUIET, syntheticInput } from './synthetic.js';
 
 function sum(a: Float64Array, from = 0, to = a.length): number {
   let s = 0;

@@ -4,23 +4,12 @@
 // run, and the value schemas of the nitrate section. Everything is built inside each test.
 import { describe, expect, it } from 'vitest';
 import { annualNitrate } from '../../src/nitrate/annual.js';
-import { DEFAULT_POOL_PARAMS } from '../../src/nitrate/defaults.js';
 import { concentrationMgL } from '../../src/nitrate/load.js';
 import { poolForcingOf, simulatePool } from '../../src/nitrate/pool.js';
 import { eventDate, zKgHa } from '../../src/nitrate/schemaValues.js';
 import { simulateNitrate } from '../../src/nitrate/simulate.js';
 import type { PoolParams } from '../../src/nitrate/types.js';
-import { constantInput } from './synthetic.js';
-
-/** Pool parameters with every process switched off, to switch on one at a time. */
-const QUIET: PoolParams = {
-  ...DEFAULT_POOL_PARAMS,
-  initialPoolKgHa: 0,
-  fertilizer: [],
-  mineralizationKgHaPerYear: 0,
-  uptakeKgHa: { corn: 0, soybean: 0 },
-  denitrificationMaxPerDay: 0,
-};
+import { constantInput, QUIET } from './synthetic.js';
 
 /**
  * The share of a season's uptake taken by season fraction s: the logistic

@@ -4,26 +4,14 @@
 // mixed-store washout with runoff extraction, and the daily input checks.
 import { describe, expect, it } from 'vitest';
 import { annualNitrate } from '../../src/nitrate/annual.js';
-import { DEFAULT_POOL_PARAMS } from '../../src/nitrate/defaults.js';
 import { saturationFactor } from '../../src/nitrate/denitrification.js';
 import { dailyFertilizer } from '../../src/nitrate/fertilizer.js';
 import { simulatePool } from '../../src/nitrate/pool.js';
 import { ratingConcentration } from '../../src/nitrate/rating.js';
 import { simulateNitrate } from '../../src/nitrate/simulate.js';
 import { denitrificationTemperatureFactor, q10Factor } from '../../src/nitrate/temperature.js';
-import type { PoolParams } from '../../src/nitrate/types.js';
 import { cumulativeUptakeFraction } from '../../src/nitrate/uptake.js';
-import { constantInput, cornSoybeanCalendar, dates } from './synthetic.js';
-
-/** Pool parameters with every process switched off, to switch on one at a time. */
-const QUIET: PoolParams = {
-  ...DEFAULT_POOL_PARAMS,
-  initialPoolKgHa: 0,
-  fertilizer: [],
-  mineralizationKgHaPerYear: 0,
-  uptakeKgHa: { corn: 0, soybean: 0 },
-  denitrificationMaxPerDay: 0,
-};
+import { constantInput, cornSoybeanCalendar, dates, QUIET } from './synthetic.js';
 
 describe('response functions', () => {
   it('saturation: f = ((s - st) / (1 - st))^w above the threshold, 0 below (Heinen 2006)', () => {

@@ -5,7 +5,8 @@
  * annual temperature cycle and a corn-soybean calendar.
  */
 import type { CropCalendar } from '../../src/engine/types.js';
-import type { NitrateInput } from '../../src/nitrate/types.js';
+import { DEFAULT_POOL_PARAMS } from '../../src/nitrate/defaults.js';
+import type { NitrateInput, PoolParams } from '../../src/nitrate/types.js';
 
 /** Small seeded PRNG (mulberry32) so every run sees the same numbers. */
 export function rng(seed: number): () => number {
@@ -130,3 +131,13 @@ export function constantInput(
     },
   };
 }
+
+/** Pool parameters with every process switched off, to switch on one at a time. */
+export const QUIET: PoolParams = {
+  ...DEFAULT_POOL_PARAMS,
+  initialPoolKgHa: 0,
+  fertilizer: [],
+  mineralizationKgHaPerYear: 0,
+  uptakeKgHa: { corn: 0, soybean: 0 },
+  denitrificationMaxPerDay: 0,
+};
