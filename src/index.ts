@@ -447,6 +447,7 @@ export { buildSweepReportHtml } from './report/sweepReport.js';
 // Chart files, the HTML report, SVG and PNG rendering
 export {
   writeCharts,
+  type ChartFileOptions,
   startChartThreads,
   type ChartThreads,
   writeReport,

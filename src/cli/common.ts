@@ -100,3 +100,11 @@ export function parseUnits(u: string | undefined): UnitSystem {
 export const CAUTION =
   'Planning estimate from simplified physics. Local drainage guides, conservation practice ' +
   'standards, permits and a licensed professional decide the design.';
+
+/**
+ * The help of --images, alike in every command that writes charts/: the folder always holds
+ * the Vega-Lite specs, and drawing them (vega, then resvg) is most of a short run's time.
+ */
+export const IMAGES_HELP =
+  'also draw each chart in charts/ as SVG and PNG, for documents and slides (about half a ' +
+  'second more; report.html draws the charts from their specs without them)';

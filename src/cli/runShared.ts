@@ -40,6 +40,7 @@ export interface RunCommandOptions extends WeatherReadFlags {
   json?: boolean;
   units?: string | undefined;
   charts?: boolean;
+  images?: boolean;
   report?: boolean;
   year?: string;
   daily?: string;
@@ -258,13 +259,13 @@ export async function writeRunFolderOf(
   // With cores to spare, chart threads start before the scenarios run, so vega loads and warms
   // up meanwhile. On fewer than four cores they only compete with the run (two cores: no gain
   // in wall time, about 1 s more CPU), so the charts are drawn in this thread there.
+  const images = o.charts !== false && o.images === true;
   const charts =
-    o.charts !== false && availableParallelism() >= CHART_THREAD_CORES
-      ? startChartThreads()
-      : undefined;
+    images && availableParallelism() >= CHART_THREAD_CORES ? startChartThreads() : undefined;
   const options = {
     force: o.force,
     charts: o.charts,
+    images,
     report: o.report,
     chartYear,
     daily,

@@ -1,8 +1,8 @@
 /**
- * The chart files of an output folder: each Vega-Lite spec as `.vl.json`, drawn to `.svg` by
- * vega and rasterised to `.png` by resvg. Drawing and writing are apart: every chart is drawn
- * first (in this thread, or on the chart worker of chartWorker.ts, which loads this module and
- * the renderers only), then the files are written, by this thread alone. So a failing chart
+ * The chart files of an output folder: each Vega-Lite spec as `.vl.json`, and on request drawn
+ * to `.svg` by vega and rasterised to `.png` by resvg. Drawing and writing are apart: every chart
+ * is drawn first (in this thread, or on a chart thread of chartThreads.ts, which loads this
+ * module and the renderers only), then the files are written, by this thread alone. So a failing chart
  * writes nothing, and no drawing is still under way once writeCharts has returned or thrown.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -57,32 +57,54 @@ export async function drawCharts(
   });
 }
 
+/** How `writeCharts` writes: images or specs only, the PNG scale, the drawer. */
+export interface ChartFileOptions {
+  /**
+   * Draw each chart to SVG and PNG beside its spec (default true). Without images only the
+   * `.vl.json` specs are written and vega is never loaded: drawing is most of a short run's
+   * time, and the HTML reports draw the specs themselves.
+   */
+  images?: boolean | undefined;
+  /** PNG pixels per SVG pixel (default PNG_SCALE). */
+  pngScale?: number;
+  /** Draws the charts (default: in this thread, `drawCharts`). */
+  draw?: ChartDrawer | undefined;
+}
+
 /**
- * Write every chart into `<dir>/charts/` as `<name>.vl.json` (the spec), `<name>.svg` and
- * `<name>.png` (at `opts.pngScale` PNG pixels per SVG pixel, default PNG_SCALE), creating the
- * folder. The charts are drawn by `opts.draw` (default: in this thread, `drawCharts`), all of
- * them before any file is written. Returns the paths written, in order.
+ * Write every chart into `<dir>/charts/` as `<name>.vl.json` (the spec) and, unless
+ * `opts.images` is false, `<name>.svg` and `<name>.png`, creating the folder. With images, all
+ * charts are drawn before any file is written. Returns the paths written, in order.
  *
  * @example await writeCharts(tmpDir, buildChartSpecs(data)) // ['<tmp>/charts/water-table.vl.json', ...]
  */
 export async function writeCharts(
   dir: string,
   specs: Record<string, object>,
-  opts: { pngScale?: number; draw?: ChartDrawer | undefined } = {},
+  opts: ChartFileOptions = {},
 ): Promise<string[]> {
   for (const name of Object.keys(specs)) {
     if (!SAFE_NAME.test(name)) throw new Error(`chart name "${name}" is not a safe file stem`);
   }
-  const drawn = await (opts.draw ?? drawCharts)(specs, opts.pngScale ?? PNG_SCALE);
+  const drawn = new Map<string, DrawnChart>();
+  if (opts.images !== false) {
+    for (const c of await (opts.draw ?? drawCharts)(specs, opts.pngScale ?? PNG_SCALE)) {
+      drawn.set(c.name, c);
+    }
+  }
   const out = join(dir, 'charts');
   mkdirSync(out, { recursive: true });
   const written: string[] = [];
-  for (const { name, svg, png } of drawn) {
+  for (const name of Object.keys(specs)) {
     const base = join(out, name);
     writeFileSync(`${base}.vl.json`, JSON.stringify(specs[name], null, 2) + '\n');
-    writeFileSync(`${base}.svg`, svg);
-    writeFileSync(`${base}.png`, png);
-    written.push(`${base}.vl.json`, `${base}.svg`, `${base}.png`);
+    written.push(`${base}.vl.json`);
+    if (opts.images === false) continue;
+    const chart = drawn.get(name);
+    if (chart === undefined) throw new Error(`chart "${name}" was not drawn`);
+    writeFileSync(`${base}.svg`, chart.svg);
+    writeFileSync(`${base}.png`, chart.png);
+    written.push(`${base}.svg`, `${base}.png`);
   }
   return written;
 }

@@ -132,10 +132,10 @@ export function chartFigures(
     })
     .join('\n');
 }
-/** What the page says when JavaScript is off: the charts are in the folder beside it. */
+/** What the page says when JavaScript is off: where the charts are as files. */
 export const NOSCRIPT_CHARTS =
-  '<noscript><p>The charts need JavaScript. SVG and PNG copies are in the charts folder ' +
-  'beside this report.</p></noscript>';
+  '<noscript><p>The charts need JavaScript. Their Vega-Lite specs are in the charts folder ' +
+  'beside this report, with SVG and PNG copies when the run was made with --images.</p></noscript>';
 /**
  * Cautions of every design output (README, Cautions): codes, standards and a licensed
  * professional decide; trenching is dangerous.

@@ -18,7 +18,13 @@ export { cropConditionLines, headlineLines } from './summary.js';
 export { buildReportHtml, escapeHtml, jsonForScript, BALANCE_TOLERANCE } from './html.js';
 export { loadVegaBundles, type VegaBundles } from './vegaBundles.js';
 // The chart files of a folder, drawn in this thread or on a worker thread
-export { writeCharts, drawCharts, type ChartDrawer, type DrawnChart } from './chartFiles.js';
+export {
+  writeCharts,
+  drawCharts,
+  type ChartDrawer,
+  type ChartFileOptions,
+  type DrawnChart,
+} from './chartFiles.js';
 export { startChartThreads, type ChartThreads } from './chartThreads.js';
 // SVG and PNG renderings of a spec
 export {

@@ -40,6 +40,11 @@ export interface RunFolderOptions {
   /** Replace an existing tileflux output folder. */
   force?: boolean | undefined;
   charts?: boolean | undefined;
+  /**
+   * Draw the charts to SVG and PNG beside their Vega-Lite specs in charts/ (default true; the
+   * CLI draws them only with --images, since report.html draws the specs itself).
+   */
+  images?: boolean | undefined;
   report?: boolean | undefined;
   /** Year of the water-table and hydrograph charts (default the wettest year). */
   chartYear?: number | undefined;
@@ -203,8 +208,11 @@ async function writeRest(
     ...(parts && { parts }),
   });
   const specs = buildChartSpecs(data);
-  // The charts are drawn (on the chart worker, when there is one) while the report is written.
-  const charts = o.charts !== false ? writeCharts(dir, specs, { draw: o.drawCharts }) : undefined;
+  // The charts are drawn (on the chart threads, when there are some) while the report is written.
+  const charts =
+    o.charts !== false
+      ? writeCharts(dir, specs, { images: o.images, draw: o.drawCharts })
+      : undefined;
   try {
     if (o.report !== false) writeReport(dir, data, specs);
   } catch (err) {

@@ -1,5 +1,5 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -38,6 +38,40 @@ describe('tileflux demo', () => {
     expect(stdout).toMatch(/Explorer \(change the designs in a browser\): .*explorer\.html/);
     expect(stdout).toMatch(/^conventional\s/m);
     expect(stdout).toMatch(/Planning estimate/);
+  });
+
+  it('writes the eight chart specs, and no images without --images', () => {
+    const charts = readdirSync(join(out, 'charts')).sort();
+    expect(charts).toEqual(
+      [
+        'annual',
+        'concentration',
+        'cumulative',
+        'duration',
+        'hydrograph',
+        'monthly',
+        'tradeoff',
+        'water-table',
+      ].map((c) => `${c}.vl.json`),
+    );
+    const spec = JSON.parse(readFileSync(join(out, 'charts', 'tradeoff.vl.json'), 'utf8'));
+    expect(spec.$schema).toMatch(/vega-lite/);
+  });
+
+  it('with --images also draws each chart to SVG and PNG, the specs unchanged', () => {
+    const drawn = join(dir, 'demo-images');
+    const r = spawnSync(process.execPath, [CLI, 'demo', '--out', drawn, '--images'], {
+      encoding: 'utf8',
+    });
+    expect(r.status, r.stderr).toBe(0);
+    for (const spec of readdirSync(join(out, 'charts'))) {
+      const stem = spec.replace(/\.vl\.json$/, '');
+      const read = (d: string, f: string) => readFileSync(join(d, 'charts', f));
+      expect(read(drawn, spec).equals(read(out, spec)), spec).toBe(true);
+      expect(read(drawn, `${stem}.svg`).toString('utf8')).toMatch(/^<svg/);
+      expect(read(drawn, `${stem}.png`).subarray(1, 4).toString('ascii')).toBe('PNG');
+    }
+    expect(readdirSync(join(drawn, 'charts')).length).toBe(3 * 8);
   });
 
   it('comparison.csv equals the annual table averaged independently', () => {

@@ -55,7 +55,17 @@ const quick = [
 
 describe('tileflux fit', () => {
   it('writes fitted.yaml, fit.json, fit.csv, charts and report; fitted.yaml runs as it is', () => {
-    const r = tileflux('fit', ...quick, '--observed', 'obs.csv', '--out', 'a', '--workers', '2');
+    const r = tileflux(
+      'fit',
+      ...quick,
+      '--observed',
+      'obs.csv',
+      '--out',
+      'a',
+      '--workers',
+      '2',
+      '--images',
+    );
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(

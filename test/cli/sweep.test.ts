@@ -60,7 +60,18 @@ describe('tileflux sweep', () => {
   it('writes the same files, byte for byte, with 1 and 2 workers and the same seed', () => {
     const outs = ['1', '2'].map((k) => {
       const out = join(dir, `w${k}`);
-      const r = cli(['sweep', field, ...WEATHER, '--out', out, '--workers', k, '--seed', '4']);
+      const r = cli([
+        'sweep',
+        field,
+        ...WEATHER,
+        '--out',
+        out,
+        '--workers',
+        k,
+        '--seed',
+        '4',
+        '--images',
+      ]);
       expect(r.status, r.stderr).toBe(0);
       return out;
     });
@@ -278,7 +289,7 @@ describe('tileflux sweep under several climates', () => {
       return { out, stdout: r.stdout };
     };
     const one = both('1', ['--no-charts']);
-    const two = both('2');
+    const two = both('2', ['--images']);
     for (const n of ['designs.csv', 'samples.csv', 'summary.json']) {
       expect(read(two.out, n), n).toBe(read(one.out, n));
     }

@@ -20,7 +20,7 @@ describe('tileflux system on the demo plan', () => {
   const out = join(tmp, 'plan');
   let summary: Record<string, unknown>;
   beforeAll(() => {
-    summary = json(['system', ...DEMO, '--out', out]);
+    summary = json(['system', ...DEMO, '--out', out, '--images']);
   }, 120_000);
 
   it('writes the tables, a profile chart per main (spec, SVG, PNG), the report and system.json', () => {
@@ -40,6 +40,19 @@ describe('tileflux system on the demo plan', () => {
     const png = readFileSync(join(out, 'charts', 'profile-trunk.png'));
     expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');
     expect(summary.files).toEqual(expect.arrayContaining(['reaches.csv', 'report.html']));
+  });
+
+  it('without --images, charts/ holds the Vega-Lite specs alone', () => {
+    const bare = join(tmp, 'plan-specs');
+    json(['system', ...DEMO, '--out', bare]);
+    expect(readdirSync(join(bare, 'charts')).sort()).toEqual([
+      'profile-trunk.vl.json',
+      'profile-west.vl.json',
+    ]);
+    // The spec is the one the run with images wrote.
+    const spec = (dir: string) =>
+      readFileSync(join(dir, 'charts', 'profile-trunk.vl.json'), 'utf8');
+    expect(spec(bare)).toBe(spec(out));
   });
 
   it('reaches.csv: the outlet reach carries the whole drained area; accumulation holds along the tree', () => {

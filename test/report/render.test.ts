@@ -1,4 +1,4 @@
-import { existsSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -159,6 +159,19 @@ describe('writeCharts', () => {
       expect(JSON.parse(readFileSync(`${base}.vl.json`, 'utf8'))).toEqual(specs[name]);
       expect(readFileSync(`${base}.svg`, 'utf8')).toBe(await svgOf(name));
       expect(statSync(`${base}.png`).size).toBeGreaterThan(5000);
+    }
+  });
+
+  it('with images: false writes the specs alone and draws nothing', async () => {
+    const only = mkdtempSync(join(tmpdir(), 'tileflux-charts-'));
+    try {
+      // A drawer that fails proves nothing is drawn.
+      const draw = () => Promise.reject(new Error('drawn'));
+      const written = await writeCharts(only, specs, { images: false, draw });
+      expect(written).toEqual(CHART_NAMES.map((n) => join(only, 'charts', `${n}.vl.json`)));
+      expect(readdirSync(join(only, 'charts')).length).toBe(CHART_NAMES.length);
+    } finally {
+      rmSync(only, { recursive: true, force: true });
     }
   });
 

@@ -18,6 +18,7 @@ export interface DemoOptions {
   units?: string;
   force?: boolean;
   json?: boolean;
+  images?: boolean;
 }
 
 /** Run the demo with the command's options. */
@@ -34,6 +35,7 @@ export async function demo(o: DemoOptions): Promise<void> {
     units,
     {
       force: o.force,
+      images: o.images,
       explorerHtml: () => explorerHtml(units),
     },
     stop,

@@ -47,6 +47,7 @@ export interface FitCommandOptions extends WeatherReadFlags {
   warmupYears?: string;
   workers?: string;
   charts?: boolean;
+  images?: boolean;
   report?: boolean;
   force?: boolean;
   json?: boolean;
@@ -245,7 +246,7 @@ export async function fit(fieldPath: string, o: FitCommandOptions): Promise<void
     if (o.charts === false && o.report === false) return;
     const specs = buildFitChartSpecs(series);
     if (o.charts !== false) {
-      await writeCharts(dir, specs);
+      await writeCharts(dir, specs, { images: o.images === true });
       written.push('charts/');
     }
     if (o.report !== false) {

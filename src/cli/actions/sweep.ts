@@ -44,6 +44,7 @@ export interface SweepCommandOptions extends WeatherReadFlags {
   force?: boolean;
   json?: boolean;
   charts?: boolean;
+  images?: boolean;
   report?: boolean;
 }
 
@@ -261,7 +262,7 @@ export async function sweep(fieldPath: string, o: SweepCommandOptions): Promise<
         if (o.charts === false && o.report === false) return;
         const charts = buildStudyChartSpecs(study);
         if (o.charts !== false) {
-          await writeCharts(dir, charts.specs);
+          await writeCharts(dir, charts.specs, { images: o.images === true });
           written.push('charts/');
           check();
         }

@@ -25,6 +25,7 @@ export interface SystemFlags {
   round?: string;
   force?: boolean;
   charts?: boolean;
+  images?: boolean;
   report?: boolean;
   json?: boolean;
 }
@@ -96,7 +97,7 @@ export async function system(systemPath: string, o: SystemFlags): Promise<void> 
   await writeDirAtomic(o.out, Boolean(o.force), async (dir) => {
     written.push(...writeSystemTables(dir, design, units));
     if (Object.keys(specs).length > 0 && o.charts !== false) {
-      await writeCharts(dir, specs);
+      await writeCharts(dir, specs, { images: o.images === true });
       written.push('charts/');
     }
     if (o.report !== false) {

@@ -4,7 +4,7 @@
  * report, and prints the headline table.
  */
 import type { Command } from 'commander';
-import { action, CAUTION } from '../common.js';
+import { action, CAUTION, IMAGES_HELP } from '../common.js';
 import { summaryOf } from '../catalog.js';
 import type { DemoOptions } from '../actions/demo.js';
 
@@ -20,6 +20,7 @@ export function registerDemo(program: Command): void {
     )
     .option('-o, --out <dir>', 'output folder', 'tileflux-demo')
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
+    .option('--images', IMAGES_HELP)
     .option('-f, --force', 'replace the output folder if it exists and tileflux wrote it')
     .option('--json', 'print summary.json on stdout instead of the table')
     .addHelpText(
@@ -28,6 +29,7 @@ export function registerDemo(program: Command): void {
         'Examples:\n' +
         '  tileflux demo                                  # SI units (mm, m, kg N/ha), into tileflux-demo/\n' +
         '  tileflux demo --units us --out demo-us         # US units (in, ft, lb N/ac)\n' +
+        '  tileflux demo --images                         # also SVG and PNG of each chart\n' +
         `  tileflux demo --json > demo-summary.json       # the summary for scripts\n\n${CAUTION}`,
     )
     .action(action(async (o: DemoOptions) => (await import('../actions/demo.js')).demo(o)));

@@ -5,7 +5,7 @@
  * an output folder, atomically.
  */
 import type { Command } from 'commander';
-import { action, CAUTION } from '../common.js';
+import { action, CAUTION, IMAGES_HELP } from '../common.js';
 import { DEFAULT_FIT_PATHS, FIT_OBJECTIVES, FIT_PARAMETER_BOUNDS } from '../helpFacts.js';
 import { addWeatherReadOptions } from '../weatherFlags.js';
 import { summaryOf } from '../catalog.js';
@@ -66,7 +66,8 @@ export function registerFit(program: Command): void {
       '--workers <n>',
       'worker threads for the candidate runs (0: none; default: the cores, at most 4)',
     )
-    .option('--no-charts', 'skip the charts/ folder')
+    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')
     .option('--json', 'print fit.json on stdout instead of the summary')

@@ -6,7 +6,7 @@
  * with nothing written.
  */
 import type { Command } from 'commander';
-import { action, CAUTION } from '../common.js';
+import { action, CAUTION, IMAGES_HELP } from '../common.js';
 import { addWeatherReadOptions } from '../weatherFlags.js';
 import { summaryOf } from '../catalog.js';
 import type { SweepCommandOptions } from '../actions/sweep.js';
@@ -42,7 +42,8 @@ export function registerSweep(program: Command): void {
     .option('--samples <n>', 'soil samples per design (default: sweep.samples, else 1)')
     .option('--seed <s>', 'seed of the Latin hypercube (default 1)')
     .option('--workers <k>', 'worker threads (default: the cores available)')
-    .option('--no-charts', 'skip the charts/ folder')
+    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')
     .option('--json', 'print summary.json on stdout instead of the summary')

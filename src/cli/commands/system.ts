@@ -5,7 +5,7 @@
  * report.html into an output folder, atomically.
  */
 import type { Command } from 'commander';
-import { action, CAUTION } from '../common.js';
+import { action, CAUTION, IMAGES_HELP } from '../common.js';
 import { summaryOf } from '../catalog.js';
 import type { SystemFlags } from '../actions/system.js';
 
@@ -45,7 +45,8 @@ export function registerSystem(program: Command): void {
       'round sizes up (default, common practice) or down; overrides the file',
     )
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
-    .option('--no-charts', 'skip the charts/ folder')
+    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')
     .option('--json', 'print the design summary as JSON')
