@@ -315,6 +315,8 @@ export function simulate(
   const { kAboveMPerDay, capacityMmPerDay, drainDepthM } = p;
   const seepageConductance = p.seepageConductanceMmPerDayPerM;
   const maxAirMm = table.maxAirMm;
+  let heldDepth = NaN;
+  let heldLevel = free;
 
   for (let i = 0; i < n; i++) {
     const waterIn = rainMm[i] + snowmeltMm[i];
@@ -322,7 +324,13 @@ export function simulate(
     const cropEt = snowCovered ? 0 : kc[i] * refEtMm[i];
     const pDepl = depletionFraction[i];
     const ctrl = outletDepthM[i];
-    const lv = Number.isNaN(ctrl) || ctrl >= drainDepthM ? free : levelFor(Math.max(0, ctrl));
+    // A held outlet keeps its level for weeks: its coefficients are looked up once a change.
+    // (NaN, the free outlet, never equals itself and takes the plain test.)
+    if (ctrl !== heldDepth) {
+      heldLevel = Number.isNaN(ctrl) || ctrl >= drainDepthM ? free : levelFor(Math.max(0, ctrl));
+      heldDepth = ctrl;
+    }
+    const lv = heldLevel;
     const outletAir = lv.outletAir;
 
     const rootZoneDepthM = rootDepth ? rootDepth[i] : p.rootZoneDepthM;
