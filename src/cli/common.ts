@@ -108,3 +108,17 @@ export const CAUTION =
 export const IMAGES_HELP =
   'also draw each chart in charts/ as SVG and PNG, for documents and slides (about half a ' +
   'second more; report.html draws the charts from their specs without them)';
+
+/**
+ * Whether a command draws its charts as images: `--images`, refused beside `--no-charts`
+ * (which skips the charts it would draw). Called before any work, so the refusal comes first.
+ * @example imagesOf({ charts: true, images: true }) // true
+ */
+export function imagesOf(o: { charts?: boolean | undefined; images?: boolean | undefined }) {
+  if (o.images === true && o.charts === false) {
+    throw new TilefluxError(
+      '--images draws the charts that --no-charts skips; give one of them, not both',
+    );
+  }
+  return o.images === true;
+}

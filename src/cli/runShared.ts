@@ -20,7 +20,7 @@ import { counted } from '../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../io/weather.js';
 import { capacityLimitedDaysOf, planRun, type RunPlan, type RunResult } from '../scenarios/run.js';
 import type { UnitSystem } from '../units/quantity.js';
-import { warn, CAUTION, parseUnits } from './common.js';
+import { warn, CAUTION, imagesOf, parseUnits } from './common.js';
 import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
@@ -64,6 +64,7 @@ export function runFromFiles(
   explorerHtml: (units: UnitSystem) => string;
   stop: () => void;
 } {
+  imagesOf(o);
   for (const [opt, v] of [
     ['--from', o.from],
     ['--to', o.to],
@@ -259,7 +260,7 @@ export async function writeRunFolderOf(
   // With cores to spare, chart threads start before the scenarios run, so vega loads and warms
   // up meanwhile. On fewer than four cores they only compete with the run (two cores: no gain
   // in wall time, about 1 s more CPU), so the charts are drawn in this thread there.
-  const images = o.charts !== false && o.images === true;
+  const images = imagesOf(o);
   const charts =
     images && availableParallelism() >= CHART_THREAD_CORES ? startChartThreads() : undefined;
   const options = {

@@ -214,6 +214,25 @@ const cases: Case[] = [
     first: /cannot write output folder .*\(\d+ characters\): a name in the path is too long/,
   },
   {
+    what: '--images beside --no-charts (run)',
+    args: () => run(field('img'), '--images'),
+    first: /--images draws the charts that --no-charts skips; give one of them, not both/,
+  },
+  {
+    what: '--images beside --no-charts (sweep, refused before any design runs)',
+    args: () => [
+      'sweep',
+      field('img2'),
+      '--weather',
+      weather,
+      '--out',
+      join(dir, 'out'),
+      '--no-charts',
+      '--images',
+    ],
+    first: /--images draws the charts that --no-charts skips/,
+  },
+  {
     what: 'YAML alias bomb',
     args: () => {
       const levels = ['a: &a ["x","x","x","x","x","x","x","x","x","x"]'];

@@ -27,7 +27,7 @@ import { fitColumns, fitDocument, fitSeriesOf, type FitDocument } from '../../re
 import { localRunner, type SearchRunner } from '../../scenarios/optimise.js';
 import { parseQuantity } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { emit, CAUTION } from '../common.js';
+import { emit, CAUTION, imagesOf } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { poolRunner } from '../fitPool.js';
 import { progress } from '../progress.js';
@@ -165,6 +165,7 @@ function headerLines(doc: FitDocument, r: FitResult): string[] {
 
 /** Fit the field file at `fieldPath` to the observations and write the fit folder. */
 export async function fit(fieldPath: string, o: FitCommandOptions): Promise<void> {
+  const images = imagesOf(o);
   const objective = objectiveOf(o.objective);
   const seed = integerOption(o.seed, '--seed', 0, 2 ** 31 - 1, 1);
   const warmupYears = integerOption(o.warmupYears, '--warmup-years', 0, 50, 1);
@@ -246,7 +247,7 @@ export async function fit(fieldPath: string, o: FitCommandOptions): Promise<void
     if (o.charts === false && o.report === false) return;
     const specs = buildFitChartSpecs(series);
     if (o.charts !== false) {
-      await writeCharts(dir, specs, { images: o.images === true });
+      await writeCharts(dir, specs, { images });
       written.push('charts/');
     }
     if (o.report !== false) {

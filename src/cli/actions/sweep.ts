@@ -28,7 +28,7 @@ import {
   type ClimateStudy,
 } from '../../scenarios/sweepClimates.js';
 import { VERSION } from '../../version.js';
-import { CAUTION, emit } from '../common.js';
+import { CAUTION, emit, imagesOf } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { progress } from '../progress.js';
 import { weatherReadNote, readWeatherOption, type WeatherReadFlags } from '../weatherOptions.js';
@@ -208,6 +208,7 @@ export function studyText(study: ClimateStudy, out: string, written: readonly st
 
 /** Run the sweep of the field file at `fieldPath` and write the study folder. */
 export async function sweep(fieldPath: string, o: SweepCommandOptions): Promise<void> {
+  const images = imagesOf(o);
   const samples = wholeNumber(o.samples, '--samples', 1, 10000);
   const seed = wholeNumber(o.seed, '--seed', 0, Number.MAX_SAFE_INTEGER);
   const workers = wholeNumber(o.workers, '--workers', 1, 64);
@@ -262,7 +263,7 @@ export async function sweep(fieldPath: string, o: SweepCommandOptions): Promise<
         if (o.charts === false && o.report === false) return;
         const charts = buildStudyChartSpecs(study);
         if (o.charts !== false) {
-          await writeCharts(dir, charts.specs, { images: o.images === true });
+          await writeCharts(dir, charts.specs, { images });
           written.push('charts/');
           check();
         }

@@ -13,7 +13,7 @@ import { profileChartSpecs } from '../../report/systemCharts.js';
 import { buildSystemReportHtml } from '../../report/systemHtml.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { CAUTION, emit, parseUnits } from '../common.js';
+import { CAUTION, emit, imagesOf, parseUnits } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { fixedText } from '../../units/decimal.js';
 
@@ -79,6 +79,7 @@ export function profileOf(
 
 /** Design the system of the file at `systemPath` and write its folder. */
 export async function system(systemPath: string, o: SystemFlags): Promise<void> {
+  const images = imagesOf(o);
   const units = parseUnits(o.units);
   if (o.out === undefined) throw new TilefluxError('--out is required (the output folder)');
   const loaded = readSystemFile(systemPath);
@@ -97,7 +98,7 @@ export async function system(systemPath: string, o: SystemFlags): Promise<void> 
   await writeDirAtomic(o.out, Boolean(o.force), async (dir) => {
     written.push(...writeSystemTables(dir, design, units));
     if (Object.keys(specs).length > 0 && o.charts !== false) {
-      await writeCharts(dir, specs, { images: o.images === true });
+      await writeCharts(dir, specs, { images });
       written.push('charts/');
     }
     if (o.report !== false) {
