@@ -122,3 +122,16 @@ export function imagesOf(o: { charts?: boolean | undefined; images?: boolean | u
   }
   return o.images === true;
 }
+
+/**
+ * The printed line naming the charts of an output folder and what they are (none when the
+ * folder has no charts/), so the images are found without reading the help.
+ * @example chartsLines('my-run', ['charts/'], false) // ['Charts: my-run/charts/ (Vega-Lite specs; ...)']
+ */
+export function chartsLines(out: string, written: readonly string[], images: boolean): string[] {
+  if (!written.includes('charts/')) return [];
+  const what = images
+    ? 'Vega-Lite specs, SVG and PNG'
+    : 'Vega-Lite specs; --images adds SVG and PNG';
+  return [`Charts: ${out}/charts/ (${what})`];
+}

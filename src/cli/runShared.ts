@@ -20,7 +20,7 @@ import { counted } from '../report/format.js';
 import { readWeatherFile, type WeatherReadResult } from '../io/weather.js';
 import { capacityLimitedDaysOf, planRun, type RunPlan, type RunResult } from '../scenarios/run.js';
 import type { UnitSystem } from '../units/quantity.js';
-import { warn, CAUTION, imagesOf, parseUnits } from './common.js';
+import { warn, CAUTION, chartsLines, imagesOf, parseUnits } from './common.js';
 import { explorerHtmlOf } from '../explorer/page.js';
 import { progress } from './progress.js';
 import { weatherReadOptions, type WeatherReadFlags } from './weatherOptions.js';
@@ -197,6 +197,7 @@ export function runReport(
   out: string,
   written: string[],
   comparison: ComparisonRow[],
+  images = false,
 ): string {
   const lines = [
     `${meta.fieldName}: ${counted(run.scenarios.length, 'scenario')}, ${run.from} to ${run.to} (${counted(run.scenarios[0]?.annual.length ?? 0, 'year')}), reference ET by ${run.refEtMethod}`,
@@ -209,6 +210,7 @@ export function runReport(
     ...assumptionLines(run, units),
     '',
     `Wrote ${out}/ (${written.join(', ')}).`,
+    ...chartsLines(out, written, images),
   ];
   if (written.includes('report.html')) lines.push(`Report: ${join(out, 'report.html')}`);
   if (written.includes('explorer.html')) {

@@ -35,6 +35,7 @@ describe('tileflux demo', () => {
       expect(existsSync(join(out, f))).toBe(true);
     }
     expect(stdout).toMatch(/Report: .*report\.html/);
+    expect(stdout).toMatch(/^Charts: .*charts\/ \(Vega-Lite specs; --images adds SVG and PNG\)$/m);
     expect(stdout).toMatch(/Explorer \(change the designs in a browser\): .*explorer\.html/);
     expect(stdout).toMatch(/^conventional\s/m);
     expect(stdout).toMatch(/Planning estimate/);
@@ -64,6 +65,7 @@ describe('tileflux demo', () => {
       encoding: 'utf8',
     });
     expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/^Charts: .*demo-images\/charts\/ \(Vega-Lite specs, SVG and PNG\)$/m);
     for (const spec of readdirSync(join(out, 'charts'))) {
       const stem = spec.replace(/\.vl\.json$/, '');
       const read = (d: string, f: string) => readFileSync(join(d, 'charts', f));

@@ -40,5 +40,7 @@ export async function demo(o: DemoOptions): Promise<void> {
     },
     stop,
   );
-  emit(o.json, summary, () => runReport(run, meta, units, o.out, written, comparison));
+  emit(o.json, summary, () =>
+    runReport(run, meta, units, o.out, written, comparison, o.images === true),
+  );
 }

@@ -27,7 +27,7 @@ import { fitColumns, fitDocument, fitSeriesOf, type FitDocument } from '../../re
 import { localRunner, type SearchRunner } from '../../scenarios/optimise.js';
 import { parseQuantity } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { emit, CAUTION, imagesOf } from '../common.js';
+import { emit, CAUTION, chartsLines, imagesOf } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { poolRunner } from '../fitPool.js';
 import { progress } from '../progress.js';
@@ -77,7 +77,7 @@ function objectiveOf(text: string | undefined): FitObjective {
 }
 
 /** The human summary: parameters, statistics per period with ratings, files. */
-function fitReportText(doc: FitDocument, out: string, written: string[]): string {
+function fitReportText(doc: FitDocument, out: string, written: string[], images: boolean): string {
   const lines = [
     `${doc.field_name}: fitted ${doc.parameters.length} parameters to ${doc.observations_file} ` +
       `(objective ${doc.objective}, seed ${doc.seed}, ${doc.model_runs} model runs)`,
@@ -121,7 +121,7 @@ function fitReportText(doc: FitDocument, out: string, written: string[]): string
       'No validation period: give --validate FROM..TO to test the fit on other years.',
     );
   }
-  lines.push('', `Wrote ${out}/ (${written.join(', ')}).`);
+  lines.push('', `Wrote ${out}/ (${written.join(', ')}).`, ...chartsLines(out, written, images));
   if (written.includes('report.html')) lines.push(`Report: ${join(out, 'report.html')}`);
   lines.push(`Run the fitted field: tileflux run ${join(out, 'fitted.yaml')} --weather ...`);
   lines.push(CAUTION);
@@ -255,5 +255,5 @@ export async function fit(fieldPath: string, o: FitCommandOptions): Promise<void
       written.push('report.html');
     }
   });
-  emit(o.json, doc, () => fitReportText(doc, out, written));
+  emit(o.json, doc, () => fitReportText(doc, out, written, images));
 }

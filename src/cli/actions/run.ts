@@ -22,5 +22,7 @@ export async function run(fieldPath: string, o: RunCommandOptions): Promise<void
     },
     stop,
   );
-  emit(o.json, summary, () => runReport(run, meta, units, out, written, comparison));
+  emit(o.json, summary, () =>
+    runReport(run, meta, units, out, written, comparison, o.images === true),
+  );
 }

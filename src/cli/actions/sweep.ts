@@ -28,7 +28,7 @@ import {
   type ClimateStudy,
 } from '../../scenarios/sweepClimates.js';
 import { VERSION } from '../../version.js';
-import { CAUTION, emit, imagesOf } from '../common.js';
+import { CAUTION, chartsLines, emit, imagesOf } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { progress } from '../progress.js';
 import { weatherReadNote, readWeatherOption, type WeatherReadFlags } from '../weatherOptions.js';
@@ -173,7 +173,12 @@ function csvRows(rows: SweepResult['designs']): Array<Record<string, string | nu
 }
 
 /** The printed summary of a study: the climates, the candidates under each, what was written. */
-export function studyText(study: ClimateStudy, out: string, written: readonly string[]): string[] {
+export function studyText(
+  study: ClimateStudy,
+  out: string,
+  written: readonly string[],
+  images = false,
+): string[] {
   const first = study.climates[0].result;
   const several = study.climates.length > 1;
   const head = several
@@ -198,6 +203,7 @@ export function studyText(study: ClimateStudy, out: string, written: readonly st
     ...robust,
     '',
     `Wrote ${out}/ (${written.join(', ')}).`,
+    ...chartsLines(out, written, images),
     ...(written.includes('report.html') ? [`Report: ${join(out, 'report.html')}`] : []),
     ...(first.plan.costsGiven
       ? []
@@ -275,7 +281,7 @@ export async function sweep(fieldPath: string, o: SweepCommandOptions): Promise<
       },
       { inputs: [fieldPath, ...specs.map((c) => c.file)] },
     );
-    emit(o.json, summary, () => studyText(study, out, written).join('\n'));
+    emit(o.json, summary, () => studyText(study, out, written, images).join('\n'));
   } catch (err) {
     bar?.stop();
     if (!stop.signal.aborted) throw err;

@@ -13,7 +13,7 @@ import { profileChartSpecs } from '../../report/systemCharts.js';
 import { buildSystemReportHtml } from '../../report/systemHtml.js';
 import { US, type UnitSystem } from '../../units/quantity.js';
 import { VERSION } from '../../version.js';
-import { CAUTION, emit, imagesOf, parseUnits } from '../common.js';
+import { CAUTION, chartsLines, emit, imagesOf, parseUnits } from '../common.js';
 import { writeDirAtomic } from '../../io/atomicOutput.js';
 import { fixedText } from '../../units/decimal.js';
 
@@ -81,7 +81,8 @@ export function profileOf(
 export async function system(systemPath: string, o: SystemFlags): Promise<void> {
   const images = imagesOf(o);
   const units = parseUnits(o.units);
-  if (o.out === undefined) throw new TilefluxError('--out is required (the output folder)');
+  const out = o.out;
+  if (out === undefined) throw new TilefluxError('--out is required (the output folder)');
   const loaded = readSystemFile(systemPath);
   if (o.round !== undefined) {
     if (o.round !== 'up' && o.round !== 'down') {
@@ -95,7 +96,7 @@ export async function system(systemPath: string, o: SystemFlags): Promise<void> 
   const planName = loaded.file.name;
   const { specs, captions } = profileChartSpecs(design, loaded.settings, units, planName);
   const written: string[] = [];
-  await writeDirAtomic(o.out, Boolean(o.force), async (dir) => {
+  await writeDirAtomic(out, Boolean(o.force), async (dir) => {
     written.push(...writeSystemTables(dir, design, units));
     if (Object.keys(specs).length > 0 && o.charts !== false) {
       await writeCharts(dir, specs, { images });
@@ -137,7 +138,8 @@ export async function system(systemPath: string, o: SystemFlags): Promise<void> 
       table(design, units),
       '',
       ...(design.notes.length ? [...design.notes.map((n) => `- ${n}`), ''] : []),
-      `Wrote ${o.out}/ (${written.join(', ')}).`,
+      `Wrote ${out}/ (${written.join(', ')}).`,
+      ...chartsLines(out, written, images),
       CAUTION + ' Trenching is dangerous: locate utilities and follow the excavation safety rules.',
     ].join('\n'),
   );
