@@ -60,18 +60,8 @@ describe('tileflux sweep', () => {
   it('writes the same files, byte for byte, with 1 and 2 workers and the same seed', () => {
     const outs = ['1', '2'].map((k) => {
       const out = join(dir, `w${k}`);
-      const r = cli([
-        'sweep',
-        field,
-        ...WEATHER,
-        '--out',
-        out,
-        '--workers',
-        k,
-        '--seed',
-        '4',
-        '--images',
-      ]);
+      const run = ['--workers', k, '--seed', '4', '--images'];
+      const r = cli(['sweep', field, ...WEATHER, '--out', out, ...run]);
       expect(r.status, r.stderr).toBe(0);
       return out;
     });
