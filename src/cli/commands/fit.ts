@@ -66,7 +66,7 @@ export function registerFit(program: Command): void {
       '--workers <n>',
       'worker threads for the candidate runs (0: none; default: the cores, at most 4)',
     )
-    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--no-charts', 'skip the charts/ folder, the charts’ Vega-Lite specs')
     .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')

@@ -37,7 +37,10 @@ export function registerRun(program: Command): void {
     .option('--to <date>', 'last reported day, YYYY-MM-DD (default: last whole year)')
     .option('--warmup-years <n>', 'years simulated before --from and not reported (default 1)')
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
-    .option('--no-charts', 'skip the charts/ folder, the Vega-Lite specs (for scripted use)')
+    .option(
+      '--no-charts',
+      'skip the charts/ folder, the charts’ Vega-Lite specs (for scripted use)',
+    )
     .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html (faster, for scripted use)')
     .option('--no-explorer', 'skip explorer.html, the interactive page (faster, for scripted use)')

@@ -42,7 +42,7 @@ export function registerSweep(program: Command): void {
     .option('--samples <n>', 'soil samples per design (default: sweep.samples, else 1)')
     .option('--seed <s>', 'seed of the Latin hypercube (default 1)')
     .option('--workers <k>', 'worker threads (default: the cores available)')
-    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--no-charts', 'skip the charts/ folder, the charts’ Vega-Lite specs')
     .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')

@@ -45,7 +45,7 @@ export function registerSystem(program: Command): void {
       'round sizes up (default, common practice) or down; overrides the file',
     )
     .option('--units <system>', 'units of written and printed figures: si or us', 'si')
-    .option('--no-charts', 'skip the charts/ folder (the Vega-Lite specs of the charts)')
+    .option('--no-charts', 'skip the charts/ folder, the charts’ Vega-Lite specs')
     .option('--images', IMAGES_HELP)
     .option('--no-report', 'skip report.html')
     .option('-f, --force', 'replace the output folder if it exists')
