@@ -259,10 +259,10 @@ export async function writeRunFolderOf(
 ) {
   const chartYear = chartYearOf(plan.run, o.year);
   const daily = dailyOption(o.daily);
+  const images = imagesOf(o);
   // With cores to spare, chart threads start before the scenarios run, so vega loads and warms
   // up meanwhile. On fewer than four cores they only compete with the run (two cores: no gain
   // in wall time, about 1 s more CPU), so the charts are drawn in this thread there.
-  const images = imagesOf(o);
   const charts =
     images && availableParallelism() >= CHART_THREAD_CORES ? startChartThreads() : undefined;
   const options = {

@@ -86,11 +86,10 @@ export async function writeCharts(
   for (const name of Object.keys(specs)) {
     if (!SAFE_NAME.test(name)) throw new Error(`chart name "${name}" is not a safe file stem`);
   }
-  const drawn = new Map<string, DrawnChart>();
+  let drawn: Map<string, DrawnChart> | undefined;
   if (opts.images !== false) {
-    for (const c of await (opts.draw ?? drawCharts)(specs, opts.pngScale ?? PNG_SCALE)) {
-      drawn.set(c.name, c);
-    }
+    const charts = await (opts.draw ?? drawCharts)(specs, opts.pngScale ?? PNG_SCALE);
+    drawn = new Map(charts.map((c) => [c.name, c]));
   }
   const out = join(dir, 'charts');
   mkdirSync(out, { recursive: true });
@@ -99,7 +98,7 @@ export async function writeCharts(
     const base = join(out, name);
     writeFileSync(`${base}.vl.json`, JSON.stringify(specs[name], null, 2) + '\n');
     written.push(`${base}.vl.json`);
-    if (opts.images === false) continue;
+    if (drawn === undefined) continue;
     const chart = drawn.get(name);
     if (chart === undefined) throw new Error(`chart "${name}" was not drawn`);
     writeFileSync(`${base}.svg`, chart.svg);
